@@ -1,0 +1,51 @@
+"""Bessel function J1 in plain numpy, so the command line need not import scipy.
+
+The command line must start fast, and ``scipy.special`` alone costs several
+times the import of numpy. J1 is evaluated from Bessel's integral
+
+.. math:: J_1(x) = \\frac{1}{\\pi}\\int_0^\\pi \\cos(\\tau - x\\sin\\tau)\\,d\\tau ,
+
+with the trapezoidal rule. The integrand is analytic and periodic, so the rule
+converges faster than any power of the node count once the count exceeds |x|;
+with ``|x| + 40`` nodes the error is at rounding level. The tests check it
+against ``scipy.special.j1``.
+
+References
+----------
+G. N. Watson, *A Treatise on the Theory of Bessel Functions*, 2nd ed.,
+section 2.2 (Bessel's integral). L. N. Trefethen and J. A. C. Weideman, "The
+exponentially convergent trapezoidal rule", SIAM Review 56 (2014) 385-458.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+_CHUNK = 1 << 20  # nodes x points per block: bounds memory for large inputs
+
+
+def j1(x: np.ndarray | float) -> np.ndarray:
+    """Bessel function of the first kind, order 1, for real ``x``."""
+    x = np.asarray(x, dtype=float)
+    flat = x.ravel()
+    out = np.empty_like(flat)
+    if flat.size == 0:
+        return out.reshape(x.shape)
+    nodes = int(np.nanmax(np.abs(flat), initial=0.0)) + 40
+    tau = np.linspace(0.0, np.pi, nodes + 1)
+    weights = np.full(nodes + 1, 1.0 / nodes)
+    weights[[0, -1]] *= 0.5
+    sin_tau = np.sin(tau)
+    step = max(1, _CHUNK // (nodes + 1))
+    for start in range(0, flat.size, step):
+        block = flat[start : start + step, None]
+        out[start : start + step] = np.cos(tau - block * sin_tau) @ weights
+    return out.reshape(x.shape)
+
+
+def jinc(x: np.ndarray | float) -> np.ndarray:
+    """The disc directivity ``2 J1(x) / x``, equal to 1 at ``x = 0``."""
+    x = np.asarray(x, dtype=float)
+    small = np.abs(x) < 1e-8
+    safe = np.where(small, 1.0, x)
+    return np.where(small, 1.0 - x * x / 8.0, 2.0 * j1(safe) / safe)

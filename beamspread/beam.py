@@ -1,0 +1,246 @@
+"""The far-field beam of a probe in a medium: near field, half-angles, spot sizes.
+
+:func:`analyse` is the one entry point the command line uses; it returns a
+:class:`BeamResult` that states its convention and carries every warning as
+text. Nothing here prints, draws or reads files.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Iterable, Sequence
+from dataclasses import dataclass, field
+
+import numpy as np
+
+from . import axis, pattern
+from .errors import InputError
+from .media.model import Wave
+from .probes import Disc, Probe, Rectangle, check_positive
+from .units import parse_level
+
+__all__ = [
+    "DEFAULT_LEVELS",
+    "BeamResult",
+    "Convention",
+    "PlaneResult",
+    "Spot",
+    "analyse",
+    "level_key",
+]
+
+DEFAULT_LEVELS = (6.0, 20.0)
+
+
+def level_key(level_db: float) -> str:
+    """The key of a level in results: 6 -> "-6", 6.5 -> "-6.5"."""
+    return f"-{abs(level_db):g}"
+
+
+@dataclass(frozen=True)
+class Convention:
+    """How the angles and widths of a result are meant."""
+
+    mode: str  # "pulse-echo" or "one-way"
+    angle: str = "half"
+    reference: str = "dB below the on-axis amplitude at the same range"
+
+    def describe(self) -> str:
+        how = ("pulse-echo (transmit x receive: the one-way pattern squared)"
+               if self.mode == "pulse-echo" else "one-way (transmit only)")
+        return f"{how}; {self.angle}-angles from the beam axis; levels in {self.reference}"
+
+
+@dataclass(frozen=True)
+class Spot:
+    """The beam's full width at a depth and level."""
+
+    depth: float  # m
+    level_db: float  # negative: -6.0 means 6 dB down
+    width: float | None  # m; None where the half-angle does not exist
+    far_field_valid: bool
+    method: str = "far-field"
+
+
+@dataclass(frozen=True)
+class PlaneResult:
+    """One plane of the beam: a disc has one (diameter), a rectangle two (length, width)."""
+
+    name: str
+    aperture: float  # m
+    half_angles: dict[str, float | None]  # level key or "null" -> degrees
+    spots: tuple[Spot, ...] = ()
+
+
+@dataclass(frozen=True)
+class BeamResult:
+    """Everything :func:`analyse` found, in SI units with its convention."""
+
+    probe: Probe
+    wave: Wave
+    convention: Convention
+    levels: tuple[float, ...]
+    wavelength: float
+    near_field: float | None
+    near_field_simple: float
+    near_field_method: str
+    near_field_factor: float | None
+    planes: tuple[PlaneResult, ...]
+    depths: tuple[float, ...] = ()
+    warnings: tuple[str, ...] = field(default_factory=tuple)
+
+
+def _mm(metres: float) -> str:
+    return f"{metres * 1e3:.4g} mm"
+
+
+def _levels(levels: Iterable[float | str]) -> tuple[float, ...]:
+    out: list[float] = []
+    for level in levels:
+        value = parse_level(level, "level")
+        if value not in out:
+            out.append(value)
+    if not out:
+        raise InputError("level: give at least one level in dB below the peak")
+    return tuple(out)
+
+
+def _depths(depths: Iterable[float]) -> tuple[float, ...]:
+    out: list[float] = []
+    for depth in depths:
+        try:
+            value = float(depth)
+        except (TypeError, ValueError):
+            raise InputError(f"depth: {depth!r} is not a number") from None
+        if not math.isfinite(value) or value <= 0:
+            raise InputError(
+                f"depth: {depth!r} m is not allowed; a depth must lie in front of the face (above 0)"
+            )
+        if value not in out:
+            out.append(value)
+    return tuple(out)
+
+
+def analyse(
+    probe: Probe,
+    wave: Wave | float,
+    *,
+    levels: Sequence[float | str] = DEFAULT_LEVELS,
+    depths: Sequence[float] = (),
+    mode: str = "pulse-echo",
+) -> BeamResult:
+    """Near field, half-angles and far-field spot sizes of ``probe`` in a medium.
+
+    Parameters
+    ----------
+    probe : Disc or Rectangle
+    wave : Wave or float
+        The resolved medium (see :meth:`beamspread.Material.evaluate`) or a speed in m/s.
+    levels : sequence
+        Levels in dB below the peak (6, "-6" and "6dB" all mean 6 dB down).
+    depths : sequence of float
+        Depths for spot sizes, m (in front of the face, above 0).
+    mode : {"pulse-echo", "one-way"}
+
+    Returns
+    -------
+    BeamResult
+
+    Notes
+    -----
+    Spot width at depth :math:`z` is the far-field estimate
+    :math:`w = 2 z \\tan\\theta` per plane and level; it is flagged
+    ``far_field_valid = False`` inside the near field, where it does not hold.
+
+    Examples
+    --------
+    >>> r = analyse(Disc(0.010, 5e6), 5920.0, depths=[0.1])
+    >>> round(r.wavelength * 1e3, 3), round(r.near_field * 1e3, 2)
+    (1.184, 20.82)
+    >>> r.planes[0].half_angles["-6"]  # doctest: +ELLIPSIS
+    3.486...
+    """
+    if not isinstance(probe, (Disc, Rectangle)):
+        raise InputError(f"probe: {probe!r} is not a Disc or a Rectangle")
+    if mode not in pattern.MODES:
+        raise InputError(f"mode {mode!r} is unknown; use one of {', '.join(pattern.MODES)}")
+    if not isinstance(wave, Wave):
+        wave = Wave.given(check_positive(wave, "speed", "m/s"))
+    level_list = _levels(levels)
+    depth_list = _depths(depths)
+    wavelength = wave.speed / probe.frequency
+    warnings: list[str] = list(wave.warnings)
+
+    longest = probe.longest_side
+    near_simple = float(axis.simple_near_field(longest, wavelength))
+    factor = None
+    if isinstance(probe, Disc):
+        near = float(axis.disc_near_field(probe.diameter, wavelength))
+        method = "last on-axis maximum, exact: (D^2 - lambda^2) / (4 lambda)"
+    else:
+        near = axis.rectangle_near_field(probe.length, probe.width, wavelength)
+        method = "last on-axis maximum of the exact on-axis Rayleigh integral"
+        if not math.isnan(near):
+            factor = near / near_simple
+    if math.isnan(near):
+        warnings.append(
+            f"no near field: the element ({_mm(longest)}) is no larger than a wavelength "
+            f"({_mm(wavelength)}), so the on-axis field has no maximum in front of the face"
+        )
+        near_field = None
+    else:
+        near_field = near
+
+    shape = "disc" if isinstance(probe, Disc) else "side"
+    planes = []
+    for name, aperture in probe.planes:
+        angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
+        null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
+        half_angles: dict[str, float | None] = {}
+        for level, angle in zip(level_list, angles, strict=True):
+            if math.isnan(angle):
+                half_angles[level_key(level)] = None
+                warnings.append(
+                    f"no {level_key(level)} dB half-angle in the {name} plane: the {mode} "
+                    f"pattern of a {_mm(aperture)} aperture ({aperture / wavelength:.3g} "
+                    f"wavelengths) does not fall to {level_key(level)} dB before 90 degrees"
+                )
+            else:
+                half_angles[level_key(level)] = float(angle)
+        if math.isnan(null):
+            half_angles["null"] = None
+            warnings.append(
+                f"no first null in the {name} plane: a {_mm(aperture)} aperture is too small "
+                "against the wavelength for the pattern to reach zero before 90 degrees"
+            )
+        else:
+            half_angles["null"] = null
+        spots = []
+        for depth in depth_list:
+            valid = near_field is None or depth >= near_field
+            for level in level_list:
+                angle = half_angles[level_key(level)]
+                width = None if angle is None else 2.0 * depth * math.tan(math.radians(angle))
+                spots.append(Spot(depth, -level, width, valid))
+        planes.append(PlaneResult(name, aperture, half_angles, tuple(spots)))
+
+    for depth in depth_list:
+        if near_field is not None and depth < near_field:
+            warnings.append(
+                f"depth {_mm(depth)} lies inside the near field ({_mm(near_field)}): "
+                "the far-field spot size does not hold there"
+            )
+    return BeamResult(
+        probe=probe,
+        wave=wave,
+        convention=Convention(mode),
+        levels=level_list,
+        wavelength=wavelength,
+        near_field=near_field,
+        near_field_simple=near_simple,
+        near_field_method=method,
+        near_field_factor=factor,
+        planes=tuple(planes),
+        depths=depth_list,
+        warnings=tuple(warnings),
+    )

@@ -1,0 +1,109 @@
+"""Option bundles shared by several commands, and the medium they resolve to."""
+
+from __future__ import annotations
+
+import functools
+
+import click
+
+from ..errors import InputError
+from ..units import parse_quantity
+from .params import CONDITION, SPEED, TEMPERATURE
+
+__all__ = ["emit_warnings", "load_registry", "materials_dir_option", "medium_options",
+           "output_options", "resolve_wave"]
+
+
+def materials_dir_option(f):
+    return click.option(
+        "--materials-dir", "materials_dirs", multiple=True, metavar="DIR",
+        type=click.Path(file_okay=False), help="Also read the material tables (*.toml) in DIR; "
+        "repeatable; wins over plug-ins and built-ins.",
+    )(f)
+
+
+def output_options(f):
+    f = click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True,
+                     help="Lengths in tables (JSON and CSV are always SI).")(f)
+    f = click.option("--json", "as_json", is_flag=True, help="Shorthand for --format json.")(f)
+    f = click.option("--format", "fmt", type=click.Choice(["table", "json", "csv"]),
+                     default="table", show_default=True, help="Output format.")(f)
+    return f
+
+
+def medium_options(f):
+    f = materials_dir_option(f)
+    f = click.option("--condition", "conditions", multiple=True, type=CONDITION,
+                     help="A condition the medium declares, NAME=VALUE (salinity=35, depth=100m); "
+                     "repeatable. A bare value takes the unit the medium declares "
+                     "(beamspread materials show NAME).")(f)
+    f = click.option("--temperature", type=TEMPERATURE, default=None,
+                     help="Temperature of the medium: degC, degF or K (bare number: degC).")(f)
+    f = click.option("--speed", type=SPEED, default=None,
+                     help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).")(f)
+    f = click.option("--wave", type=click.Choice(["longitudinal", "shear"]),
+                     default="longitudinal", show_default=True, help="Wave mode in the medium.")(f)
+    f = click.option("--material", default=None, metavar="NAME",
+                     help="Material or medium by name or alias (beamspread materials list).")(f)
+    return f
+
+
+def load_registry(materials_dirs):
+    from ..media.registry import build_registry
+
+    return build_registry(materials_dirs)
+
+
+def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs):
+    """The :class:`~beamspread.media.Wave` the medium options describe, and the registry used."""
+    from ..media.model import Wave
+
+    if (material is None) == (speed is None):
+        raise click.UsageError("give either --material NAME or --speed SPEED")
+    if speed is not None:
+        if temperature is not None or conditions:
+            raise click.UsageError(
+                "--temperature and --condition describe a --material; with --speed they mean nothing"
+            )
+        return Wave.given(speed, wave), None
+    registry = load_registry(materials_dirs)
+    entry = registry.get(material)
+    medium = entry.medium
+    values: dict[str, float] = {}
+    if temperature is not None:
+        values["temperature"] = temperature
+    for name, text in conditions:
+        if name in values:
+            raise click.UsageError(f"--condition {name} is given twice (or with --temperature)")
+        parameter = medium.parameter(name) if hasattr(medium, "parameter") else None
+        if parameter is None and name == "temperature":
+            values[name] = parse_quantity(text, "temperature", what=f"--condition {name}")
+            continue
+        if parameter is None:
+            declared = ", ".join(p.name for p in medium.parameters) or "none"
+            raise InputError(
+                f"--condition {name}: {medium.name} does not depend on {name}; "
+                f"it declares: {declared}"
+            )
+        values[name] = parse_quantity(text, parameter.kind, what=f"--condition {name}",
+                                      default=parameter.unit)
+    return medium.evaluate(wave, values), registry
+
+
+def emit_warnings(lines) -> None:
+    for line in lines:
+        click.echo(f"beamspread: warning: {line}", err=True)
+
+
+def resolved_format(fmt: str, as_json: bool) -> str:
+    return "json" if as_json else fmt
+
+
+def pass_output(f):
+    """Fold --json into --format for the command body."""
+
+    @functools.wraps(f)
+    def wrapper(*args, fmt, as_json, **kwargs):
+        return f(*args, fmt=resolved_format(fmt, as_json), **kwargs)
+
+    return wrapper

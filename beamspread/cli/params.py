@@ -1,0 +1,81 @@
+"""Click parameter types: values with units in, SI floats out."""
+
+from __future__ import annotations
+
+import click
+
+from ..errors import InputError
+from ..units import KINDS, parse_level, parse_quantity
+
+__all__ = ["CONDITION", "LEVEL", "Condition", "Level", "Quantity"]
+
+
+class Quantity(click.ParamType):
+    """A number with an optional unit suffix; bare numbers take the kind's default unit."""
+
+    def __init__(self, kind: str, positive: bool = True) -> None:
+        self.kind = kind
+        self.positive = positive
+        self.name = kind
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return self.kind.upper()
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, float):
+            return value
+        try:
+            result = parse_quantity(value, self.kind, what=None)
+        except InputError as exc:
+            self.fail(str(exc).removeprefix(f"{self.kind}: "), param, ctx)
+        if self.positive and result <= 0:
+            self.fail(f"{value!r} is not allowed; it must be above 0", param, ctx)
+        return result
+
+    def __repr__(self) -> str:
+        return f"Quantity({self.kind!r})"
+
+
+class Level(click.ParamType):
+    """A level in dB below the peak: -6, 6 and 6dB all mean 6 dB down."""
+
+    name = "level"
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return "DB"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, float):
+            return value
+        try:
+            return parse_level(value)
+        except InputError as exc:
+            self.fail(str(exc).removeprefix("level: "), param, ctx)
+
+
+class Condition(click.ParamType):
+    """NAME=VALUE; the value is converted once the medium says what unit NAME takes."""
+
+    name = "condition"
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return "NAME=VALUE"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, tuple):
+            return value
+        name, sep, text = str(value).partition("=")
+        name = name.strip().lower()
+        if not sep or not name or not text.strip():
+            self.fail(f"{value!r} is not NAME=VALUE (e.g. salinity=35 or depth=100m)", param, ctx)
+        return name, text.strip()
+
+
+LEVEL = Level()
+CONDITION = Condition()
+LENGTH = Quantity("length")
+FREQUENCY = Quantity("frequency")
+SPEED = Quantity("speed")
+TEMPERATURE = Quantity("temperature", positive=False)
+
+UNIT_HELP = {kind: f"{k.units} (bare number: {k.default})" for kind, k in KINDS.items()}

@@ -1,0 +1,102 @@
+"""Element shapes: the flat circular and the flat rectangular piston.
+
+A probe is geometry plus a centre frequency, in SI units. Values are checked
+(positive, finite) when the probe is made, so everything downstream may
+assume them sound.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from .errors import InputError
+
+__all__ = ["Disc", "Probe", "Rectangle", "check_positive"]
+
+
+def check_positive(value: float, name: str, unit: str = "") -> float:
+    """Return ``value`` as a float if it is finite and above zero, else raise.
+
+    Raises
+    ------
+    InputError
+        Naming the value and what is allowed.
+    """
+    try:
+        number = float(value)
+    except (TypeError, ValueError):
+        raise InputError(f"{name}: {value!r} is not a number") from None
+    if not math.isfinite(number) or number <= 0.0:
+        shown = f"{value!r}{(' ' + unit) if unit else ''}"
+        raise InputError(f"{name}: {shown} is not allowed; it must be a finite number above 0")
+    return number
+
+
+@dataclass(frozen=True)
+class Disc:
+    """A flat circular piston.
+
+    Parameters
+    ----------
+    diameter : float
+        Element diameter, m.
+    frequency : float
+        Centre frequency, Hz.
+    """
+
+    diameter: float
+    frequency: float
+
+    shape = "disc"
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "diameter", check_positive(self.diameter, "diameter", "m"))
+        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+
+    @property
+    def planes(self) -> tuple[tuple[str, float], ...]:
+        """The planes of the beam, as (name, aperture in m): one for a disc."""
+        return (("diameter", self.diameter),)
+
+    @property
+    def longest_side(self) -> float:
+        return self.diameter
+
+
+@dataclass(frozen=True)
+class Rectangle:
+    """A flat rectangular piston.
+
+    Parameters
+    ----------
+    length : float
+        The side that lies in the plane a plot draws (the x-z plane), m.
+    width : float
+        The other side (the y-z plane), m.
+    frequency : float
+        Centre frequency, Hz.
+    """
+
+    length: float
+    width: float
+    frequency: float
+
+    shape = "rectangle"
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
+        object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
+        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+
+    @property
+    def planes(self) -> tuple[tuple[str, float], ...]:
+        """The planes of the beam, as (name, aperture in m): length, then width."""
+        return (("length", self.length), ("width", self.width))
+
+    @property
+    def longest_side(self) -> float:
+        return max(self.length, self.width)
+
+
+Probe = Disc | Rectangle
