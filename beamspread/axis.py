@@ -5,7 +5,8 @@ the same face velocity), so the on-axis maxima of a disc reach 2.
 
 Disc (exact, Kinsler & Frey):
 
-.. math:: |p(z)| = 2\\left|\\sin\\left(\\frac{k}{2}\\left(\\sqrt{z^2 + a^2} - z\\right)\\right)\\right|
+.. math:: |p(z)| = 2\\left|\\sin\\left(\\frac{k}{2}
+   \\left(\\sqrt{z^2 + a^2} - z\\right)\\right)\\right|
 
 with its last maximum at :math:`N = (D^2 - \\lambda^2) / (4\\lambda)`.
 

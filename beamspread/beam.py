@@ -114,7 +114,8 @@ def _depths(depths: Iterable[float]) -> tuple[float, ...]:
             raise InputError(f"depth: {depth!r} is not a number") from None
         if not math.isfinite(value) or value <= 0:
             raise InputError(
-                f"depth: {depth!r} m is not allowed; a depth must lie in front of the face (above 0)"
+                f"depth: {depth!r} m is not allowed; a depth must lie in front of the face "
+                "(above 0)"
             )
         if value not in out:
             out.append(value)

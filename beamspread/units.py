@@ -241,7 +241,8 @@ def parse_level(value: object, what: str | None = None) -> float:
     level = abs(number)
     if not math.isfinite(level) or level == 0.0 or level > 200.0:
         raise InputError(
-            f"{label}: {value!r} is not allowed; give a level from above 0 up to 200 dB below the peak"
+            f"{label}: {value!r} is not allowed; "
+            "give a level from above 0 up to 200 dB below the peak"
         )
     return level
 

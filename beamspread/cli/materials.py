@@ -62,6 +62,7 @@ def _describe(entry) -> dict:
         "kind": m.kind,
         "description": m.description,
         "origin": entry.origin,
+        "path": entry.path,
         "precedence": entry.level_name,
     }
     if isinstance(m, Material):

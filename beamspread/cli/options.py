@@ -63,7 +63,8 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
     if speed is not None:
         if temperature is not None or conditions:
             raise click.UsageError(
-                "--temperature and --condition describe a --material; with --speed they mean nothing"
+                "--temperature and --condition describe a --material; "
+                "with --speed they mean nothing"
             )
         return Wave.given(speed, wave), None
     registry = load_registry(materials_dirs)

@@ -2,7 +2,6 @@
 
 from .model import (
     ComputedMedium,
-    ConditionWarning,
     Curve,
     Material,
     Parameter,
@@ -15,7 +14,6 @@ from .tables import load_table, parse_table
 
 __all__ = [
     "ComputedMedium",
-    "ConditionWarning",
     "Curve",
     "Entry",
     "Material",

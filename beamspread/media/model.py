@@ -29,7 +29,6 @@ __all__ = [
     "STATES",
     "WAVES",
     "ComputedMedium",
-    "ConditionWarning",
     "Curve",
     "Material",
     "Parameter",
@@ -41,10 +40,6 @@ __all__ = [
 WAVES = ("longitudinal", "shear")
 STATES = ("solid", "liquid", "gas")
 NAME_PATTERN = re.compile(r"^[a-z][a-z0-9]*(?:-[a-z0-9]+)*$")
-
-
-class ConditionWarning(UserWarning):
-    """A condition lies outside the range an equation or table was fitted to."""
 
 
 def normalise_name(name: str) -> str:
@@ -253,7 +248,8 @@ class Material:
             state=self.state,
             conditions=used,
             condition_units={"temperature": "degC"} if used else {},
-            density=None if self.density is None else self.density.at(temperature, f"{self.name} density"),
+            density=(None if self.density is None
+                     else self.density.at(temperature, f"{self.name} density")),
             warnings=tuple(notes),
         )
 
@@ -348,6 +344,9 @@ class ComputedMedium:
         if not math.isfinite(speed) or speed <= 0:
             raise InputError(f"{self.name}: the equation gives no valid speed for {values}")
         density = None if self.density is None else float(self.density(**values))
+        if density is not None and (not math.isfinite(density) or density <= 0):
+            raise InputError(f"{self.name}: the density equation gives no valid density "
+                             f"for {values}")
         return Wave(
             medium=self.name,
             wave=wave,

@@ -259,7 +259,7 @@ def _collect(registry: Registry, infos, hook: str, call_each):
         def register_table(location):
             registry.locations.append((origin, str(location), True))
             for path in _table_files(location):
-                shown = path.name if builtin else str(path)
+                shown = path.name
                 where = f"{'built-in' if builtin else origin} table {shown}"
                 try:
                     table = load_table(path, display=shown)

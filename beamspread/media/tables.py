@@ -26,6 +26,7 @@ Every value carries a ``unit`` and a ``source`` and may carry a ``note``.
 
 from __future__ import annotations
 
+import itertools
 import math
 import re
 import sys
@@ -163,7 +164,7 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
     except (InputError, TypeError, ValueError):
         raise ctx.error(f"curve temperatures must be numbers in a temperature unit "
                         f"({KINDS['temperature'].units})", entry, key) from None
-    if any(b <= a for a, b in zip(temps_c, temps_c[1:], strict=False)):
+    if any(b <= a for a, b in itertools.pairwise(temps_c)):
         raise ctx.error("curve temperatures must increase", entry, key)
     curve = Curve(temps_c, tuple(convert(v) for v in values))
     return Value(source=source, curve=curve, note=note)

@@ -70,7 +70,8 @@ def beam_table(result: BeamResult, units: str = "mm") -> str:
     rows = [
         ["wavelength", format_length(result.wavelength, units, 3), ""],
         ["near field", "none" if near is None else format_length(near, units),
-         result.near_field_method],
+         "last on-axis maximum, " + ("exact (D² − λ²)/4λ" if isinstance(result.probe, Disc)
+                                     else "from the exact on-axis integral")],
         ["near field, simple", format_length(result.near_field_simple, units), simple_label],
     ]
     if result.near_field_factor is not None:
