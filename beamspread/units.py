@@ -12,7 +12,6 @@ from __future__ import annotations
 
 import math
 import re
-from collections.abc import Callable
 from dataclasses import dataclass
 
 from .errors import InputError
@@ -20,6 +19,7 @@ from .errors import InputError
 __all__ = [
     "KINDS",
     "format_length",
+    "from_si",
     "parse_density",
     "parse_frequency",
     "parse_length",
@@ -27,6 +27,7 @@ __all__ = [
     "parse_quantity",
     "parse_speed",
     "parse_temperature",
+    "unit_of",
 ]
 
 _NUMBER = re.compile(r"^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$")
@@ -34,87 +35,47 @@ _NUMBER = re.compile(r"^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s
 
 @dataclass(frozen=True)
 class _Kind:
+    """A kind of quantity: its default unit and, per unit, ``si = value * factor + offset``."""
+
     name: str
     default: str
-    to_si: dict[str, Callable[[float], float]]
+    to_si: dict[str, tuple[float, float]]
 
     @property
     def units(self) -> str:
         return ", ".join(dict.fromkeys(self.to_si))
 
 
-def _scale(factor: float) -> Callable[[float], float]:
-    return lambda v: v * factor
-
-
 _INCH = 0.0254
+_F = 5.0 / 9.0
 KINDS: dict[str, _Kind] = {
-    "length": _Kind(
-        "length",
-        "mm",
-        {
-            "m": _scale(1.0),
-            "cm": _scale(1e-2),
-            "mm": _scale(1e-3),
-            "um": _scale(1e-6),
-            "µm": _scale(1e-6),
-            "in": _scale(_INCH),
-            "ft": _scale(12 * _INCH),
-        },
-    ),
-    "frequency": _Kind(
-        "frequency",
-        "MHz",
-        {"Hz": _scale(1.0), "kHz": _scale(1e3), "MHz": _scale(1e6), "GHz": _scale(1e9)},
-    ),
-    "speed": _Kind(
-        "speed",
-        "m/s",
-        {
-            "m/s": _scale(1.0),
-            "km/s": _scale(1e3),
-            "mm/us": _scale(1e3),
-            "mm/µs": _scale(1e3),
-            "in/us": _scale(_INCH * 1e6),
-            "in/µs": _scale(_INCH * 1e6),
-            "ft/s": _scale(12 * _INCH),
-        },
-    ),
-    "temperature": _Kind(
-        "temperature",
-        "degC",
-        {
-            "degC": lambda v: v,
-            "°C": lambda v: v,
-            "C": lambda v: v,
-            "degF": lambda v: (v - 32.0) * 5.0 / 9.0,
-            "°F": lambda v: (v - 32.0) * 5.0 / 9.0,
-            "F": lambda v: (v - 32.0) * 5.0 / 9.0,
-            "K": lambda v: v - 273.15,
-        },
-    ),
-    "density": _Kind(
-        "density",
-        "kg/m3",
-        {"kg/m3": _scale(1.0), "kg/m^3": _scale(1.0), "g/cm3": _scale(1e3), "g/cm^3": _scale(1e3)},
-    ),
-    "salinity": _Kind(
-        "salinity",
-        "g/kg",
-        {"g/kg": _scale(1.0), "ppt": _scale(1.0), "psu": _scale(1.0), "‰": _scale(1.0)},
-    ),
-    "pressure": _Kind(
-        "pressure",
-        "dbar",
-        {
-            "dbar": _scale(1.0),
-            "bar": _scale(10.0),
-            "kPa": _scale(0.1),
-            "MPa": _scale(100.0),
-            "Pa": _scale(1e-4),
-        },
-    ),
-    "percent": _Kind("percent", "%", {"%": _scale(1.0)}),
+    "length": _Kind("length", "mm", {
+        "m": (1.0, 0.0), "km": (1e3, 0.0), "cm": (1e-2, 0.0), "mm": (1e-3, 0.0),
+        "um": (1e-6, 0.0), "µm": (1e-6, 0.0), "in": (_INCH, 0.0), "ft": (12 * _INCH, 0.0),
+    }),
+    "frequency": _Kind("frequency", "MHz", {
+        "Hz": (1.0, 0.0), "kHz": (1e3, 0.0), "MHz": (1e6, 0.0), "GHz": (1e9, 0.0),
+    }),
+    "speed": _Kind("speed", "m/s", {
+        "m/s": (1.0, 0.0), "km/s": (1e3, 0.0), "mm/us": (1e3, 0.0), "mm/µs": (1e3, 0.0),
+        "in/us": (_INCH * 1e6, 0.0), "in/µs": (_INCH * 1e6, 0.0), "ft/s": (12 * _INCH, 0.0),
+    }),
+    "temperature": _Kind("temperature", "degC", {
+        "degC": (1.0, 0.0), "°C": (1.0, 0.0), "C": (1.0, 0.0),
+        "degF": (_F, -32.0 * _F), "°F": (_F, -32.0 * _F), "F": (_F, -32.0 * _F),
+        "K": (1.0, -273.15),
+    }),
+    "density": _Kind("density", "kg/m3", {
+        "kg/m3": (1.0, 0.0), "kg/m^3": (1.0, 0.0), "g/cm3": (1e3, 0.0), "g/cm^3": (1e3, 0.0),
+    }),
+    "salinity": _Kind("salinity", "g/kg", {
+        "g/kg": (1.0, 0.0), "ppt": (1.0, 0.0), "psu": (1.0, 0.0), "‰": (1.0, 0.0),
+    }),
+    "pressure": _Kind("pressure", "dbar", {
+        "dbar": (1.0, 0.0), "bar": (10.0, 0.0), "kPa": (0.1, 0.0), "MPa": (100.0, 0.0),
+        "Pa": (1e-4, 0.0),
+    }),
+    "percent": _Kind("percent", "%", {"%": (1.0, 0.0)}),
     "number": _Kind("number", "", {}),
 }
 # Case-insensitive aliases, built once: "mhz" -> "MHz". Ambiguous spellings
@@ -176,15 +137,37 @@ def parse_quantity(
         if unit == "" and not k.to_si:
             result = number
         else:
-            canonical = unit if unit in k.to_si else _FOLDED[kind].get(unit.lower())
+            canonical = unit_of(kind, unit)
             if canonical is None:
                 raise InputError(
                     f"{label}: unknown {kind} unit {unit!r} in {text!r}; allowed: {k.units}"
                 )
-            result = k.to_si[canonical](number)
+            factor, offset = k.to_si[canonical]
+            result = number * factor + offset
     if not math.isfinite(result):
         raise InputError(f"{label}: {value!r} is not finite")
     return result
+
+
+def unit_of(kind: str, unit: str) -> str | None:
+    """The canonical spelling of ``unit`` among the units of ``kind``, or None."""
+    k = KINDS[kind]
+    return unit if unit in k.to_si else _FOLDED[kind].get(unit.lower())
+
+
+def from_si(value: float, kind: str, unit: str) -> float:
+    """Express an SI value (degC for temperature) in ``unit`` of ``kind``.
+
+    >>> round(from_si(100.0, "pressure", "bar"), 12), round(from_si(20.0, "temperature", "degF"), 9)
+    (10.0, 68.0)
+    """
+    if not KINDS[kind].to_si:
+        return value
+    canonical = unit_of(kind, unit)
+    if canonical is None:
+        raise InputError(f"unknown {kind} unit {unit!r}; allowed: {KINDS[kind].units}")
+    factor, offset = KINDS[kind].to_si[canonical]
+    return (value - offset) / factor
 
 
 def parse_length(value: object, what: str | None = None) -> float:

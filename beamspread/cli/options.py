@@ -7,7 +7,7 @@ import functools
 import click
 
 from ..errors import InputError
-from ..units import parse_quantity
+from ..units import from_si, parse_quantity
 from .params import CONDITION, SPEED, TEMPERATURE
 
 __all__ = ["emit_warnings", "load_registry", "materials_dir_option", "medium_options",
@@ -72,7 +72,9 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
     medium = entry.medium
     values: dict[str, float] = {}
     if temperature is not None:
-        values["temperature"] = temperature
+        declared = medium.parameter("temperature") if hasattr(medium, "parameter") else None
+        unit = declared.unit if declared is not None else "degC"
+        values["temperature"] = from_si(temperature, "temperature", unit)
     for name, text in conditions:
         if name in values:
             raise click.UsageError(f"--condition {name} is given twice (or with --temperature)")
@@ -86,8 +88,9 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
                 f"--condition {name}: {medium.name} does not depend on {name}; "
                 f"it declares: {declared}"
             )
-        values[name] = parse_quantity(text, parameter.kind, what=f"--condition {name}",
-                                      default=parameter.unit)
+        si = parse_quantity(text, parameter.kind, what=f"--condition {name}",
+                            default=parameter.unit)
+        values[name] = from_si(si, parameter.kind, parameter.unit)
     return medium.evaluate(wave, values), registry
 
 

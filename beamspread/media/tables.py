@@ -36,7 +36,7 @@ from pathlib import Path
 from typing import Any
 
 from ..errors import InputError, TableError
-from ..units import KINDS, parse_quantity
+from ..units import KINDS, parse_quantity, unit_of
 from .model import NAME_PATTERN, STATES, Curve, Material, Value
 
 if sys.version_info >= (3, 11):
@@ -67,33 +67,30 @@ class TableFile:
 
 
 class _Context:
-    """Where an error is: the file, and the lines where each entry starts."""
+    """Where an error is: the file, and the line of the entry being read (``index``)."""
 
     def __init__(self, path: str, text: str) -> None:
         self.path = path
-        self.text = text
+        self.lines = text.splitlines()
+        self.headers = [i for i, line in enumerate(self.lines)
+                        if re.match(r"^\s*\[\[\s*material\s*\]\]", line)]
+        self.index: int | None = None  # the [[material]] being read
 
     def line_of(self, entry: str | None, key: str | None = None) -> int | None:
-        if entry is None:
+        """1-based line of ``key`` in the current entry, else of its name, else its header."""
+        if entry is None or self.index is None or self.index >= len(self.headers):
             return None
-        lines = self.text.splitlines()
-        name_line = None
-        pattern = re.compile(r"^\s*name\s*=\s*[\"']" + re.escape(entry) + r"[\"']")
-        for i, line in enumerate(lines):
-            if pattern.match(line):
-                name_line = i
-                break
-        if name_line is None:
-            return None
-        if key is None:
-            return name_line + 1
-        key_pattern = re.compile(r"^\s*" + re.escape(key) + r"\s*=")
-        for i in range(name_line, len(lines)):
-            if i > name_line and lines[i].strip().startswith("[["):
-                break
-            if key_pattern.match(lines[i]):
-                return i + 1
-        return name_line + 1
+        start = self.headers[self.index]
+        stop = (self.headers[self.index + 1] if self.index + 1 < len(self.headers)
+                else len(self.lines))
+        for wanted in (key, "name"):  # the key's line, else the entry's name line
+            if wanted is None:
+                continue
+            pattern = re.compile(r"^\s*" + re.escape(wanted) + r"\s*=")
+            for i in range(start, stop):
+                if pattern.match(self.lines[i]):
+                    return i + 1
+        return start + 1
 
     def error(self, message: str, entry: str | None = None, key: str | None = None,
               line: int | None = None) -> TableError:
@@ -129,8 +126,10 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
             f"allowed: {', '.join(sorted(VALUE_KEYS))}", entry, key)
     kind = _QUANTITY_KIND[key]
     unit = raw.get("unit")
-    if not isinstance(unit, str):
+    if not isinstance(unit, str) or not unit.strip():
         raise ctx.error(f"the value needs a unit; allowed: {KINDS[kind].units}", entry, key)
+    if unit_of(kind, unit) is None:
+        raise ctx.error(f"unknown unit {unit!r}; allowed: {KINDS[kind].units}", entry, key)
     source = raw.get("source")
     if not isinstance(source, str) or not source.strip():
         raise ctx.error("the value needs a source (a published table, 'common practice' "
@@ -142,7 +141,7 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
         try:
             return parse_quantity(f"{number!r} {unit}", kind)
         except InputError:
-            raise ctx.error(f"unknown unit {unit!r}; allowed: {KINDS[kind].units}",
+            raise ctx.error(f"{number!r} {unit} is not a finite value in SI units",
                             entry, key) from None
 
     has_value = "value" in raw
@@ -175,6 +174,7 @@ def _span(value: Value) -> tuple[float, ...]:
 
 
 def _material(raw: Any, index: int, ctx: _Context) -> Material:
+    ctx.index = index
     if not isinstance(raw, dict):
         raise ctx.error(f"[[material]] number {index + 1} is not a table")
     name = raw.get("name")
@@ -239,7 +239,8 @@ def parse_table(text: str, path: str = "<table>") -> TableFile:
     if unknown:
         raise ctx.error(f"unknown top-level key{_closest(unknown[0], TOP_KEYS)}; allowed: "
                         f"{', '.join(sorted(TOP_KEYS))}", key=unknown[0])
-    if data.get("format") != FORMAT:
+    fmt = data.get("format")
+    if type(fmt) is not int or fmt != FORMAT:
         raise ctx.error(f"format = {data.get('format')!r} is not understood; this version "
                         f"reads format = {FORMAT}", key="format", line=1 if "format" not in data
                         else None)
