@@ -24,6 +24,7 @@ import sys
 import types
 
 import pytest
+from synthetic_plugins import Media, Tables
 
 from beamspread import ComputedMedium, hookimpl, hookspecs, plugins
 from beamspread.media.registry import build_registry
@@ -79,26 +80,6 @@ class RaisingTables:
     def register_tables(self, register):
         register(self.location)
         raise RuntimeError("synthetic failure in tables")
-
-
-class Tables:
-    def __init__(self, *locations):
-        self.locations = locations
-
-    @hookimpl
-    def register_tables(self, register):
-        for location in self.locations:
-            register(location)
-
-
-class Media:
-    def __init__(self, *media):
-        self.media = media
-
-    @hookimpl
-    def register_media(self, register):
-        for medium in self.media:
-            register(medium)
 
 
 def test_hook_register_media_raising_is_reported_and_discarded(plugin, run):

@@ -12,8 +12,9 @@ import sys
 from pathlib import Path
 
 import pytest
+from synthetic_plugins import Media, Tables
 
-from beamspread import ComputedMedium, Material, MaterialError, Parameter, Value, hookimpl
+from beamspread import ComputedMedium, Material, MaterialError, Parameter, Value
 from beamspread.media.registry import ENV_VAR, build_registry, config_dir
 
 SOURCE = "synthetic test value"
@@ -40,29 +41,6 @@ def config_materials(monkeypatch, tmp_path):
     """The per-user table directory, inside a temporary home whatever the platform."""
     monkeypatch.setenv("HOME", str(tmp_path / "home"))
     return config_dir() / "materials"
-
-
-class TablePlugin:
-    """A test plug-in that hands over one table location."""
-
-    def __init__(self, location):
-        self.location = location
-
-    @hookimpl
-    def register_tables(self, register):
-        register(self.location)
-
-
-class MediaPlugin:
-    """A test plug-in that hands over media objects."""
-
-    def __init__(self, *media):
-        self.media = media
-
-    @hookimpl
-    def register_media(self, register):
-        for medium in self.media:
-            register(medium)
 
 
 def speed(registry, name):
@@ -166,7 +144,7 @@ def test_precedence_order(present, config_materials, monkeypatch, tmp_path, plug
         dirs.append(user_dir(tmp_path / "dir", "reference-steel", SPEEDS["dir"]))
     if "plugin" in present:
         location = user_dir(tmp_path / "plugin", "reference-steel", SPEEDS["plugin"])
-        plugin(TablePlugin(location), "synthetic-plugin")
+        plugin(Tables(location), "synthetic-plugin")
     registry = build_registry(dirs)
     winner = next((s for s in ("dir", "env", "config", "plugin") if s in present), None)
     expected = SPEEDS[winner] if winner else BUILTIN_STEEL
@@ -198,7 +176,7 @@ def test_materials_paths_lists_highest_precedence_first(run, monkeypatch, tmp_pa
 
 def test_plugin_overrides_builtin_and_user_overrides_plugin(run, plugin, tmp_path):
     location = user_dir(tmp_path / "plugin", "reference-steel", 4444)
-    plugin(TablePlugin(location), "synthetic-plugin")
+    plugin(Tables(location), "synthetic-plugin")
     registry = build_registry()
     entry = registry.get("reference-steel")
     assert entry.level_name == "plug-in"
@@ -221,7 +199,7 @@ def test_plugin_overrides_builtin_and_user_overrides_plugin(run, plugin, tmp_pat
 
 def test_plugin_computed_medium_overrides_builtin(plugin):
     medium = ComputedMedium("water", "liquid", lambda: 1000.0, source="synthetic law")
-    plugin(MediaPlugin(medium), "synthetic-water")
+    plugin(Media(medium), "synthetic-water")
     registry = build_registry()
     assert registry.get("water").medium is medium
     assert speed(registry, "water") == 1000.0
@@ -493,7 +471,7 @@ def test_plugin_condition_in_its_declared_unit(run, plugin):
         "synthetic-pressurised", "liquid", law, source="synthetic law",
         parameters=(Parameter("pressure", "pressure", "bar", 1.0, (0.0, 50.0), (0.0, 100.0)),),
     )
-    plugin(MediaPlugin(medium), "synthetic-pressure")
+    plugin(Media(medium), "synthetic-pressure")
     for text in ("10", "10bar", "1MPa"):
         seen.clear()
         result = beam_json(run, "--material", "synthetic-pressurised", "--condition",

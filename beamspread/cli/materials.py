@@ -40,12 +40,17 @@ def materials() -> None:
     pass
 
 
-def _speeds(entry, wave_name: str) -> float | None:
-    medium = entry.medium
-    try:
-        return medium.evaluate(wave_name).speed
-    except Exception:
-        return None
+def _reference(medium) -> dict:
+    """Longitudinal and shear speed and density for listings: constants, curve middles,
+    or a computed medium at its default conditions."""
+    from ..media.model import Material
+
+    if isinstance(medium, Material):
+        return {"longitudinal": medium.longitudinal.reference,
+                "shear": medium.shear.reference if medium.shear else None,
+                "density": medium.density.reference if medium.density else None}
+    state = medium.evaluate("longitudinal")
+    return {"longitudinal": state.speed, "shear": None, "density": state.density}
 
 
 def _describe(entry) -> dict:
@@ -83,9 +88,6 @@ def _describe(entry) -> dict:
         out["shear_m_s"] = value(m.shear)
         out["density_kg_m3"] = value(m.density)
         out["source"] = m.longitudinal.source
-        reference = {"longitudinal": m.longitudinal.reference,
-                     "shear": m.shear.reference if m.shear else None,
-                     "density": m.density.reference if m.density else None}
         out["note"] = m.note
     else:
         state = m.evaluate("longitudinal")
@@ -102,11 +104,10 @@ def _describe(entry) -> dict:
             "longitudinal_m_s": state.speed,
             "density_kg_m3": state.density,
         }
-        reference = {"longitudinal": state.speed, "shear": None, "density": state.density}
         out["note"] = m.note
+    reference = _reference(m)
     out["impedance_rayl"] = (reference["density"] * reference["longitudinal"]
                              if reference["density"] else None)
-    out["_reference"] = reference
     return out
 
 
@@ -125,15 +126,13 @@ def list_(materials_dirs, as_json):
     if as_json:
         from ..report.serialize import dumps
 
-        for row in rows:
-            row.pop("_reference")
         click.echo(dumps(rows))
         return
     from ..report.text import columns
 
     table = [["name", "state", "cL m/s", "cS m/s", "density kg/m3", "Z MRayl", "origin"]]
-    for row in rows:
-        ref = row["_reference"]
+    for entry, row in zip(registry, rows, strict=True):
+        ref = _reference(entry.medium)
         speed = _fmt(ref["longitudinal"])
         if row["kind"] == "computed":
             speed += " *"
@@ -157,7 +156,6 @@ def show(name, materials_dirs, as_json):
     from ..media.model import normalise_name
 
     data = _describe(entry)
-    data.pop("_reference")
     data["shadows"] = [e.origin for e in registry.shadowed.get(normalise_name(entry.name), [])]
     if as_json:
         from ..report.serialize import dumps
