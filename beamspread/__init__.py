@@ -17,8 +17,30 @@ from .axis import (
     rectangle_near_field,
     simple_near_field,
 )
-from .beam import BeamResult, Convention, PlaneResult, Spot, analyse, level_key
+from .beam import (
+    BeamResult,
+    Convention,
+    FieldSettings,
+    FieldSummary,
+    PlaneResult,
+    Spot,
+    analyse,
+    level_key,
+)
 from .errors import BeamspreadError, InputError, MaterialError, PluginError, TableError
+from .field import (
+    AxialProfile,
+    BeamWidth,
+    FieldMap,
+    TransverseProfile,
+    axial_profile,
+    beam_width,
+    beam_widths,
+    field_amplitude,
+    field_map,
+    last_maximum,
+    transverse_profile,
+)
 from .hookspecs import hookimpl
 from .media import (
     ComputedMedium,
@@ -39,13 +61,18 @@ from .probes import Disc, Rectangle
 __version__ = "0.1.0"
 
 __all__ = [
+    "AxialProfile",
     "BeamResult",
+    "BeamWidth",
     "BeamspreadError",
     "ComputedMedium",
     "Convention",
     "Curve",
     "Disc",
     "Entry",
+    "FieldMap",
+    "FieldSettings",
+    "FieldSummary",
     "InputError",
     "Material",
     "MaterialError",
@@ -56,17 +83,24 @@ __all__ = [
     "Registry",
     "Spot",
     "TableError",
+    "TransverseProfile",
     "Value",
     "Wave",
     "__version__",
     "analyse",
+    "axial_profile",
+    "beam_width",
+    "beam_widths",
     "build_registry",
     "directivity",
     "disc_axial_pressure",
     "disc_near_field",
+    "field_amplitude",
+    "field_map",
     "first_null",
     "half_angle",
     "hookimpl",
+    "last_maximum",
     "level_amplitude",
     "level_key",
     "load_table",
@@ -75,4 +109,5 @@ __all__ = [
     "rectangle_axial_pressure",
     "rectangle_near_field",
     "simple_near_field",
+    "transverse_profile",
 ]

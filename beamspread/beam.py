@@ -20,9 +20,12 @@ from .probes import Disc, Probe, Rectangle, check_positive
 from .units import parse_level
 
 __all__ = [
+    "DEFAULT_BANDWIDTH",
     "DEFAULT_LEVELS",
     "BeamResult",
     "Convention",
+    "FieldSettings",
+    "FieldSummary",
     "PlaneResult",
     "Spot",
     "analyse",
@@ -53,13 +56,41 @@ class Convention:
 
 @dataclass(frozen=True)
 class Spot:
-    """The beam's full width at a depth and level."""
+    """The beam's full width at a depth and level, from the far-field model or the field."""
 
     depth: float  # m
     level_db: float  # negative: -6.0 means 6 dB down
-    width: float | None  # m; None where the half-angle does not exist
-    far_field_valid: bool
-    method: str = "far-field"
+    width: float | None  # m; None where the half-angle (or the crossing) does not exist
+    far_field_valid: bool | None  # None for a width from the computed field
+    method: str = "far-field"  # or "field"
+
+
+DEFAULT_BANDWIDTH = 0.5
+
+
+@dataclass(frozen=True)
+class FieldSettings:
+    """How the computed field is formed (see :mod:`beamspread.field`).
+
+    ``bandwidth`` is the -6 dB fractional bandwidth of the measured spectrum
+    (0: continuous wave); ``spectrum`` its shape; ``frequencies`` how many
+    frequencies sample it.
+    """
+
+    bandwidth: float = DEFAULT_BANDWIDTH
+    spectrum: str = "gaussian"
+    frequencies: int = 32
+
+    amplitude = ("spectral RMS of the echo of a small reflector at the point (pulse-echo), "
+                 "or of the transmitted pulse there (one-way)")
+
+
+@dataclass(frozen=True)
+class FieldSummary:
+    """What the computed field adds to a result beside the widths."""
+
+    settings: FieldSettings
+    axial_maximum: float | None  # m: the last on-axis maximum of the computed amplitude
 
 
 @dataclass(frozen=True)
@@ -88,6 +119,7 @@ class BeamResult:
     planes: tuple[PlaneResult, ...]
     depths: tuple[float, ...] = ()
     warnings: tuple[str, ...] = field(default_factory=tuple)
+    field: FieldSummary | None = None
 
 
 def _mm(metres: float) -> str:
@@ -129,8 +161,9 @@ def analyse(
     levels: Sequence[float | str] = DEFAULT_LEVELS,
     depths: Sequence[float] = (),
     mode: str = "pulse-echo",
+    field: FieldSettings | None = None,
 ) -> BeamResult:
-    """Near field, half-angles and far-field spot sizes of ``probe`` in a medium.
+    """Near field, half-angles and spot sizes of ``probe`` in a medium.
 
     Parameters
     ----------
@@ -142,6 +175,9 @@ def analyse(
     depths : sequence of float
         Depths for spot sizes, m (in front of the face, above 0).
     mode : {"pulse-echo", "one-way"}
+    field : FieldSettings, optional
+        Also compute each spot from the real field (:func:`beamspread.field.beam_width`),
+        near field included, beside the far-field estimate.
 
     Returns
     -------
@@ -152,6 +188,9 @@ def analyse(
     Spot width at depth :math:`z` is the far-field estimate
     :math:`w = 2 z \\tan\\theta` per plane and level; it is flagged
     ``far_field_valid = False`` inside the near field, where it does not hold.
+    With ``field``, a second spot per depth, level and plane carries the width
+    of the computed field between the outermost crossings of the level below
+    the maximum at that depth (``method = "field"``).
 
     Examples
     --------
@@ -223,7 +262,24 @@ def analyse(
                 angle = half_angles[level_key(level)]
                 width = None if angle is None else 2.0 * depth * math.tan(math.radians(angle))
                 spots.append(Spot(depth, -level, width, valid))
+            if field is not None:
+                spots.extend(_field_spots(probe, wave.speed, depth, level_list, name, mode,
+                                          field))
         planes.append(PlaneResult(name, aperture, half_angles, tuple(spots)))
+
+    summary = None
+    if field is not None:
+        from .field import last_maximum
+
+        axial = last_maximum(probe, wave.speed, bandwidth=field.bandwidth, mode=mode,
+                             frequencies=field.frequencies, spectrum=field.spectrum)
+        summary = FieldSummary(field, None if math.isnan(axial) else axial)
+        shallow = [d for d in depth_list if d < 0.05 * near_simple]
+        if shallow:
+            warnings.append(
+                f"depth {_mm(shallow[0])} lies closer than 0.05 N ({_mm(0.05 * near_simple)}) "
+                "to the face, where the computed field is not validated"
+            )
 
     for depth in depth_list:
         if near_field is not None and depth < near_field:
@@ -244,4 +300,14 @@ def analyse(
         planes=tuple(planes),
         depths=depth_list,
         warnings=tuple(warnings),
+        field=summary,
     )
+
+
+def _field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSettings):
+    from .field import beam_widths
+
+    found = beam_widths(probe, speed, depth, levels, plane=plane, bandwidth=settings.bandwidth,
+                        mode=mode, frequencies=settings.frequencies, spectrum=settings.spectrum)
+    return [Spot(depth, -w.level_db, None if math.isnan(w.width) else w.width, None,
+                 method="field") for w in found]

@@ -82,8 +82,9 @@ def test_one_way_and_material_with_shear(run):
 def test_csv_rows(run):
     r = run(*BASE, "--depth", "50", "--depth", "100", "--format", "csv")
     rows = list(csv.DictReader(io.StringIO(r.stdout)))
-    assert len(rows) == 2 * 2 + 1  # two levels at two depths, and the first null
+    assert len(rows) == 2 * 2 * 2 + 1  # two levels at two depths by two methods, and the null
     assert {row["level"] for row in rows} == {"-6", "-20", "null"}
+    assert {row["method"] for row in rows if row["depth_m"]} == {"far-field", "field"}
     assert float(rows[0]["wavelength_m"]) == pytest.approx(1.184e-3)
 
 

@@ -19,8 +19,11 @@ from ..errors import BeamspreadError, InputError, TableError
 __all__ = ["cli", "main"]
 
 _COMMANDS = {
+    "across": "beamspread.cli.field:across",
+    "axis": "beamspread.cli.field:axis",
     "beam": "beamspread.cli.beam:beam",
     "demo": "beamspread.cli.demo:demo",
+    "map": "beamspread.cli.field:map_",
     "materials": "beamspread.cli.materials:materials",
     "plugins": "beamspread.cli.plugins:plugins",
 }

@@ -4,33 +4,42 @@ from __future__ import annotations
 
 import click
 
-from .options import emit_warnings, medium_options, output_options, pass_output, resolve_wave
-from .params import FREQUENCY, LENGTH, LEVEL
+from .options import (
+    emit_warnings,
+    field_options,
+    field_settings,
+    make_probe,
+    medium_options,
+    output_options,
+    pass_output,
+    probe_options,
+    resolve_wave,
+)
+from .params import LENGTH, LEVEL
 
 
 @click.command()
-@click.option("--diameter", type=LENGTH, help="Disc element diameter: m, mm, um, in "
-              "(bare number: mm).")
-@click.option("--length", type=LENGTH, help="Rectangular element: the side in the plotted plane.")
-@click.option("--width", type=LENGTH, help="Rectangular element: the other side.")
-@click.option("--frequency", type=FREQUENCY, required=True,
-              help="Centre frequency: Hz, kHz, MHz (bare number: MHz).")
+@probe_options
 @medium_options
 @click.option("--depth", "depths", type=LENGTH, multiple=True,
               help="Depth (range from the face) for a spot size; repeatable.")
 @click.option("--level", "levels", type=LEVEL, multiple=True,
               help="Level in dB below the peak (-6, 6 and 6dB all mean 6 dB down); "
               "repeatable; default 6 and 20.")
-@click.option("--pulse-echo/--one-way", "pulse_echo", default=True, show_default=True,
-              help="Pulse-echo squares the one-way pattern.")
+@field_options
+@click.option("--far-field-only", is_flag=True,
+              help="Only the far-field widths, without the computed field.")
 @output_options
 @pass_output
 def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-         materials_dirs, depths, levels, pulse_echo, fmt, units):
-    """Near-field length, half-angles and far-field spot sizes of one probe.
+         materials_dirs, depths, levels, pulse_echo, bandwidth, spectrum, frequency_count,
+         far_field_only, fmt, units):
+    """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
-    --frequency, and a --material (with --wave) or a --speed.
+    --frequency, and a --material (with --wave) or a --speed. Each spot is
+    given twice: from the far-field formula, and from the computed field
+    (near field included) of a pulse of the given --bandwidth.
 
     \b
     Examples:
@@ -39,20 +48,13 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
           --temperature 12 --condition depth=30m --one-way --level 3
     """
     from ..beam import DEFAULT_LEVELS, analyse
-    from ..probes import Disc, Rectangle
 
-    if diameter is not None and (length is not None or width is not None):
-        raise click.UsageError("give --diameter for a disc, or --length and --width for a "
-                               "rectangle, not both")
-    if diameter is None and (length is None or width is None):
-        raise click.UsageError("give --diameter for a disc, or both --length and --width for "
-                               "a rectangle")
-    probe = Disc(diameter, frequency) if diameter is not None else Rectangle(length, width,
-                                                                             frequency)
+    probe = make_probe(diameter, length, width, frequency)
+    settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
     medium, registry = resolve_wave(material, wave, speed, temperature, conditions,
                                     materials_dirs)
     result = analyse(probe, medium, levels=levels or DEFAULT_LEVELS, depths=depths,
-                     mode="pulse-echo" if pulse_echo else "one-way")
+                     mode="pulse-echo" if pulse_echo else "one-way", field=settings)
     emit_warnings((registry.warnings if registry else []) + list(result.warnings))
     if fmt == "json":
         from ..report.serialize import beam_to_dict, dumps

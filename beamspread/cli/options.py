@@ -8,10 +8,64 @@ import click
 
 from ..errors import InputError
 from ..units import from_si, parse_quantity
-from .params import CONDITION, SPEED, TEMPERATURE
+from .params import CONDITION, FREQUENCY, LENGTH, SPEED, TEMPERATURE
 
-__all__ = ["emit_warnings", "load_registry", "materials_dir_option", "medium_options",
-           "output_options", "resolve_wave"]
+__all__ = ["emit_warnings", "field_options", "load_registry", "make_probe",
+           "materials_dir_option", "medium_options", "output_options", "probe_options",
+           "resolve_wave"]
+
+
+def probe_options(f):
+    f = click.option("--frequency", type=FREQUENCY, required=True,
+                     help="Centre frequency: Hz, kHz, MHz (bare number: MHz).")(f)
+    f = click.option("--width", type=LENGTH, help="Rectangular element: the other side.")(f)
+    f = click.option("--length", type=LENGTH,
+                     help="Rectangular element: the side in the plotted plane.")(f)
+    f = click.option("--diameter", type=LENGTH,
+                     help="Disc element diameter: m, mm, um, in (bare number: mm).")(f)
+    return f
+
+
+def make_probe(diameter, length, width, frequency):
+    """The Disc or Rectangle the probe options describe."""
+    from ..probes import Disc, Rectangle
+
+    if diameter is not None and (length is not None or width is not None):
+        raise click.UsageError("give --diameter for a disc, or --length and --width for a "
+                               "rectangle, not both")
+    if diameter is None and (length is None or width is None):
+        raise click.UsageError("give --diameter for a disc, or both --length and --width for "
+                               "a rectangle")
+    if diameter is not None:
+        return Disc(diameter, frequency)
+    return Rectangle(length, width, frequency)
+
+
+def field_options(f):
+    """--bandwidth, --spectrum, --frequencies and --pulse-echo/--one-way."""
+    from ..beam import DEFAULT_BANDWIDTH
+
+    f = click.option("--pulse-echo/--one-way", "pulse_echo", default=True, show_default=True,
+                     help="Pulse-echo squares the one-way pattern (transmit x receive).")(f)
+    f = click.option("--frequencies", "frequency_count", type=click.IntRange(1, 256),
+                     default=32, show_default=True,
+                     help="How many frequencies sample a broadband spectrum.")(f)
+    f = click.option("--spectrum", type=click.Choice(["gaussian", "flat"]), default="gaussian",
+                     show_default=True, help="Shape of the pulse's spectrum.")(f)
+    f = click.option("--bandwidth", type=float, default=DEFAULT_BANDWIDTH, show_default=True,
+                     metavar="FRACTION",
+                     help="-6 dB fractional bandwidth of the pulse-echo spectrum, as measured "
+                     "on a small reflector in the far field; 0 is a continuous wave. The "
+                     "default 0.5 is a typical broadband contact probe (such probes lie near "
+                     "0.4-0.8; sonar transducers are narrow, about 0.1).")(f)
+    return f
+
+
+def field_settings(bandwidth, spectrum, frequency_count):
+    from ..beam import FieldSettings
+    from ..field.spectrum import check_bandwidth
+
+    return FieldSettings(check_bandwidth(bandwidth), spectrum, frequency_count)
 
 
 def materials_dir_option(f):

@@ -16,7 +16,8 @@ from ..beam import BeamResult
 from ..media.model import Wave
 from ..probes import Disc
 
-__all__ = ["beam_to_csv", "beam_to_dict", "dumps", "unit_suffix", "wave_to_dict"]
+__all__ = ["beam_to_csv", "beam_to_dict", "dumps", "field_settings_to_dict", "unit_suffix",
+           "wave_to_dict"]
 
 _SUFFIX = {"degC": "c", "g/kg": "g_kg", "m": "m", "dbar": "dbar", "%": "percent", "m/s": "m_s",
            "kg/m3": "kg_m3", "": ""}
@@ -62,29 +63,34 @@ def wave_to_dict(wave: Wave) -> dict[str, Any]:
     return out
 
 
+def _spot(spot) -> dict[str, Any]:
+    out = {"depth_m": spot.depth, "level_db": spot.level_db, "width_m": spot.width}
+    if spot.method == "far-field":
+        out["far_field_valid"] = spot.far_field_valid
+    out["method"] = spot.method
+    return out
+
+
+def field_settings_to_dict(settings, mode: str) -> dict[str, Any]:
+    """How a computed field was formed: the ``field`` object of the JSON forms."""
+    return {
+        "mode": mode,
+        "bandwidth": settings.bandwidth,
+        "spectrum": settings.spectrum if settings.bandwidth > 0 else "continuous wave",
+        "frequencies": settings.frequencies if settings.bandwidth > 0 else 1,
+        "amplitude": settings.amplitude,
+    }
+
+
 def beam_to_dict(result: BeamResult) -> dict[str, Any]:
     """The JSON contract of ``beamspread beam``."""
-    probe = result.probe
-    if isinstance(probe, Disc):
-        probe_dict = {"shape": "disc", "diameter_m": probe.diameter}
-    else:
-        probe_dict = {"shape": "rectangle", "length_m": probe.length, "width_m": probe.width}
-    probe_dict["frequency_hz"] = probe.frequency
+    probe_dict = probe_to_dict(result.probe)
     planes = [
         {
             "name": plane.name,
             "aperture_m": plane.aperture,
             "half_angle_deg": dict(plane.half_angles),
-            "spots": [
-                {
-                    "depth_m": spot.depth,
-                    "level_db": spot.level_db,
-                    "width_m": spot.width,
-                    "far_field_valid": spot.far_field_valid,
-                    "method": spot.method,
-                }
-                for spot in plane.spots
-            ],
+            "spots": [_spot(spot) for spot in plane.spots],
         }
         for plane in result.planes
     ]
@@ -104,6 +110,12 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
             "near_field_method": result.near_field_method,
             "near_field_factor": result.near_field_factor,
             "planes": planes,
+            "field": None if result.field is None else {
+                **field_settings_to_dict(result.field.settings, result.convention.mode),
+                "width_reference": "between the outermost crossings of the level below the "
+                                   "largest amplitude across the beam at that depth",
+                "axial_maximum_m": result.field.axial_maximum,
+            },
             "warnings": list(result.warnings),
         }
     )
@@ -153,4 +165,144 @@ def beam_to_csv(result: BeamResult) -> str:
                     else (spot.depth, spot.width, spot.far_field_valid, spot.method)
                 )
                 writer.writerow([_cell(v) for v in (*head, *tail)])
+    return buffer.getvalue()
+
+
+def probe_to_dict(probe) -> dict[str, Any]:
+    """The ``probe`` object of the JSON forms."""
+    if isinstance(probe, Disc):
+        out: dict[str, Any] = {"shape": "disc", "diameter_m": probe.diameter}
+    else:
+        out = {"shape": "rectangle", "length_m": probe.length, "width_m": probe.width}
+    out["frequency_hz"] = probe.frequency
+    return out
+
+
+def amplitude_unit(mode: str) -> str:
+    return "(rho c U0)^2" if mode == "pulse-echo" else "rho c U0"
+
+
+def _db(amplitude, reference: float):
+    import numpy as np
+
+    with np.errstate(divide="ignore"):
+        level = 20.0 * np.log10(np.asarray(amplitude) / reference)
+    return [None if not math.isfinite(v) else float(v) for v in level]
+
+
+def axial_to_dict(probe, wave, settings, mode, profile, near_field, near_simple, axial_max,
+                  warnings) -> dict[str, Any]:
+    """The JSON form of ``beamspread axis``."""
+    peak = float(profile.amplitude.max())
+    return _clean({
+        "probe": probe_to_dict(probe),
+        "medium": wave_to_dict(wave),
+        "field": field_settings_to_dict(settings, mode),
+        "near_field_m": near_field,
+        "near_field_simple_m": near_simple,
+        "axial_maximum_m": axial_max,
+        "amplitude_unit": amplitude_unit(mode),
+        "level_reference": "dB relative to the largest amplitude of the profile",
+        "profile": {
+            "depth_m": profile.depth.tolist(),
+            "amplitude": profile.amplitude.tolist(),
+            "level_db": _db(profile.amplitude, peak),
+        },
+        "warnings": list(warnings),
+    })
+
+
+def axial_to_csv(profile) -> str:
+    peak = float(profile.amplitude.max())
+    rows = zip(profile.depth.tolist(), profile.amplitude.tolist(),
+               _db(profile.amplitude, peak), strict=True)
+    return _csv(("depth_m", "amplitude", "level_db"), rows)
+
+
+def across_to_dict(probe, wave, settings, mode, depth, profiles, widths,
+                   warnings) -> dict[str, Any]:
+    """The JSON form of ``beamspread across``: one entry per plane."""
+    planes = []
+    for profile in profiles:
+        peak = float(profile.amplitude.max())
+        planes.append({
+            "name": profile.plane,
+            "offset_m": profile.offset.tolist(),
+            "amplitude": profile.amplitude.tolist(),
+            "level_db": _db(profile.amplitude, peak),
+            "widths": [{"level_db": -w.level_db, "width_m": w.width}
+                       for w in widths[profile.plane]],
+        })
+    return _clean({
+        "probe": probe_to_dict(probe),
+        "medium": wave_to_dict(wave),
+        "field": field_settings_to_dict(settings, mode),
+        "depth_m": depth,
+        "amplitude_unit": amplitude_unit(mode),
+        "level_reference": "dB relative to the largest amplitude across the beam at this depth",
+        "planes": planes,
+        "warnings": list(warnings),
+    })
+
+
+def across_to_csv(profiles) -> str:
+    rows = []
+    for profile in profiles:
+        peak = float(profile.amplitude.max())
+        rows.extend((profile.plane, o, a, d) for o, a, d in zip(
+            profile.offset.tolist(), profile.amplitude.tolist(),
+            _db(profile.amplitude, peak), strict=True))
+    return _csv(("plane", "offset_m", "amplitude", "level_db"), rows)
+
+
+def map_to_dict(probe, wave, settings, mode, field_map, warnings) -> dict[str, Any]:
+    """The JSON form of ``beamspread map``: amplitude[i][j] at depth_m[i], lateral_m[j]."""
+    peak = float(field_map.amplitude.max())
+    return _clean({
+        "probe": probe_to_dict(probe),
+        "medium": wave_to_dict(wave),
+        "field": field_settings_to_dict(settings, mode),
+        "plane": field_map.plane,
+        "amplitude_unit": amplitude_unit(mode),
+        "level_reference": "dB relative to the largest amplitude of the map",
+        "depth_m": field_map.depth.tolist(),
+        "lateral_m": field_map.lateral.tolist(),
+        "amplitude": field_map.amplitude.astype(float).tolist(),
+        "warnings": list(warnings),
+    } | {"peak_amplitude": peak})
+
+
+def map_to_csv(field_map) -> str:
+    """Long form: one row per point, depth then lateral offset."""
+    peak = float(field_map.amplitude.max())
+    rows = []
+    for i, z in enumerate(field_map.depth.tolist()):
+        amps = field_map.amplitude[i].astype(float)
+        rows.extend((z, x, a, d) for x, a, d in zip(
+            field_map.lateral.tolist(), amps.tolist(), _db(amps, peak), strict=True))
+    return _csv(("depth_m", "lateral_m", "amplitude", "level_db"), rows)
+
+
+def map_to_npz(path, probe, wave, settings, mode, field_map) -> None:
+    """Write a map as ``.npz``: arrays depth_m, lateral_m, amplitude, level_db, and metadata."""
+    import numpy as np
+
+    peak = float(field_map.amplitude.max())
+    with np.errstate(divide="ignore"):
+        level = (20.0 * np.log10(field_map.amplitude / peak)).astype(np.float32)
+    meta = {"probe": probe_to_dict(probe), "medium": wave_to_dict(wave),
+            "field": field_settings_to_dict(settings, mode), "plane": field_map.plane,
+            "amplitude_unit": amplitude_unit(mode),
+            "level_reference": "dB relative to the largest amplitude of the map"}
+    np.savez_compressed(path, depth_m=field_map.depth, lateral_m=field_map.lateral,
+                        amplitude=field_map.amplitude.astype(np.float32), level_db=level,
+                        metadata=np.array(json.dumps(_clean(meta))))
+
+
+def _csv(header, rows) -> str:
+    buffer = io.StringIO()
+    writer = csv.writer(buffer, lineterminator="\n")
+    writer.writerow(header)
+    for row in rows:
+        writer.writerow([_cell(v) for v in row])
     return buffer.getvalue()

@@ -58,6 +58,24 @@ def _medium_line(result: BeamResult, units: str) -> str:
     return f"{name}{where}: {w.wave} wave, {_speed(w.speed, units)}  [{w.source}]"
 
 
+def field_description(settings, mode: str) -> str:
+    """One phrase naming how a computed field was formed."""
+    if settings.bandwidth == 0:
+        pulse = "a continuous wave"
+    else:
+        pulse = (f"a {settings.spectrum} spectrum of -6 dB bandwidth {settings.bandwidth:g} "
+                 f"({settings.frequencies} frequencies)")
+    return f"{mode}, {pulse}"
+
+
+def _field_line(result: BeamResult, units: str) -> str:
+    f = result.field
+    axial = "none" if f.axial_maximum is None else format_length(f.axial_maximum, units)
+    return (f"computed field: {field_description(f.settings, result.convention.mode)}; "
+            "width between the outermost crossings of the level below the maximum across "
+            f"the beam at that depth; last on-axis maximum of this pulse at {axial}.")
+
+
 def beam_table(result: BeamResult, units: str = "mm") -> str:
     """The human-readable report of ``beamspread beam``."""
     out: list[str] = []
@@ -93,23 +111,113 @@ def beam_table(result: BeamResult, units: str = "mm") -> str:
     out.append(columns([head, *rows]))
     if result.depths:
         out.append("")
-        out.append(f"Beam width at depth: full width 2·z·tan(half-angle), far-field model, {mode}")
-        head = ["depth", "plane", *[f"{k} dB" for k in keys]]
+        out.append(f"Beam width at depth (full width, {mode})")
+        head = ["depth", "plane", "method", *[f"{k} dB" for k in keys]]
         rows = []
         inside = False
         for depth in result.depths:
             for pl in result.planes:
-                spots = {level_key(s.level_db): s for s in pl.spots if s.depth == depth}
-                flag = "" if spots[keys[0]].far_field_valid else " *"
-                inside = inside or bool(flag)
-                rows.append([
-                    format_length(depth, units) + flag, pl.name,
-                    *["none" if spots[k].width is None else format_length(spots[k].width, units)
-                      for k in keys],
-                ])
+                for method in ("far-field", "field"):
+                    spots = {level_key(s.level_db): s for s in pl.spots
+                             if s.depth == depth and s.method == method}
+                    if not spots:
+                        continue
+                    flag = " *" if spots[keys[0]].far_field_valid is False else ""
+                    inside = inside or bool(flag)
+                    label = "far field" + flag if method == "far-field" else "computed field"
+                    rows.append([
+                        format_length(depth, units), pl.name, label,
+                        *["none" if spots[k].width is None
+                          else format_length(spots[k].width, units) for k in keys],
+                    ])
         out.append(columns([head, *rows]))
+        out.append("  far field: 2·z·tan(half-angle).")
         if inside:
-            out.append("  * inside the near field: the far-field width does not hold there")
+            out.append("  * inside the near field: the far-field width does not hold there.")
+        if result.field is not None:
+            out.extend(textwrap.wrap(_field_line(result, units), 98, initial_indent="  ",
+                                     subsequent_indent="  "))
+    elif result.field is not None:
+        out.append("")
+        out.extend(textwrap.wrap(_field_line(result, units), 100))
     out.append("")
+    out.extend(textwrap.wrap(CAUTION, 100))
+    return "\n".join(out)
+
+
+def _bar(level_db: float, floor: float = -40.0, width: int = 32) -> str:
+    """A text bar for a level in dB between ``floor`` and 0."""
+    if not level_db > floor:
+        return ""
+    return "#" * max(1, round(width * (1.0 - level_db / floor)))
+
+
+def _profile_rows(coordinate, amplitude, units, limit=41):
+    import numpy as np
+
+    peak = float(np.max(amplitude))
+    step = max(1, int(np.ceil(len(coordinate) / limit)))
+    rows = []
+    for c, a in zip(coordinate[::step], amplitude[::step], strict=True):
+        level = 20.0 * np.log10(a / peak) if a > 0 else float("-inf")
+        rows.append([format_length(float(c), units), f"{a:.4g}",
+                     "-inf" if not np.isfinite(level) else f"{level:.1f}", _bar(level)])
+    return rows, step
+
+
+def _medium_and_probe(probe, wave, units) -> list[str]:
+    class _Shim:  # the line helpers read these attributes of a result
+        pass
+
+    shim = _Shim()
+    shim.probe, shim.wave = probe, wave
+    lines = [f"Computed field of a {_probe_line(shim, units)}"]
+    lines.extend(textwrap.wrap(f"Medium: {_medium_line(shim, units)}", 100,
+                               subsequent_indent="        "))
+    return lines
+
+
+def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units="mm") -> str:
+    """The human-readable report of ``beamspread axis``."""
+    out = _medium_and_probe(probe, wave, units)
+    out.append(f"Field: {field_description(settings, mode)}")
+    out.append("")
+    rows = [["near field (continuous wave)", "none" if near is None
+             else format_length(near, units)],
+            ["near field, simple", format_length(simple, units)],
+            ["last on-axis maximum of this pulse", "none" if axial is None
+             else format_length(axial, units)]]
+    out.append(columns([["quantity", "value"], *rows]))
+    out.append("")
+    table, step = _profile_rows(profile.depth, profile.amplitude, units)
+    out.append("On-axis amplitude; dB relative to the largest in the profile")
+    out.append(columns([["depth", "amplitude", "dB", ""], *table]))
+    if step > 1:
+        out.append(f"  every {step}th of {len(profile.depth)} depths shown; "
+                   "--format csv gives them all")
+    out.append("")
+    out.extend(textwrap.wrap(CAUTION, 100))
+    return "\n".join(out)
+
+
+def across_table(probe, wave, settings, mode, depth, profiles, widths, units="mm") -> str:
+    """The human-readable report of ``beamspread across``."""
+    out = _medium_and_probe(probe, wave, units)
+    out.append(f"Field: {field_description(settings, mode)}; depth {format_length(depth, units)}")
+    for profile in profiles:
+        out.append("")
+        found = ", ".join(
+            f"-{w.level_db:g} dB: " + ("none" if w.width != w.width
+                                       else format_length(w.width, units))
+            for w in widths[profile.plane])
+        out.append(f"Plane {profile.plane}: full width {found}")
+        table, step = _profile_rows(profile.offset, profile.amplitude, units)
+        out.append(columns([["offset", "amplitude", "dB", ""], *table]))
+        if step > 1:
+            out.append(f"  every {step}th of {len(profile.offset)} offsets shown; "
+                       "--format csv gives them all")
+    out.append("")
+    out.append("dB relative to the largest amplitude across the beam at this depth; widths "
+               "between the outermost crossings.")
     out.extend(textwrap.wrap(CAUTION, 100))
     return "\n".join(out)

@@ -1,0 +1,296 @@
+"""``beamspread axis``, ``across`` and ``map``: profiles and maps of the computed field."""
+
+from __future__ import annotations
+
+import os
+import tempfile
+from pathlib import Path
+
+import click
+
+from .options import (
+    emit_warnings,
+    field_options,
+    field_settings,
+    make_probe,
+    medium_options,
+    output_options,
+    pass_output,
+    probe_options,
+    resolve_wave,
+)
+from .params import LENGTH, LEVEL
+
+MAX_PROFILE_POINTS = 100_000
+MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in bounded blocks
+
+
+def _setup(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+           materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo):
+    probe = make_probe(diameter, length, width, frequency)
+    settings = field_settings(bandwidth, spectrum, frequency_count)
+    medium, registry = resolve_wave(material, wave, speed, temperature, conditions,
+                                    materials_dirs)
+    mode = "pulse-echo" if pulse_echo else "one-way"
+    warnings = list(registry.warnings if registry else []) + list(medium.warnings)
+    return probe, settings, medium, mode, warnings
+
+
+def _near_fields(probe, wavelength):
+    import math
+
+    from ..axis import disc_near_field, rectangle_near_field, simple_near_field
+    from ..probes import Disc
+
+    simple = float(simple_near_field(probe.longest_side, wavelength))
+    if isinstance(probe, Disc):
+        exact = float(disc_near_field(probe.diameter, wavelength))
+    else:
+        exact = rectangle_near_field(probe.length, probe.width, wavelength)
+    return (None if math.isnan(exact) else exact), simple
+
+
+def _check_range(start, stop, points, what):
+    if stop <= start:
+        raise click.UsageError(f"{what}: the range {start * 1e3:g} to {stop * 1e3:g} mm is "
+                               "empty; --to must lie beyond --from")
+    if points < 2:
+        raise click.UsageError(f"{what}: at least 2 points are needed")
+
+
+def _points_option(default, maximum, name="--points", help_text="Number of points."):
+    return click.option(name, type=click.IntRange(2, maximum), default=default,
+                        show_default=True, help=f"{help_text} (2 to {maximum}).")
+
+
+def _check_validity(warnings, start, near_simple):
+    if start < 0.05 * near_simple:
+        warnings.append(
+            f"depths from {start * 1e3:.4g} mm lie closer than 0.05 N "
+            f"({0.05 * near_simple * 1e3:.4g} mm) to the face, where the computed field is "
+            "not validated")
+
+
+@click.command()
+@probe_options
+@medium_options
+@click.option("--from", "start", type=LENGTH, default=None,
+              help="First depth (default 0.05 N, N = D²/4λ or L²/4λ).")
+@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
+@_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
+@field_options
+@output_options
+@pass_output
+def axis(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+         materials_dirs, start, stop, points, bandwidth, spectrum, frequency_count, pulse_echo,
+         fmt, units):
+    """The computed amplitude along the beam axis, and its last maximum.
+
+    For a continuous wave (--bandwidth 0) the last maximum is the near-field
+    length; for a broadband pulse it is where the on-axis echo peaks, nearer
+    the element as the bandwidth grows.
+    """
+    import numpy as np
+
+    from ..field import axial_profile, last_maximum
+
+    probe, settings, medium, mode, warnings = _setup(
+        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+    near, simple = _near_fields(probe, medium.speed / probe.frequency)
+    start = 0.05 * simple if start is None else start
+    stop = 3.0 * simple if stop is None else stop
+    _check_range(start, stop, points, "axis")
+    _check_validity(warnings, start, simple)
+    kwargs = {"bandwidth": settings.bandwidth, "mode": mode,
+              "frequencies": settings.frequencies, "spectrum": settings.spectrum}
+    profile = axial_profile(probe, medium.speed, np.linspace(start, stop, points), **kwargs)
+    axial = last_maximum(probe, medium.speed, **kwargs)
+    axial = None if np.isnan(axial) else axial
+    emit_warnings(warnings)
+    if fmt == "json":
+        from ..report.serialize import axial_to_dict, dumps
+
+        click.echo(dumps(axial_to_dict(probe, medium, settings, mode, profile, near, simple,
+                                       axial, warnings)))
+    elif fmt == "csv":
+        from ..report.serialize import axial_to_csv
+
+        click.echo(axial_to_csv(profile), nl=False)
+    else:
+        from ..report.text import axial_table
+
+        click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial,
+                               units))
+
+
+@click.command()
+@probe_options
+@medium_options
+@click.option("--depth", type=LENGTH, required=True, help="Depth of the profile.")
+@click.option("--plane", default=None, metavar="NAME",
+              help="diameter (disc), length or width (rectangle); default every plane.")
+@click.option("--span", type=LENGTH, default=None,
+              help="Half-extent either side of the axis (default: the larger of the aperture "
+              "and 4 λ z / aperture).")
+@_points_option(201, MAX_PROFILE_POINTS, help_text="Number of offsets across the beam")
+@click.option("--level", "levels", type=LEVEL, multiple=True,
+              help="Levels for the widths (dB below the maximum at this depth); default 6 "
+              "and 20.")
+@field_options
+@output_options
+@pass_output
+def across(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+           materials_dirs, depth, plane, span, points, levels, bandwidth, spectrum,
+           frequency_count, pulse_echo, fmt, units):
+    """The computed amplitude across the beam at one depth, per plane, with its widths."""
+    import numpy as np
+
+    from ..beam import DEFAULT_LEVELS
+    from ..field import beam_widths, transverse_profile
+
+    probe, settings, medium, mode, warnings = _setup(
+        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+    names = [name for name, _ in probe.planes]
+    if plane is not None and plane not in names:
+        raise click.BadParameter(f"{plane!r} is not a plane of this probe; use "
+                                 f"{' or '.join(names)}", param_hint="--plane")
+    chosen = [plane] if plane else names
+    _, simple = _near_fields(probe, medium.speed / probe.frequency)
+    _check_validity(warnings, depth, simple)
+    wavelength = medium.speed / probe.frequency
+    kwargs = {"bandwidth": settings.bandwidth, "mode": mode,
+              "frequencies": settings.frequencies, "spectrum": settings.spectrum}
+    profiles, widths = [], {}
+    for name in chosen:
+        aperture = dict(probe.planes)[name]
+        half = span if span is not None else max(aperture, 4 * wavelength * depth / aperture)
+        offsets = np.linspace(-half, half, points)
+        profiles.append(transverse_profile(probe, medium.speed, depth, offsets, plane=name,
+                                           **kwargs))
+        widths[name] = beam_widths(probe, medium.speed, depth, levels or DEFAULT_LEVELS,
+                                   plane=name, **kwargs)
+    emit_warnings(warnings)
+    if fmt == "json":
+        from ..report.serialize import across_to_dict, dumps
+
+        click.echo(dumps(across_to_dict(probe, medium, settings, mode, depth, profiles, widths,
+                                        warnings)))
+    elif fmt == "csv":
+        from ..report.serialize import across_to_csv
+
+        click.echo(across_to_csv(profiles), nl=False)
+    else:
+        from ..report.text import across_table
+
+        click.echo(across_table(probe, medium, settings, mode, depth, profiles, widths, units))
+
+
+def _write_atomically(path: Path, write) -> None:
+    """Write through a temporary file in the same folder, so nothing half-made is left."""
+    fd, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".part")
+    os.close(fd)
+    try:
+        write(temporary)
+        mask = os.umask(0)
+        os.umask(mask)
+        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
+        os.replace(temporary, path)
+    except BaseException:
+        Path(temporary).unlink(missing_ok=True)
+        raise
+
+
+@click.command("map")
+@probe_options
+@medium_options
+@click.option("--plane", default=None, metavar="NAME",
+              help="diameter (disc), length or width (rectangle); default the first.")
+@click.option("--from", "start", type=LENGTH, default=None, help="First depth (default 0.1 N).")
+@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
+@click.option("--span", type=LENGTH, default=None,
+              help="Half-extent either side of the axis (default: the larger of the aperture "
+              "and 4 λ z / aperture at the last depth).")
+@_points_option(256, 16384, "--depth-points", "Number of depths")
+@_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
+@field_options
+@click.option("--output", "-o", type=click.Path(dir_okay=False), default=None,
+              help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).")
+@click.option("--force", is_flag=True, help="Overwrite an existing --output file.")
+@click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
+def map_(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+         materials_dirs, plane, start, stop, span, depth_points, lateral_points, bandwidth,
+         spectrum, frequency_count, pulse_echo, output, force, as_json):
+    """A 2-D map of the computed amplitude in a plane through the axis.
+
+    \b
+    CSV: one row per point, columns depth_m, lateral_m, amplitude, level_db
+    (dB relative to the largest amplitude of the map).
+    JSON: depth_m, lateral_m, and amplitude[i][j] at depth_m[i], lateral_m[j].
+    NPZ: arrays depth_m, lateral_m, amplitude, level_db and a JSON string
+    "metadata" with the probe, medium and field settings.
+    """
+    import numpy as np
+
+    from ..field import field_map
+
+    target = None
+    if output is not None:
+        target = Path(output)
+        if target.suffix.lower() not in (".csv", ".json", ".npz"):
+            raise click.BadParameter(f"{output!r}: the suffix must be .csv, .json or .npz",
+                                     param_hint="--output")
+        if not target.parent.is_dir():
+            raise click.BadParameter(f"{output!r}: the folder {str(target.parent)!r} does not "
+                                     "exist", param_hint="--output")
+        if target.exists() and not force:
+            raise click.BadParameter(f"{output!r} exists; add --force to overwrite it",
+                                     param_hint="--output")
+    if depth_points * lateral_points > MAX_MAP_POINTS:
+        raise click.UsageError(
+            f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
+            f"would exceed the {MAX_MAP_POINTS} a map may hold in memory")
+    probe, settings, medium, mode, warnings = _setup(
+        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
+        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+    names = [name for name, _ in probe.planes]
+    plane = plane or names[0]
+    if plane not in names:
+        raise click.BadParameter(f"{plane!r} is not a plane of this probe; use "
+                                 f"{' or '.join(names)}", param_hint="--plane")
+    _, simple = _near_fields(probe, medium.speed / probe.frequency)
+    start = 0.1 * simple if start is None else start
+    stop = 3.0 * simple if stop is None else stop
+    _check_range(start, stop, depth_points, "map")
+    _check_validity(warnings, start, simple)
+    aperture = dict(probe.planes)[plane]
+    wavelength = medium.speed / probe.frequency
+    half = span if span is not None else max(aperture, 4 * wavelength * stop / aperture)
+    result = field_map(probe, medium.speed, np.linspace(-half, half, lateral_points),
+                       np.linspace(start, stop, depth_points), plane=plane,
+                       bandwidth=settings.bandwidth, mode=mode,
+                       frequencies=settings.frequencies, spectrum=settings.spectrum)
+    emit_warnings(warnings)
+    from ..report import serialize
+
+    def text(kind):
+        if kind == ".json":
+            return serialize.dumps(serialize.map_to_dict(probe, medium, settings, mode, result,
+                                                         warnings))
+        return serialize.map_to_csv(result)
+
+    if target is None:
+        click.echo(text(".json" if as_json else ".csv"), nl=False)
+        return
+    suffix = target.suffix.lower()
+    if suffix == ".npz":
+        def write(path):
+            with open(path, "wb") as handle:
+                serialize.map_to_npz(handle, probe, medium, settings, mode, result)
+    else:
+        def write(path):
+            Path(path).write_text(text(suffix), encoding="utf-8")
+    _write_atomically(target, write)
+    click.echo(f"wrote {target} ({depth_points} depths x {lateral_points} offsets, "
+               f"plane {plane})", err=True)

@@ -1,0 +1,45 @@
+"""The computed field of flat baffled pistons, near field included.
+
+Continuous wave and broadband, one-way and pulse-echo, by the Fast Nearfield
+Method (see :mod:`beamspread.field.engine`), and what follows from it: the
+on-axis profile and its last maximum, transverse profiles, beam widths at any
+level and depth, and maps in a plane through the axis
+(:mod:`beamspread.field.profiles`). numpy only.
+"""
+
+from .engine import MAX_POINTS, MODES, field_amplitude, pressure
+from .profiles import (
+    AxialProfile,
+    BeamWidth,
+    FieldMap,
+    TransverseProfile,
+    axial_profile,
+    beam_width,
+    beam_widths,
+    field_map,
+    last_maximum,
+    transverse_profile,
+)
+from .spectrum import MAX_BANDWIDTH, SPECTRA, Spectrum, gaussian_spectrum, make_spectrum
+
+__all__ = [
+    "MAX_BANDWIDTH",
+    "MAX_POINTS",
+    "MODES",
+    "SPECTRA",
+    "AxialProfile",
+    "BeamWidth",
+    "FieldMap",
+    "Spectrum",
+    "TransverseProfile",
+    "axial_profile",
+    "beam_width",
+    "beam_widths",
+    "field_amplitude",
+    "field_map",
+    "gaussian_spectrum",
+    "last_maximum",
+    "make_spectrum",
+    "pressure",
+    "transverse_profile",
+]
