@@ -76,6 +76,7 @@ KINDS: dict[str, _Kind] = {
         "Pa": (1e-4, 0.0),
     }),
     "percent": _Kind("percent", "%", {"%": (1.0, 0.0)}),
+    "angle": _Kind("angle", "deg", {"deg": (1.0, 0.0), "°": (1.0, 0.0)}),
     "number": _Kind("number", "", {}),
 }
 # Case-insensitive aliases, built once: "mhz" -> "MHz". Ambiguous spellings

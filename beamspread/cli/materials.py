@@ -95,12 +95,15 @@ def _describe(entry) -> dict:
         out["density_source"] = m.density_source
         out["parameters"] = [
             {"name": p.name, "unit": p.unit, "default": p.default, "valid": list(p.valid),
-             "limits": list(p.limits), "description": p.description}
-            for p in m.parameters
+             "limits": list(p.limits), "description": p.description,
+             "for": "speed" if p in m.parameters else "absorption"}
+            for p in (*m.parameters, *m.absorption_parameters)
         ]
+        if m.absorption is not None:
+            out["absorption_source"] = m.absorption_source
         out["at_defaults"] = {
-            "conditions": {f"{k}_{unit_suffix(state.condition_units[k])}": v
-                           for k, v in state.conditions.items()},
+            "conditions": {"_".join(filter(None, (k, unit_suffix(state.condition_units[k]))))
+                           : v for k, v in state.conditions.items()},
             "longitudinal_m_s": state.speed,
             "density_kg_m3": state.density,
         }
@@ -190,12 +193,16 @@ def show(name, materials_dirs, as_json):
                 lines.append(f"      note: {v['note']}")
     else:
         lines.append(f"  speed: {data['source']}")
+        if data.get("absorption_source"):
+            lines.append(f"  absorption: {data['absorption_source']}")
         if data["density_source"]:
             lines.append(f"  density: {data['density_source']}")
         lines.append("  conditions (give with --temperature or --condition NAME=VALUE):")
         for p in data["parameters"]:
+            unit = f" [{p['unit']}]" if p["unit"] else ""
+            unit += " (absorption only)" if p["for"] == "absorption" else ""
             lines.append(
-                f"    {p['name']} [{p['unit']}], default {p['default']:g}; fitted for "
+                f"    {p['name']}{unit}, default {p['default']:g}; fitted for "
                 f"{p['valid'][0]:g} to {p['valid'][1]:g} (warns outside); refused outside "
                 f"{p['limits'][0]:g} to {p['limits'][1]:g}"
             )
@@ -204,8 +211,9 @@ def show(name, materials_dirs, as_json):
                      + (f", density {at['density_kg_m3']:.1f} kg/m3"
                         if at["density_kg_m3"] else ""))
     if data["impedance_rayl"]:
-        lines.append(f"  acoustic impedance (density x longitudinal speed): "
-                     f"{data['impedance_rayl'] / 1e6:.3f} MRayl")
+        z = data["impedance_rayl"]
+        shown = f"{z / 1e6:.3f} MRayl" if z >= 1e4 else f"{z:.0f} Rayl"
+        lines.append(f"  acoustic impedance (density x longitudinal speed): {shown}")
     if data["note"]:
         lines.append(f"  note: {data['note']}")
     for origin in data["shadows"]:

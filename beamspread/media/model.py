@@ -28,6 +28,7 @@ from ..errors import InputError, MaterialError
 __all__ = [
     "STATES",
     "WAVES",
+    "Absorption",
     "ComputedMedium",
     "Curve",
     "Material",
@@ -135,20 +136,24 @@ class Parameter:
         if not vlo <= self.default <= vhi:
             raise ValueError(f"parameter {self.name}: the default must lie in the valid range")
 
-    def check(self, value: float, medium: str) -> list[str]:
-        """Refuse a value outside the limits; return warnings for one outside the valid range."""
+    def check(self, value: float, medium: str, quantity: str = "speed") -> list[str]:
+        """Refuse a value outside the limits; return warnings for one outside the valid range.
+
+        ``quantity`` names what the equation gives ("speed", "absorption") in the warning.
+        """
+        unit = f" {self.unit}" if self.unit else ""
         lo, hi = self.limits
         if not math.isfinite(value) or not lo <= value <= hi:
             raise InputError(
-                f"{self.name} {value:g} {self.unit} is not allowed for {medium}; "
-                f"its equation means nothing outside {lo:g} to {hi:g} {self.unit}"
+                f"{self.name} {value:g}{unit} is not allowed for {medium}; "
+                f"its equation means nothing outside {lo:g} to {hi:g}{unit}"
             )
         vlo, vhi = self.valid
         if not vlo <= value <= vhi:
             return [
-                f"{self.name} {value:g} {self.unit} lies outside the range {vlo:g} to "
-                f"{vhi:g} {self.unit} that the {medium} equation was fitted to; "
-                "the speed is an extrapolation"
+                f"{self.name} {value:g}{unit} lies outside the range {vlo:g} to "
+                f"{vhi:g}{unit} that the {medium} equation was fitted to; "
+                f"the {quantity} is an extrapolation"
             ]
         return []
 
@@ -258,6 +263,23 @@ SpeedFunction = Callable[..., float]
 
 
 @dataclass(frozen=True)
+class Absorption:
+    """The absorption of sound in a medium at one frequency and set of conditions."""
+
+    medium: str
+    frequency: float  # Hz
+    db_per_km: float
+    source: str
+    conditions: Mapping[str, float] = field(default_factory=dict)
+    condition_units: Mapping[str, str] = field(default_factory=dict)
+    warnings: tuple[str, ...] = ()
+
+    @property
+    def db_per_m(self) -> float:
+        return self.db_per_km / 1e3
+
+
+@dataclass(frozen=True)
 class ComputedMedium:
     """A medium whose speed comes from an equation in its conditions.
 
@@ -278,6 +300,19 @@ class ComputedMedium:
         ``f(**conditions) -> kg/m3``.
     density_source : str, optional
     aliases, description : optional
+    absorption : callable, optional
+        ``f(frequency, **conditions) -> dB/km``: the absorption coefficient at
+        ``frequency`` (Hz), called with every parameter and absorption
+        parameter by keyword, each in its declared unit.
+    absorption_source : str, optional
+        The published absorption equation, named.
+    absorption_parameters : tuple of Parameter, optional
+        Conditions only the absorption depends on (the pH of seawater, say).
+        :meth:`evaluate` accepts and range-checks them but does not pass them
+        to the speed equation.
+    absorption_frequency : (float, float), optional
+        The frequencies (Hz) the absorption equation was fitted to: outside,
+        a warning.
 
     Examples
     --------
@@ -300,6 +335,10 @@ class ComputedMedium:
     description: str | None = None
     category: str | None = None
     note: str | None = None
+    absorption: Callable[..., float] | None = None
+    absorption_source: str | None = None
+    absorption_parameters: tuple[Parameter, ...] = ()
+    absorption_frequency: tuple[float, float] | None = None
 
     kind = "computed"
 
@@ -312,18 +351,24 @@ class ComputedMedium:
             raise ValueError(f"medium {self.name}: state must be one of {', '.join(STATES)}")
         object.__setattr__(self, "aliases", tuple(self.aliases))
         object.__setattr__(self, "parameters", tuple(self.parameters))
+        object.__setattr__(self, "absorption_parameters", tuple(self.absorption_parameters))
+        names = [p.name for p in (*self.parameters, *self.absorption_parameters)]
+        if len(set(names)) != len(names):
+            raise ValueError(f"medium {self.name}: a parameter is declared twice")
 
     def parameter(self, name: str) -> Parameter | None:
-        return next((p for p in self.parameters if p.name == name), None)
+        """The declared condition ``name`` (speed or absorption), or None."""
+        return next((p for p in (*self.parameters, *self.absorption_parameters)
+                     if p.name == name), None)
 
-    def evaluate(self, wave: str = "longitudinal",
-                 conditions: Mapping[str, float] | None = None) -> Wave:
-        """The speed of ``wave`` under ``conditions`` (defaults fill the rest)."""
-        _check_wave(wave)
+    def _conditions(self, conditions, parameters) -> tuple[dict[str, float], list[str]]:
+        """Check names and ranges; fill defaults. Returns the values and the warnings."""
         conditions = dict(conditions or {})
-        unknown = sorted(set(conditions) - {p.name for p in self.parameters})
+        known = {p.name for p in (*self.parameters, *self.absorption_parameters)}
+        unknown = sorted(set(conditions) - known)
         if unknown:
-            declared = ", ".join(p.name for p in self.parameters) or "none"
+            declared = ", ".join(p.name for p in (*self.parameters,
+                                                  *self.absorption_parameters)) or "none"
             raise MaterialError(
                 f"{self.name} takes no condition {', '.join(unknown)}; it declares: {declared}"
             )
@@ -331,8 +376,74 @@ class ComputedMedium:
         values: dict[str, float] = {}
         for p in self.parameters:
             v = float(conditions.get(p.name, p.default))
-            notes.extend(p.check(v, self.name))
-            values[p.name] = v
+            warned = p.check(v, self.name)
+            if p in parameters:
+                values[p.name] = v
+                notes.extend(warned)
+        for p in self.absorption_parameters:
+            v = float(conditions.get(p.name, p.default))
+            notes.extend(p.check(v, self.name, "absorption"))
+            if p in parameters:
+                values[p.name] = v
+        return values, notes
+
+    def evaluate_absorption(self, frequency: float,
+                            conditions: Mapping[str, float] | None = None) -> Absorption | None:
+        """The absorption at ``frequency`` (Hz) under ``conditions``; None if not declared.
+
+        Defaults fill the conditions not given. Every condition is refused
+        outside its limits, as :meth:`evaluate` refuses it; the warnings are
+        those of the absorption-only conditions and of a frequency outside
+        ``absorption_frequency`` (the speed conditions warn in :meth:`evaluate`,
+        so a caller that shows both does not see them twice).
+        """
+        if self.absorption is None:
+            return None
+        from ..probes import check_positive
+
+        frequency = check_positive(frequency, "frequency", "Hz")
+        every = (*self.parameters, *self.absorption_parameters)
+        values, _ = self._conditions(conditions, every)
+        notes = [w for p in self.absorption_parameters
+                 for w in p.check(values[p.name], self.name, "absorption")]
+        if self.absorption_frequency is not None:
+            lo, hi = self.absorption_frequency
+            if not lo <= frequency <= hi:
+                notes.append(
+                    f"frequency {frequency:g} Hz lies outside the range {lo:g} to {hi:g} Hz "
+                    f"that the {self.name} absorption equation was fitted to; "
+                    "the absorption is an extrapolation"
+                )
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            alpha = float(self.absorption(frequency, **values))
+        if not math.isfinite(alpha) or alpha < 0:
+            raise InputError(f"{self.name}: the absorption equation gives no valid value "
+                             f"for {values} at {frequency:g} Hz")
+        return Absorption(
+            medium=self.name,
+            frequency=frequency,
+            db_per_km=alpha,
+            source=self.absorption_source or "",
+            conditions=values,
+            condition_units={p.name: p.unit for p in every},
+            warnings=tuple(notes),
+        )
+
+    def absorption_db_per_km(self, frequency: float,
+                             conditions: Mapping[str, float] | None = None) -> float | None:
+        """The absorption coefficient at ``frequency`` (Hz), dB/km; None if not declared.
+
+        See :meth:`evaluate_absorption` for the same with its source and warnings.
+        """
+        result = self.evaluate_absorption(frequency, conditions)
+        return None if result is None else result.db_per_km
+
+    def evaluate(self, wave: str = "longitudinal",
+                 conditions: Mapping[str, float] | None = None) -> Wave:
+        """The speed of ``wave`` under ``conditions`` (defaults fill the rest)."""
+        _check_wave(wave)
+        values, notes = self._conditions(conditions, self.parameters)
         fn = self.longitudinal if wave == "longitudinal" else self.shear
         if fn is None:
             raise MaterialError(
