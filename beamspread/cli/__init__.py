@@ -26,6 +26,7 @@ _COMMANDS = {
     "map": "beamspread.cli.field:map_",
     "materials": "beamspread.cli.materials:materials",
     "plugins": "beamspread.cli.plugins:plugins",
+    "size": "beamspread.cli.size:size",
 }
 
 

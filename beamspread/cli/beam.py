@@ -15,7 +15,7 @@ from .options import (
     probe_options,
     resolve_wave,
 )
-from .params import LENGTH, LEVEL
+from .params import DEPTHS, LENGTH, LEVEL
 
 
 @click.command()
@@ -29,11 +29,23 @@ from .params import LENGTH, LEVEL
 @field_options
 @click.option("--far-field-only", is_flag=True,
               help="Only the far-field widths, without the computed field.")
+@click.option("--sonar", is_flag=True,
+              help="The sonar trade's conventions: one-way, -3 and -10 dB, full angles; adds "
+              "the directivity index, side lobes, the equivalent beam angle and absorption.")
+@click.option("--bottom-depth", "bottom_depths", type=DEPTHS, multiple=True,
+              help="Water depth for the footprint on a flat bottom, or a range "
+              "START:STOP:STEP (bare numbers in m); repeatable.")
+@click.option("--power", type=float, default=None, metavar="WATTS",
+              help="Electrical power for an echo budget at each --bottom-depth.")
+@click.option("--efficiency", type=float, default=0.5, show_default=True, metavar="FRACTION",
+              help="Electro-acoustic efficiency for the echo budget.")
+@click.option("--bottom-loss", type=float, default=10.0, show_default=True, metavar="DB",
+              help="Reflection loss of the bottom for the echo budget.")
 @output_options
 @pass_output
 def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, depths, levels, pulse_echo, bandwidth, spectrum, frequency_count,
-         far_field_only, fmt, units):
+         far_field_only, sonar, bottom_depths, power, efficiency, bottom_loss, fmt, units):
     """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
@@ -48,20 +60,37 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
           --temperature 12 --condition depth=30m --one-way --level 3
     """
     from ..beam import DEFAULT_LEVELS, analyse
+    from ..sonar import SONAR_LEVELS_SHOWN, SONAR_MODE, directivity_index
 
     probe = make_probe(diameter, length, width, frequency)
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
-    medium, registry = resolve_wave(material, wave, speed, temperature, conditions,
-                                    materials_dirs)
-    result = analyse(probe, medium, levels=levels or DEFAULT_LEVELS, depths=depths,
-                     mode="pulse-echo" if pulse_echo else "one-way", field=settings)
-    emit_warnings((registry.warnings if registry else []) + list(result.warnings))
+    resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
+    if pulse_echo is None:
+        mode = SONAR_MODE if sonar else "pulse-echo"
+    else:
+        mode = "pulse-echo" if pulse_echo else "one-way"
+    bottoms = sorted({d for group in bottom_depths for d in group})
+    if power is not None and not bottoms:
+        raise click.UsageError("--power gives an echo budget at each --bottom-depth; give one")
+    result = analyse(probe, resolved.wave, depths=depths, mode=mode, field=settings,
+                     levels=levels or (SONAR_LEVELS_SHOWN if sonar else DEFAULT_LEVELS))
+    warnings = [*(resolved.registry.warnings if resolved.registry else []), *result.warnings]
+    absorption = resolved.absorption(probe.frequency)
+    if absorption is not None:
+        warnings.extend(absorption.warnings)
+    figures = budgets = None
+    if sonar or bottoms or power is not None:
+        figures, budgets = _sonar(result, resolved, bottoms, absorption, power, efficiency,
+                                  bottom_loss, warnings)
+    di = figures.directivity_index_db if figures else directivity_index(probe,
+                                                                         result.wavelength)
+    emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import beam_to_dict, dumps
+        from ..report.serialize import beam_to_dict, dumps, sonar_to_dict
 
         data = beam_to_dict(result)
-        if registry:
-            data["warnings"] = registry.warnings + data["warnings"]
+        data["warnings"] = warnings
+        data.update(sonar_to_dict(result, di, absorption, figures, budgets, sonar))
         click.echo(dumps(data))
     elif fmt == "csv":
         from ..report.serialize import beam_to_csv
@@ -70,4 +99,38 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
     else:
         from ..report.text import beam_table
 
-        click.echo(beam_table(result, units))
+        shown = figures is not None  # the sonar figures belong to sonar work
+        click.echo(beam_table(result, units, di=di if shown else None,
+                              absorption=absorption if shown else None, figures=figures,
+                              budgets=budgets, sonar=sonar))
+
+
+def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
+    """The sonar figures and, with a power, an echo budget at each bottom depth."""
+    from ..sonar import echo_budget, sonar_figures, source_level_constant
+
+    alpha = None if absorption is None else absorption.db_per_km
+    figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)
+    if any(f.inside_near_field for f in figures.footprints):
+        warnings.append("a bottom depth lies inside the near field: the far-field cone does "
+                        "not hold there")
+    budgets = None
+    if power is not None:
+        wave = resolved.wave
+        if wave.state == "gas":
+            raise click.UsageError("the echo budget (dB re 1 uPa) is for water; "
+                                   f"{wave.medium} is a gas")
+        if wave.density is None:
+            constant = 170.8
+            warnings.append("echo budget: no density for this medium; the seawater "
+                            "source-level constant 170.8 dB is used")
+        else:
+            constant = source_level_constant(wave.density * wave.speed)
+        if alpha is None:
+            warnings.append("echo budget: this medium has no absorption; taken as 0")
+        budgets = [echo_budget(power=power, efficiency=efficiency,
+                               directivity_index_db=figures.directivity_index_db,
+                               range_m=depth, absorption_db_per_km=alpha or 0.0,
+                               bottom_loss_db=bottom_loss, constant=constant)
+                   for depth in bottoms]
+    return figures, budgets

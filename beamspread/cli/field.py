@@ -29,11 +29,9 @@ def _setup(diameter, length, width, frequency, material, wave, speed, temperatur
            materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo):
     probe = make_probe(diameter, length, width, frequency)
     settings = field_settings(bandwidth, spectrum, frequency_count)
-    medium, registry = resolve_wave(material, wave, speed, temperature, conditions,
-                                    materials_dirs)
-    mode = "pulse-echo" if pulse_echo else "one-way"
-    warnings = list(registry.warnings if registry else []) + list(medium.warnings)
-    return probe, settings, medium, mode, warnings
+    resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
+    mode = "one-way" if pulse_echo is False else "pulse-echo"
+    return probe, settings, resolved.wave, mode, resolved.warnings
 
 
 def _near_fields(probe, wavelength):

@@ -3,6 +3,8 @@
 from __future__ import annotations
 
 import functools
+from dataclasses import dataclass, field
+from typing import Any
 
 import click
 
@@ -45,8 +47,9 @@ def field_options(f):
     """--bandwidth, --spectrum, --frequencies and --pulse-echo/--one-way."""
     from ..beam import DEFAULT_BANDWIDTH
 
-    f = click.option("--pulse-echo/--one-way", "pulse_echo", default=True, show_default=True,
-                     help="Pulse-echo squares the one-way pattern (transmit x receive).")(f)
+    f = click.option("--pulse-echo/--one-way", "pulse_echo", default=None,
+                     help="Pulse-echo (the default; with --sonar, one-way) squares the one-way "
+                     "pattern: transmit x receive.")(f)
     f = click.option("--frequencies", "frequency_count", type=click.IntRange(1, 256),
                      default=32, show_default=True,
                      help="How many frequencies sample a broadband spectrum.")(f)
@@ -108,8 +111,28 @@ def load_registry(materials_dirs):
     return build_registry(materials_dirs)
 
 
-def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs):
-    """The :class:`~beamspread.media.Wave` the medium options describe, and the registry used."""
+@dataclass(frozen=True)
+class Resolved:
+    """What the medium options describe: the wave, and where it came from."""
+
+    wave: Any  # beamspread.media.Wave
+    registry: Any = None  # the Registry, None for --speed
+    medium: Any = None  # the Material or ComputedMedium, None for --speed
+    conditions: dict = field(default_factory=dict)  # as given, each in its declared unit
+
+    @property
+    def warnings(self) -> list[str]:
+        return list(self.registry.warnings if self.registry else []) + list(self.wave.warnings)
+
+    def absorption(self, frequency: float):
+        """The medium's :class:`~beamspread.media.model.Absorption` at ``frequency``, or None."""
+        if self.medium is None:
+            return None
+        return self.medium.evaluate_absorption(frequency, self.conditions)
+
+
+def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs) -> Resolved:
+    """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources."""
     from ..media.model import Wave
 
     if (material is None) == (speed is None):
@@ -120,19 +143,19 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
                 "--temperature and --condition describe a --material; "
                 "with --speed they mean nothing"
             )
-        return Wave.given(speed, wave), None
+        return Resolved(Wave.given(speed, wave))
     registry = load_registry(materials_dirs)
     entry = registry.get(material)
     medium = entry.medium
     values: dict[str, float] = {}
     if temperature is not None:
-        declared = medium.parameter("temperature") if hasattr(medium, "parameter") else None
+        declared = medium.parameter("temperature")
         unit = declared.unit if declared is not None else "degC"
         values["temperature"] = from_si(temperature, "temperature", unit)
     for name, text in conditions:
         if name in values:
             raise click.UsageError(f"--condition {name} is given twice (or with --temperature)")
-        parameter = medium.parameter(name) if hasattr(medium, "parameter") else None
+        parameter = medium.parameter(name)
         if parameter is None and name == "temperature":
             values[name] = parse_quantity(text, "temperature", what=f"--condition {name}")
             continue
@@ -145,7 +168,7 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
         si = parse_quantity(text, parameter.kind, what=f"--condition {name}",
                             default=parameter.unit)
         values[name] = from_si(si, parameter.kind, parameter.unit)
-    return medium.evaluate(wave, values), registry
+    return Resolved(medium.evaluate(wave, values), registry, medium, values)
 
 
 def emit_warnings(lines) -> None:

@@ -71,7 +71,36 @@ class Condition(click.ParamType):
         return name, text.strip()
 
 
+class DepthList(click.ParamType):
+    """A depth, or a range START:STOP:STEP (each with a unit; bare numbers in m)."""
+
+    name = "depths"
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return "DEPTH|START:STOP:STEP"
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, tuple):
+            return value
+        from ..sonar import depth_range
+
+        parts = str(value).split(":")
+        try:
+            numbers = [parse_quantity(p, "length", default="m") for p in parts]
+            if len(numbers) == 1:
+                if numbers[0] <= 0:
+                    raise InputError(f"{value!r} is not allowed; a depth must be above 0")
+                return (numbers[0],)
+            if len(numbers) == 3:
+                return depth_range(*numbers)
+        except InputError as exc:
+            self.fail(str(exc).removeprefix("length: "), param, ctx)
+        self.fail(f"{value!r} is neither a depth nor START:STOP:STEP (e.g. 5m:50m:5m)",
+                  param, ctx)
+
+
 LEVEL = Level()
+DEPTHS = DepthList()
 CONDITION = Condition()
 LENGTH = Quantity("length")
 FREQUENCY = Quantity("frequency")

@@ -209,6 +209,14 @@ class Material:
     def parameters(self) -> tuple[Parameter, ...]:
         return ()
 
+    def parameter(self, name: str) -> Parameter | None:
+        """A table declares no computed conditions (temperature is handled by its curves)."""
+        return None
+
+    def evaluate_absorption(self, frequency: float, conditions=None) -> None:
+        """Tables carry no absorption."""
+        return None
+
     @property
     def depends_on_temperature(self) -> bool:
         return any(v is not None and v.curve is not None

@@ -16,8 +16,8 @@ from ..beam import BeamResult
 from ..media.model import Wave
 from ..probes import Disc
 
-__all__ = ["beam_to_csv", "beam_to_dict", "dumps", "field_settings_to_dict", "unit_suffix",
-           "wave_to_dict"]
+__all__ = ["beam_to_csv", "beam_to_dict", "dumps", "field_settings_to_dict", "sonar_to_dict",
+           "unit_suffix", "wave_to_dict"]
 
 _SUFFIX = {"degC": "c", "g/kg": "g_kg", "m": "m", "dbar": "dbar", "%": "percent", "m/s": "m_s",
            "kg/m3": "kg_m3", "": ""}
@@ -90,6 +90,8 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
             "name": plane.name,
             "aperture_m": plane.aperture,
             "half_angle_deg": dict(plane.half_angles),
+            "full_angle_deg": {key: None if value is None else 2.0 * value
+                               for key, value in plane.half_angles.items()},
             "spots": [_spot(spot) for spot in plane.spots],
         }
         for plane in result.planes
@@ -98,12 +100,7 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
         {
             "probe": probe_dict,
             "medium": wave_to_dict(result.wave),
-            "convention": {
-                "mode": result.convention.mode,
-                "angle": result.convention.angle,
-                "levels_db": [-level for level in result.levels],
-                "level_reference": result.convention.reference,
-            },
+            "convention": beam_to_dict_convention(result),
             "wavelength_m": result.wavelength,
             "near_field_m": result.near_field,
             "near_field_simple_m": result.near_field_simple,
@@ -306,3 +303,76 @@ def _csv(header, rows) -> str:
     for row in rows:
         writer.writerow([_cell(v) for v in row])
     return buffer.getvalue()
+
+
+def sonar_to_dict(result, directivity_index_db, absorption, figures, budgets,
+                  sonar: bool) -> dict[str, Any]:
+    """The keys the sonar figures add to the JSON of ``beamspread beam``."""
+    out: dict[str, Any] = {"directivity_index_db": directivity_index_db}
+    if absorption is not None:
+        out["absorption_db_per_km"] = absorption.db_per_km
+        out["absorption_source"] = absorption.source
+    if sonar:
+        out["convention"] = {**beam_to_dict_convention(result), "angle": "full"}
+    if figures is not None:
+        out["sonar"] = {
+            "directivity_factor": figures.directivity_factor,
+            "directivity_method": figures.directivity_method,
+            "rayleigh_distance_m": figures.rayleigh_distance,
+            "side_lobes": [{"plane": lobe.plane, "level_db": lobe.level_db,
+                            "angle_deg": lobe.angle_deg, "mode": lobe.mode}
+                           for lobe in figures.side_lobes],
+            "equivalent_beam_angle_sr": figures.equivalent_beam_angle_sr,
+            "equivalent_beam_angle_db": figures.equivalent_beam_angle_db,
+        }
+        out["footprints"] = [
+            {"depth_m": f.depth, "level_db": f.level_db, "width_m": f.width,
+             "plane": f.plane, "inside_near_field": f.inside_near_field}
+            for f in figures.footprints
+        ]
+    if budgets is not None:
+        out["echo_budget"] = [
+            {"range_m": b.range_m,
+             "terms": [{"name": t.name, "value_db": t.value_db, "formula": t.formula,
+                        "reference": t.reference} for t in b.terms]}
+            for b in budgets
+        ]
+    return _clean(out)
+
+
+def beam_to_dict_convention(result) -> dict[str, Any]:
+    return {
+        "mode": result.convention.mode,
+        "angle": result.convention.angle,
+        "levels_db": [-level for level in result.levels],
+        "level_reference": result.convention.reference,
+    }
+
+
+def design_to_dict(found, wave, warnings) -> dict[str, Any]:
+    """The JSON form of ``beamspread size``."""
+    out: dict[str, Any] = {
+        "solved": found.solved,
+        "shape": found.shape,
+        "medium": wave_to_dict(wave),
+        "convention": {"mode": found.mode, "level_db": found.level_db},
+        "frequency_hz": float(found.frequency),
+        "wavelength_m": float(found.wavelength),
+    }
+    if found.shape == "disc":
+        out["diameter_m"] = float(found.aperture)
+    else:
+        out["side_m"] = float(found.aperture)
+        out["other_side_m"] = float(found.other_side)
+        out["other_half_angle_deg"] = float(found.other_half_angle_deg)
+    out.update({
+        "half_angle_deg": float(found.half_angle_deg),
+        "full_angle_deg": float(found.full_angle_deg),
+        "near_field_m": float(found.near_field),
+        "directivity_index_db": float(found.directivity_index_db),
+        "depth_m": float(found.depth),
+        "footprint_m": float(found.footprint_width),
+        "far_field_at_depth": bool(found.far_field_at_depth),
+        "warnings": list(warnings),
+    })
+    return _clean(out)

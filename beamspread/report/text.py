@@ -14,6 +14,10 @@ CAUTION = (
     "Estimates from an ideal baffled-piston model, not a measured beam profile. Inspections "
     "follow a qualified procedure under the applicable code, by certified personnel."
 )
+SONAR_CAUTION = (
+    "Estimates from an ideal baffled-piston model, not a measured beam. Underwater sound can "
+    "harm marine life and its use may be regulated locally; transmitters carry high voltage."
+)
 
 
 def columns(rows: list[list[str]], indent: int = 2, gap: int = 3) -> str:
@@ -58,6 +62,25 @@ def _medium_line(result: BeamResult, units: str) -> str:
     return f"{name}{where}: {w.wave} wave, {_speed(w.speed, units)}  [{w.source}]"
 
 
+def _sonar_lines(di, absorption, figures, units) -> list[str]:
+    rows = []
+    if di is not None:
+        rows.append(["directivity index", f"{di:.2f} dB",
+                     figures.directivity_method if figures else ""])
+    if absorption is not None:
+        rows.append(["absorption", f"{absorption.db_per_km:.4g} dB/km", absorption.source])
+    if figures is not None:
+        rows.append(["far-field (Rayleigh) distance", format_length(figures.rayleigh_distance,
+                                                                     units), "area / wavelength"])
+        for lobe in figures.side_lobes:
+            where = "" if lobe.angle_deg is None else f" at {lobe.angle_deg:.1f}°"
+            rows.append([f"first side lobe, {lobe.plane}", f"{lobe.level_db:.2f} dB",
+                         f"{lobe.mode}{where}"])
+        rows.append(["equivalent two-way beam angle", f"{figures.equivalent_beam_angle_db:.2f} "
+                     "dB re 1 sr", "integral of b² over the half space"])
+    return [columns([["figure", "value", "how"], *rows])]
+
+
 def field_description(settings, mode: str) -> str:
     """One phrase naming how a computed field was formed."""
     if settings.bandwidth == 0:
@@ -76,8 +99,9 @@ def _field_line(result: BeamResult, units: str) -> str:
             f"the beam at that depth; last on-axis maximum of this pulse at {axial}.")
 
 
-def beam_table(result: BeamResult, units: str = "mm") -> str:
-    """The human-readable report of ``beamspread beam``."""
+def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=None,
+               figures=None, budgets=None, sonar: bool = False) -> str:
+    """The human-readable report of ``beamspread beam`` (with its sonar figures if given)."""
     out: list[str] = []
     out.append(f"Beam of a {_probe_line(result, units)}")
     out.extend(textwrap.wrap(f"Medium: {_medium_line(result, units)}", 100,
@@ -109,6 +133,39 @@ def beam_table(result: BeamResult, units: str = "mm") -> str:
         for pl in result.planes
     ]
     out.append(columns([head, *rows]))
+    if sonar:
+        out.append("")
+        out.append(f"Full angles of the cone (twice the half-angle), {mode}")
+        head = ["plane", *[f"{k} dB" for k in keys], "first null"]
+        rows = [[pl.name, *[_angle(None if pl.half_angles[k] is None else 2 * pl.half_angles[k])
+                            for k in [*keys, "null"]]] for pl in result.planes]
+        out.append(columns([head, *rows]))
+    if di is not None or absorption is not None or figures is not None:
+        out.append("")
+        out.extend(_sonar_lines(di, absorption, figures, units))
+    if figures is not None and figures.footprints:
+        out.append("")
+        out.append(f"Footprint on a flat bottom: 2·depth·tan(half-angle), {mode}")
+        head = ["water depth", "plane", *[f"{k} dB" for k in keys]]
+        rows = []
+        for depth in sorted({f.depth for f in figures.footprints}):
+            for pl in result.planes:
+                prints = {level_key(f.level_db): f for f in figures.footprints
+                          if f.depth == depth and f.plane == pl.name}
+                flag = " *" if prints[keys[0]].inside_near_field else ""
+                rows.append([format_length(depth, units) + flag, pl.name,
+                             *["none" if prints[k].width is None
+                               else format_length(prints[k].width, units) for k in keys]])
+        out.append(columns([head, *rows]))
+        if any(f.inside_near_field for f in figures.footprints):
+            out.append("  * inside the near field: the far-field cone does not hold there.")
+    if budgets:
+        out.append("")
+        out.append("Echo budget of the bottom (sonar equation, point-target form)")
+        for budget in budgets:
+            out.append(f"  range {format_length(budget.range_m, units)}")
+            out.append(columns([[t.name, f"{t.value_db:.1f} dB", t.formula, t.reference]
+                                for t in budget.terms], indent=4))
     if result.depths:
         out.append("")
         out.append(f"Beam width at depth (full width, {mode})")
@@ -141,7 +198,7 @@ def beam_table(result: BeamResult, units: str = "mm") -> str:
         out.append("")
         out.extend(textwrap.wrap(_field_line(result, units), 100))
     out.append("")
-    out.extend(textwrap.wrap(CAUTION, 100))
+    out.extend(textwrap.wrap(SONAR_CAUTION if sonar or figures else CAUTION, 100))
     return "\n".join(out)
 
 
@@ -219,5 +276,39 @@ def across_table(probe, wave, settings, mode, depth, profiles, widths, units="mm
     out.append("")
     out.append("dB relative to the largest amplitude across the beam at this depth; widths "
                "between the outermost crossings.")
+    out.extend(textwrap.wrap(CAUTION, 100))
+    return "\n".join(out)
+
+
+def design_table(found, wave, units="mm") -> str:
+    """The human-readable answer of ``beamspread size``."""
+    f = found.frequency
+    freq = f"{f / 1e6:.4g} MHz" if f >= 1e6 else f"{f / 1e3:.4g} kHz"
+    if found.solved == "diameter":
+        answer = f"disc diameter {format_length(found.aperture, units)}"
+    elif found.solved == "frequency":
+        answer = f"frequency {freq}"
+    else:
+        answer = (f"side {format_length(found.aperture, units)} (beside the given "
+                  f"{format_length(found.other_side, units)})")
+    rows = [["frequency", freq], ["wavelength", format_length(found.wavelength, units, 3)],
+            ["half-angle", f"{found.half_angle_deg:.2f}°"],
+            ["full angle", f"{found.full_angle_deg:.2f}°"],
+            ["near field", "none" if found.near_field != found.near_field
+             else format_length(found.near_field, units)],
+            ["directivity index", f"{found.directivity_index_db:.2f} dB"]]
+    if found.other_half_angle_deg is not None:
+        rows.append(["half-angle in the other plane", _angle(
+            None if found.other_half_angle_deg != found.other_half_angle_deg
+            else float(found.other_half_angle_deg))])
+    if found.depth == found.depth:
+        flag = "" if found.far_field_at_depth else "  (inside the near field: does not hold)"
+        rows.append([f"width at {format_length(found.depth, units)}",
+                     format_length(found.footprint_width, units) + flag])
+    out = [f"Solution: {answer}",
+           f"for -{found.level_db if found.level_db > 0 else -found.level_db:g} dB, "
+           f"{found.mode}, in {wave.medium if wave.medium != 'given' else 'the given medium'} "
+           f"({wave.speed:.1f} m/s)", "",
+           columns([["quantity", "value"], *rows]), ""]
     out.extend(textwrap.wrap(CAUTION, 100))
     return "\n".join(out)
