@@ -63,6 +63,10 @@ class Spot:
     width: float | None  # m; None where the half-angle (or the crossing) does not exist
     far_field_valid: bool | None  # None for a width from the computed field
     method: str = "far-field"  # or "field"
+    leg: int = 1  # 1 down from the probe; 2 after the back-wall bounce (angle beam)
+    sound_path: float | None = None  # m along the beam axis (= depth straight down)
+    surface_distance: float | None = None  # m from the probe's exit point along the surface
+    footprint: float | None = None  # m: the width on the horizontal plane at the depth
 
 
 DEFAULT_BANDWIDTH = 0.5
@@ -261,7 +265,8 @@ def analyse(
             for level in level_list:
                 angle = half_angles[level_key(level)]
                 width = None if angle is None else 2.0 * depth * math.tan(math.radians(angle))
-                spots.append(Spot(depth, -level, width, valid))
+                spots.append(Spot(depth, -level, width, valid, sound_path=depth,
+                                  surface_distance=0.0, footprint=width))
             if field is not None:
                 spots.extend(_field_spots(probe, wave.speed, depth, level_list, name, mode,
                                           field))
@@ -309,5 +314,9 @@ def _field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSettin
 
     found = beam_widths(probe, speed, depth, levels, plane=plane, bandwidth=settings.bandwidth,
                         mode=mode, frequencies=settings.frequencies, spectrum=settings.spectrum)
-    return [Spot(depth, -w.level_db, None if math.isnan(w.width) else w.width, None,
-                 method="field") for w in found]
+    spots = []
+    for w in found:
+        width = None if math.isnan(w.width) else w.width
+        spots.append(Spot(depth, -w.level_db, width, None, method="field", sound_path=depth,
+                          surface_distance=0.0, footprint=width))
+    return spots

@@ -12,7 +12,7 @@ from dataclasses import dataclass
 
 from .errors import InputError
 
-__all__ = ["Disc", "Probe", "Rectangle", "check_positive"]
+__all__ = ["Disc", "Ellipse", "Probe", "Rectangle", "check_positive"]
 
 
 def check_positive(value: float, name: str, unit: str = "") -> float:
@@ -99,4 +99,43 @@ class Rectangle:
         return max(self.length, self.width)
 
 
-Probe = Disc | Rectangle
+@dataclass(frozen=True)
+class Ellipse:
+    """A flat elliptical piston: the element a disc looks like from inside a part.
+
+    A disc on an angle-beam wedge is seen from the part as an ellipse whose
+    axis in the incidence plane is shortened by cos(refracted)/cos(incident);
+    :mod:`beamspread.inspection` builds it.
+
+    Parameters
+    ----------
+    length : float
+        The axis along x (the plotted, incidence plane), m.
+    width : float
+        The axis along y, m.
+    frequency : float
+        Centre frequency, Hz.
+    """
+
+    length: float
+    width: float
+    frequency: float
+
+    shape = "ellipse"
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
+        object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
+        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+
+    @property
+    def planes(self) -> tuple[tuple[str, float], ...]:
+        """The principal planes, as (name, axis in m): length (x), then width (y)."""
+        return (("length", self.length), ("width", self.width))
+
+    @property
+    def longest_side(self) -> float:
+        return max(self.length, self.width)
+
+
+Probe = Disc | Rectangle | Ellipse

@@ -48,7 +48,7 @@ def _snell(sin_in: np.ndarray, c_in: float, c_out: float) -> np.ndarray:
         return np.where(s < 1.0, np.arcsin(np.minimum(s, 1.0)), np.nan)
 
 
-def critical_angles(c_wedge: float, c_longitudinal: float, c_shear: float | None):
+def critical_angles(c_wedge: float, c_longitudinal: float | None, c_shear: float | None):
     """First and second critical angles (rad) in the wedge; None where there is none.
 
     First: the refracted longitudinal wave reaches 90 degrees, sin a1 = c_wedge / c_L.
@@ -63,7 +63,9 @@ def critical_angles(c_wedge: float, c_longitudinal: float, c_shear: float | None
     [27.46, 57.0]
     """
     c_wedge = check_positive(c_wedge, "wedge speed", "m/s")
-    first = math.asin(c_wedge / c_longitudinal) if c_wedge < c_longitudinal else None
+    first = None
+    if c_longitudinal is not None and c_wedge < c_longitudinal:
+        first = math.asin(c_wedge / c_longitudinal)
     second = None
     if c_shear is not None and c_wedge < c_shear:
         second = math.asin(c_wedge / c_shear)
@@ -86,7 +88,7 @@ class Refraction:
 
 def refract(
     c_wedge: float,
-    c_longitudinal: float,
+    c_longitudinal: float | None,
     c_shear: float | None,
     *,
     incident: float | None = None,
@@ -99,8 +101,9 @@ def refract(
     ----------
     c_wedge : float
         Longitudinal speed in the wedge, m/s.
-    c_longitudinal, c_shear : float
-        Speeds in the part, m/s (``c_shear`` None for a liquid).
+    c_longitudinal, c_shear : float or None
+        Speeds in the part, m/s (``c_shear`` None for a liquid; either None
+        where it is not known, and then that mode is not reported).
     incident : float, optional
         Incident angle in the wedge, rad, in [0, 90 degrees).
     refracted : float, optional
@@ -137,8 +140,8 @@ def refract(
                              "it must lie from 0 up to (not at) 90 degrees")
         c_mode = c_longitudinal if wave == "longitudinal" else c_shear
         if c_mode is None:
-            raise InputError("the part carries no shear wave (a liquid); use the longitudinal "
-                             "wave")
+            raise InputError(f"the part's {wave} speed is not known (or it carries no shear "
+                             "wave)")
         s = c_wedge * math.sin(refracted) / c_mode
         if s >= 1.0:  # only where the mode is slower in the part than in the wedge
             largest = math.degrees(math.asin(c_mode / c_wedge))
@@ -152,7 +155,8 @@ def refract(
         raise InputError(f"incident angle {math.degrees(incident):g} deg is not allowed; "
                          "it must lie from 0 up to (not at) 90 degrees")
     sin_in = math.sin(incident)
-    beta_l = float(_snell(sin_in, c_wedge, c_longitudinal))
+    beta_l = (float(_snell(sin_in, c_wedge, c_longitudinal)) if c_longitudinal is not None
+              else math.nan)
     beta_s = float(_snell(sin_in, c_wedge, c_shear)) if c_shear is not None else math.nan
     return Refraction(
         incident=incident,

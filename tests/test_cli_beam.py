@@ -33,7 +33,9 @@ def test_acceptance_command_json(run):
     assert spot["width_m"] == pytest.approx(
         2 * 0.1 * math.tan(math.radians(plane["half_angle_deg"]["-6"])))
     assert spot == {"depth_m": 0.1, "level_db": -6.0, "width_m": spot["width_m"],
-                    "far_field_valid": True, "method": "far-field"}
+                    "far_field_valid": True, "method": "far-field", "leg": 1,
+                    "sound_path_m": 0.1, "surface_distance_m": 0.0,
+                    "footprint_m": spot["width_m"]}
     assert data["convention"]["mode"] == "pulse-echo" and data["convention"]["angle"] == "half"
     assert data["medium"]["speed_m_s"] == 5920.0 and data["medium"]["wave"] == "longitudinal"
     assert data["warnings"] == [] and r.stderr == ""

@@ -15,7 +15,34 @@ from .options import (
     probe_options,
     resolve_wave,
 )
-from .params import DEPTHS, LENGTH, LEVEL
+from .params import ANGLE, DEPTHS, LENGTH, LEVEL, PATH_LENGTH, SPEED
+
+
+def setup_options(f):
+    """The inspection setup: a wedge, or a water path, and a focus."""
+    for decorator in reversed((
+        click.option("--wedge", default=None, metavar="NAME",
+                     help="Angle-beam wedge material by name (its longitudinal speed)."),
+        click.option("--wedge-speed", type=SPEED, default=None,
+                     help="Angle-beam wedge: a measured longitudinal speed instead of --wedge."),
+        click.option("--incident", type=ANGLE, default=None,
+                     help="Incident angle in the wedge, degrees."),
+        click.option("--refracted", type=ANGLE, default=None,
+                     help="Nominal refracted angle in the part for --wave, degrees (the "
+                     "incident angle is solved)."),
+        click.option("--wedge-path", type=PATH_LENGTH, default=None,
+                     help="Mean sound path in the wedge along the beam axis."),
+        click.option("--thickness", type=LENGTH, default=None,
+                     help="Part thickness: each depth then gets the second leg too."),
+        click.option("--water-path", type=PATH_LENGTH, default=None,
+                     help="Immersion: couplant path from the probe to the part surface."),
+        click.option("--couplant", default="water", show_default=True, metavar="NAME",
+                     help="Immersion couplant (at --temperature)."),
+        click.option("--focus", type=LENGTH, default=None,
+                     help="Focal length of a spherically focused disc, in the couplant."),
+    )):
+        f = decorator(f)
+    return f
 
 
 @click.command()
@@ -29,6 +56,7 @@ from .params import DEPTHS, LENGTH, LEVEL
 @field_options
 @click.option("--far-field-only", is_flag=True,
               help="Only the far-field widths, without the computed field.")
+@setup_options
 @click.option("--sonar", is_flag=True,
               help="The sonar trade's conventions: one-way, -3 and -10 dB, full angles; adds "
               "the directivity index, side lobes, the equivalent beam angle and absorption.")
@@ -45,7 +73,9 @@ from .params import DEPTHS, LENGTH, LEVEL
 @pass_output
 def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, depths, levels, pulse_echo, bandwidth, spectrum, frequency_count,
-         far_field_only, sonar, bottom_depths, power, efficiency, bottom_loss, fmt, units):
+         far_field_only, wedge, wedge_speed, incident, refracted, wedge_path, thickness,
+         water_path, couplant, focus, sonar, bottom_depths, power, efficiency, bottom_loss, fmt,
+         units):
     """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
@@ -64,7 +94,29 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
 
     probe = make_probe(diameter, length, width, frequency)
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
-    resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
+    on_wedge = wedge is not None or wedge_speed is not None
+    immersed = water_path is not None or focus is not None
+    if on_wedge and immersed:
+        raise click.UsageError("give a wedge (--wedge/--wedge-speed) or a water path "
+                               "(--water-path/--focus), not both")
+    if (on_wedge or immersed) and (sonar or bottom_depths or power is not None):
+        raise click.UsageError("--sonar, --bottom-depth and --power describe a bare transducer "
+                               "in water, not an inspection setup")
+    if not on_wedge and any(v is not None for v in (incident, refracted, wedge_path)):
+        raise click.UsageError("--incident, --refracted and --wedge-path need --wedge or "
+                               "--wedge-speed")
+    if thickness is not None and not on_wedge:
+        raise click.UsageError("--thickness (for the second leg) needs a wedge")
+    resolved = resolve_wave(material, wave or ("shear" if on_wedge else None), speed,
+                            temperature, conditions, materials_dirs)
+    if on_wedge or immersed:
+        from .setup import run_setup
+
+        return run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
+                         wedge=wedge, wedge_speed=wedge_speed, incident=incident,
+                         refracted=refracted, wedge_path=wedge_path, thickness=thickness,
+                         water_path=water_path, couplant=couplant, focus=focus,
+                         temperature=temperature, materials_dirs=materials_dirs)
     if pulse_echo is None:
         mode = SONAR_MODE if sonar else "pulse-echo"
     else:

@@ -98,8 +98,8 @@ def medium_options(f):
                      help="Temperature of the medium: degC, degF or K (bare number: degC).")(f)
     f = click.option("--speed", type=SPEED, default=None,
                      help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).")(f)
-    f = click.option("--wave", type=click.Choice(["longitudinal", "shear"]),
-                     default="longitudinal", show_default=True, help="Wave mode in the medium.")(f)
+    f = click.option("--wave", type=click.Choice(["longitudinal", "shear"]), default=None,
+                     help="Wave mode in the medium (default longitudinal; shear on a wedge).")(f)
     f = click.option("--material", default=None, metavar="NAME",
                      help="Material or medium by name or alias (beamspread materials list).")(f)
     return f
@@ -135,6 +135,7 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
     """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources."""
     from ..media.model import Wave
 
+    wave = wave or "longitudinal"
     if (material is None) == (speed is None):
         raise click.UsageError("give either --material NAME or --speed SPEED")
     if speed is not None:

@@ -13,9 +13,10 @@ __all__ = ["CONDITION", "LEVEL", "Condition", "Level", "Quantity"]
 class Quantity(click.ParamType):
     """A number with an optional unit suffix; bare numbers take the kind's default unit."""
 
-    def __init__(self, kind: str, positive: bool = True) -> None:
+    def __init__(self, kind: str, positive: bool = True, zero: bool = False) -> None:
         self.kind = kind
         self.positive = positive
+        self.zero = zero  # with positive: 0 is allowed too
         self.name = kind
 
     def get_metavar(self, param, ctx=None) -> str:
@@ -28,8 +29,9 @@ class Quantity(click.ParamType):
             result = parse_quantity(value, self.kind, what=None)
         except InputError as exc:
             self.fail(str(exc).removeprefix(f"{self.kind}: "), param, ctx)
-        if self.positive and result <= 0:
-            self.fail(f"{value!r} is not allowed; it must be above 0", param, ctx)
+        if self.positive and (result < 0 or (result == 0 and not self.zero)):
+            allowed = "0 or more" if self.zero else "above 0"
+            self.fail(f"{value!r} is not allowed; it must be {allowed}", param, ctx)
         return result
 
     def __repr__(self) -> str:
@@ -99,10 +101,36 @@ class DepthList(click.ParamType):
                   param, ctx)
 
 
+class Angle(click.ParamType):
+    """An angle in degrees, from 0 up to (not at) 90: "45", "45deg" or "45°"."""
+
+    name = "angle"
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return "DEG"
+
+    def convert(self, value, param, ctx):
+        import math
+
+        if isinstance(value, float):
+            return value
+        text = str(value).strip().removesuffix("deg").removesuffix("°").strip()
+        try:
+            degrees = float(text)
+        except ValueError:
+            self.fail(f"{value!r} is not an angle in degrees", param, ctx)
+        if not (math.isfinite(degrees) and 0.0 <= degrees < 90.0):
+            self.fail(f"{value!r} is not allowed; give an angle from 0 up to (not at) 90 "
+                      "degrees", param, ctx)
+        return math.radians(degrees)
+
+
 LEVEL = Level()
+ANGLE = Angle()
 DEPTHS = DepthList()
 CONDITION = Condition()
 LENGTH = Quantity("length")
+PATH_LENGTH = Quantity("length", zero=True)  # a path that may vanish
 FREQUENCY = Quantity("frequency")
 SPEED = Quantity("speed")
 TEMPERATURE = Quantity("temperature", positive=False)

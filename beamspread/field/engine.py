@@ -86,8 +86,8 @@ import math
 import numpy as np
 
 from ..errors import InputError
-from ..probes import Disc, Rectangle, check_positive
-from ._boundary import disc_table, rectangle_table
+from ..probes import Disc, Ellipse, Rectangle, check_positive
+from ._boundary import disc_table, ellipse_table, rectangle_table
 from .spectrum import Spectrum, make_spectrum
 
 __all__ = ["MAX_POINTS", "MODES", "field_amplitude", "pressure"]
@@ -140,16 +140,19 @@ def _lateral(probe, x: np.ndarray, y: np.ndarray):
         r = np.round(np.hypot(x, y) / quantum) * quantum
         unique, inverse = np.unique(r, return_inverse=True)
         return (unique,), inverse.reshape(-1)
-    if isinstance(probe, Rectangle):
+    if isinstance(probe, (Rectangle, Ellipse)):
         key = np.round(np.abs(x) / quantum) + 1j * np.round(np.abs(y) / quantum)
         unique, inverse = np.unique(key * quantum, return_inverse=True)
         return (unique.real, unique.imag), inverse.reshape(-1)
-    raise InputError(f"probe: {probe!r} is not a Disc or a Rectangle")
+    raise InputError(f"probe: {probe!r} is not a Disc, a Rectangle or an Ellipse")
 
 
 def _table(probe, lateral, k_max: float, z_min: float):
     if isinstance(probe, Disc):
         return disc_table(lateral[0], 0.5 * probe.diameter, k_max, z_min)
+    if isinstance(probe, Ellipse):
+        return ellipse_table(lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width,
+                             k_max, z_min)
     return rectangle_table(
         lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width, k_max, z_min
     )

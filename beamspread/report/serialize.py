@@ -68,6 +68,8 @@ def _spot(spot) -> dict[str, Any]:
     if spot.method == "far-field":
         out["far_field_valid"] = spot.far_field_valid
     out["method"] = spot.method
+    out.update({"leg": spot.leg, "sound_path_m": spot.sound_path,
+                "surface_distance_m": spot.surface_distance, "footprint_m": spot.footprint})
     return out
 
 
@@ -375,4 +377,38 @@ def design_to_dict(found, wave, warnings) -> dict[str, Any]:
         "far_field_at_depth": bool(found.far_field_at_depth),
         "warnings": list(warnings),
     })
+    return _clean(out)
+
+
+def setup_to_dict(setup) -> dict[str, Any]:
+    """The keys an inspection setup adds to the JSON of ``beamspread beam``."""
+    import math
+
+    def deg(rad):
+        return None if rad is None else math.degrees(rad)
+
+    out: dict[str, Any] = {"setup": setup.setup, "near_field_in_part_m": setup.near_field_in_part}
+    r = setup.refraction
+    if r is not None:
+        out["refraction"] = {
+            "incident_deg": deg(r.incident),
+            "refracted_deg": {"longitudinal": deg(r.longitudinal), "shear": deg(r.shear)},
+            "critical_deg": {"first": deg(r.first_critical), "second": deg(r.second_critical)},
+        }
+        out["effective_aperture_m"] = setup.effective_aperture
+    if setup.transmission is not None:
+        out["transmission_coefficient"] = setup.transmission
+    f = setup.focus
+    if f is not None:
+        out["focus"] = {
+            "normalised_focal_length": f.normalised_focal_length,
+            "axial_maximum_m": f.axial_maximum,
+            "axial_maximum_in_part_m": f.axial_maximum_in_part,
+            "focal_depth_in_part_m": f.focal_depth_in_part,
+            "spot_width_m": f.spot_width,
+            "zone_m": None if f.zone is None else list(f.zone),
+            "zone_in_part_m": None if f.zone_in_part is None else list(f.zone_in_part),
+            "zone_rule_of_thumb_m": f.zone_rule_of_thumb,
+            "paraxial_poor": f.paraxial_poor,
+        }
     return _clean(out)

@@ -93,10 +93,12 @@ def field_description(settings, mode: str) -> str:
 
 def _field_line(result: BeamResult, units: str) -> str:
     f = result.field
-    axial = "none" if f.axial_maximum is None else format_length(f.axial_maximum, units)
-    return (f"computed field: {field_description(f.settings, result.convention.mode)}; "
+    text = (f"computed field: {field_description(f.settings, result.convention.mode)}; "
             "width between the outermost crossings of the level below the maximum across "
-            f"the beam at that depth; last on-axis maximum of this pulse at {axial}.")
+            "the beam at that depth")
+    if f.axial_maximum is not None:
+        text += f"; last on-axis maximum of this pulse at {format_length(f.axial_maximum, units)}"
+    return text + "."
 
 
 def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=None,
@@ -108,12 +110,19 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
                              subsequent_indent="        "))
     out.append("")
     near = result.near_field
-    simple_label = "D²/4λ" if isinstance(result.probe, Disc) else "L²/4λ, L the longer side"
+    contact = result.near_field_method.startswith("last on-axis maximum, exact") or (
+        result.near_field_method.startswith("last on-axis maximum of the exact"))
+    if contact:
+        method = "last on-axis maximum, " + ("exact (D² − λ²)/4λ" if isinstance(result.probe, Disc)
+                                             else "from the exact on-axis integral")
+        simple_label = ("D²/4λ" if isinstance(result.probe, Disc)
+                        else "L²/4λ, L the longer side")
+    else:  # an inspection setup states its own method
+        method = result.near_field_method
+        simple_label = "the same from the simple formula"
     rows = [
         ["wavelength", format_length(result.wavelength, units, 3), ""],
-        ["near field", "none" if near is None else format_length(near, units),
-         "last on-axis maximum, " + ("exact (D² − λ²)/4λ" if isinstance(result.probe, Disc)
-                                     else "from the exact on-axis integral")],
+        ["near field", "none" if near is None else format_length(near, units), method],
         ["near field, simple", format_length(result.near_field_simple, units), simple_label],
     ]
     if result.near_field_factor is not None:
@@ -168,27 +177,43 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
                                 for t in budget.terms], indent=4))
     if result.depths:
         out.append("")
-        out.append(f"Beam width at depth (full width, {mode})")
-        head = ["depth", "plane", "method", *[f"{k} dB" for k in keys]]
-        rows = []
+        angled = any(s.surface_distance for pl in result.planes for s in pl.spots)
+        out.append(f"Beam width at depth (full width across the beam, {mode})")
+        head = ["depth", *(["leg", "sound path", "surface"] if angled else []), "plane",
+                "method", *[f"{k} dB" for k in keys]]
+        rows, prints = [], []
         inside = False
+        legs = sorted({s.leg for pl in result.planes for s in pl.spots})
         for depth in result.depths:
-            for pl in result.planes:
-                for method in ("far-field", "field"):
-                    spots = {level_key(s.level_db): s for s in pl.spots
-                             if s.depth == depth and s.method == method}
-                    if not spots:
-                        continue
-                    flag = " *" if spots[keys[0]].far_field_valid is False else ""
-                    inside = inside or bool(flag)
-                    label = "far field" + flag if method == "far-field" else "computed field"
-                    rows.append([
-                        format_length(depth, units), pl.name, label,
-                        *["none" if spots[k].width is None
-                          else format_length(spots[k].width, units) for k in keys],
-                    ])
+            for leg in legs:
+                for pl in result.planes:
+                    for method in ("far-field", "field"):
+                        spots = {level_key(s.level_db): s for s in pl.spots
+                                 if s.depth == depth and s.method == method and s.leg == leg}
+                        if not spots:
+                            continue
+                        first = spots[keys[0]]
+                        flag = " *" if first.far_field_valid is False else ""
+                        inside = inside or bool(flag)
+                        label = "far field" + flag if method == "far-field" else "computed field"
+                        where = ([str(leg), format_length(first.sound_path, units),
+                                  format_length(first.surface_distance, units)] if angled else [])
+                        rows.append([format_length(depth, units), *where, pl.name, label,
+                                     *["none" if spots[k].width is None
+                                       else format_length(spots[k].width, units) for k in keys]])
+                        if angled:
+                            prints.append([format_length(depth, units), str(leg), pl.name,
+                                           label, *["none" if spots[k].footprint is None
+                                                    else format_length(spots[k].footprint,
+                                                                       units) for k in keys]])
         out.append(columns([head, *rows]))
-        out.append("  far field: 2·z·tan(half-angle).")
+        if prints:
+            out.append("")
+            out.append("Footprint on the horizontal plane at the depth")
+            out.append(columns([["depth", "leg", "plane", "method",
+                                 *[f"{k} dB" for k in keys]], *prints]))
+        out.append("  far field: 2·(sound path)·tan(half-angle)." if angled
+                   else "  far field: 2·z·tan(half-angle).")
         if inside:
             out.append("  * inside the near field: the far-field width does not hold there.")
         if result.field is not None:
@@ -312,3 +337,48 @@ def design_table(found, wave, units="mm") -> str:
            columns([["quantity", "value"], *rows]), ""]
     out.extend(textwrap.wrap(CAUTION, 100))
     return "\n".join(out)
+
+
+def setup_lines(setup, extra, units="mm") -> list[str]:
+    """The lines that describe an inspection setup, for the top of the beam table."""
+    import math
+
+    def deg(rad):
+        return "none" if rad is None else f"{math.degrees(rad):.2f}°"
+
+    lines = []
+    if setup.refraction is not None:
+        r, w = setup.refraction, extra["wedge"]
+        lines.append(f"Setup: wedge {w['name']} ({w['speed_m_s']:.1f} m/s), wedge path "
+                     f"{format_length(w['path_m'], units)}; incident {deg(r.incident)}; "
+                     f"refracted longitudinal {deg(r.longitudinal)}, shear {deg(r.shear)}; "
+                     f"critical angles {deg(r.first_critical)} and {deg(r.second_critical)}")
+        lines.append(f"       effective aperture in the incidence plane "
+                     f"{format_length(setup.effective_aperture, units)}; near field in the "
+                     f"part {_len_or_none(setup.near_field_in_part, units)}")
+    else:
+        c = extra["couplant"]
+        lines.append(f"Setup: immersion in {c['name']} ({c['speed_m_s']:.1f} m/s), water path "
+                     f"{format_length(c['path_m'], units)}; near field in the part "
+                     f"{_len_or_none(setup.near_field_in_part, units)}"
+                     + ("" if setup.transmission is None else
+                        f"; pressure transmission into the part {setup.transmission:.3f}"))
+        f = setup.focus
+        if f is not None:
+            zone = ("none" if f.zone is None else
+                    f"{format_length(f.zone[0], units)} to {format_length(f.zone[1], units)}")
+            lines.append(f"       focus: S = F/N {f.normalised_focal_length:.3f}; on-axis "
+                         f"maximum at {format_length(f.axial_maximum, units)} in the couplant; "
+                         f"focal spot {format_length(f.spot_width, units)}; zone {zone} "
+                         f"(rule of thumb N·S²·2/(1 + S/2): "
+                         f"{format_length(f.zone_rule_of_thumb, units)} long)")
+            if f.focal_depth_in_part is not None:
+                lines.append(f"       focal depth in the part (paraxial) "
+                             f"{format_length(f.focal_depth_in_part, units)}"
+                             + (" - a poor estimate here" if f.paraxial_poor else ""))
+    return [line for text in lines for line in textwrap.wrap(text, 100,
+                                                             subsequent_indent="       ")]
+
+
+def _len_or_none(value, units):
+    return "none" if value is None else format_length(value, units)

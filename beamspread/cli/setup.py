@@ -1,0 +1,98 @@
+"""The inspection-setup branch of ``beamspread beam``: wedge, water path, focus."""
+
+from __future__ import annotations
+
+import click
+
+from .options import emit_warnings, load_registry
+
+
+def _named_speed(registry, name, temperature):
+    """The longitudinal wave of a named wedge or couplant (at --temperature where it varies)."""
+    medium = registry.get(name).medium
+    conditions = {}
+    if temperature is not None and (medium.parameter("temperature") is not None
+                                    or getattr(medium, "depends_on_temperature", False)):
+        conditions["temperature"] = temperature
+    return medium.evaluate("longitudinal", conditions)
+
+
+def _part_speeds(resolved):
+    """Both speeds of the part: from the material, or the one --speed gives."""
+    wave = resolved.wave
+    if resolved.medium is None:
+        return ((wave.speed, None) if wave.wave == "longitudinal" else (None, wave.speed))
+    speeds = []
+    for mode in ("longitudinal", "shear"):
+        try:
+            speeds.append(resolved.medium.evaluate(mode, resolved.conditions).speed)
+        except Exception:  # a liquid, or a table without that wave
+            speeds.append(None)
+    return tuple(speeds)
+
+
+def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units, *, wedge,
+              wedge_speed, incident, refracted, wedge_path, thickness, water_path, couplant,
+              focus, temperature, materials_dirs):
+    from ..beam import DEFAULT_LEVELS
+    from ..inspection import Focus, WaterPath, Wedge, analyse_immersion, analyse_wedge
+
+    mode = "one-way" if pulse_echo is False else "pulse-echo"
+    levels = levels or DEFAULT_LEVELS
+    registry = resolved.registry or load_registry(materials_dirs)
+    warnings = list(registry.warnings)
+    c_long, c_shear = _part_speeds(resolved)
+    if wedge is not None or wedge_speed is not None:
+        if wedge is not None and wedge_speed is not None:
+            raise click.UsageError("give --wedge NAME or --wedge-speed SPEED, not both")
+        if (incident is None) == (refracted is None):
+            raise click.UsageError("give the wedge's --incident angle or the --refracted angle "
+                                   "in the part")
+        if wedge is not None:
+            wave = _named_speed(registry, wedge, temperature)
+            warnings.extend(wave.warnings)
+            speed, name = wave.speed, wave.medium
+        else:
+            speed, name = wedge_speed, "given"
+        if wedge_path is None:
+            warnings.append("no --wedge-path: the near field in the part is not shortened by "
+                            "the wedge")
+        result = analyse_wedge(
+            probe, resolved.wave, c_long, c_shear,
+            Wedge(speed, wedge_path or 0.0, incident, refracted, name),
+            thickness=thickness, depths=depths, levels=levels, mode=mode, field=settings)
+        extra = {"wedge": {"name": name, "speed_m_s": speed, "path_m": wedge_path or 0.0}}
+    else:
+        couplant_wave = (resolved.wave if water_path is None and focus is not None
+                         else _named_speed(registry, couplant, temperature))
+        warnings.extend(couplant_wave.warnings if couplant_wave is not resolved.wave else [])
+        water = WaterPath(couplant_wave.speed, water_path or 0.0, couplant_wave.density,
+                          couplant_wave.medium)
+        result = analyse_immersion(probe, resolved.wave, water,
+                                   focus=None if focus is None else Focus(focus),
+                                   depths=depths, levels=levels, mode=mode, field=settings)
+        extra = {"couplant": {"name": water.name, "speed_m_s": water.speed,
+                              "path_m": water.path}}
+    warnings.extend(result.warnings)
+    warnings = list(dict.fromkeys(warnings))
+    emit_warnings(warnings)
+    if fmt == "json":
+        from ..report.serialize import beam_to_dict, dumps, setup_to_dict
+
+        data = beam_to_dict(result.beam)
+        data["medium"]["longitudinal_m_s"] = c_long
+        data["medium"]["shear_m_s"] = c_shear
+        data.update(setup_to_dict(result))
+        data.update(extra)
+        data["warnings"] = warnings
+        click.echo(dumps(data))
+    elif fmt == "csv":
+        from ..report.serialize import beam_to_csv
+
+        click.echo(beam_to_csv(result.beam), nl=False)
+    else:
+        from ..report.text import beam_table, setup_lines
+
+        table = beam_table(result.beam, units).split("\n")
+        head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
+        click.echo("\n".join(table[:head] + setup_lines(result, extra, units) + table[head:]))

@@ -1,0 +1,419 @@
+"""Inspection setups end to end: an angle-beam wedge, an immersion water path, a focus.
+
+Each ``analyse_*`` function returns a :class:`SetupResult`: the beam in the
+part as a :class:`beamspread.BeamResult` (half-angles and spots per plane and
+leg), and what the setup adds (refraction, effective aperture, near field in
+the part, transmission, focus). SI units, angles in radians at the inputs and
+degrees in results, as elsewhere.
+
+Models and their limits
+-----------------------
+* Wedge: the beam in the part is that of a *virtual element* in the part,
+  the real element projected by cos(refracted)/cos(incident) in the
+  incidence plane (common practice), set back behind the exit point by the
+  wedge path's equivalent ``wedge_path * c_wedge / c_part`` (common practice).
+  A disc becomes an ellipse, a rectangle a shorter rectangle. The computed
+  field is that virtual element's (:mod:`beamspread.field`): it omits the
+  angle dependence of the transmission coefficient across the beam and the
+  mode-converted wave, so it is an estimate for the main lobe.
+* Immersion at normal incidence: the field in the part at depth ``d`` is
+  taken as the element's field in water at the equivalent water path
+  ``WP + d * c_part / c_water`` (paraxial; the lateral scale is unchanged),
+  which reproduces the near-field relation ``(N_water - WP) c_water / c_part``
+  (common practice). It holds for small beam angles in the part.
+* Focus (spherical, discs): O'Neil's on-axis field of a spherical cap, the
+  diffraction focal spot, and the paraxial focal depth in the part.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, replace
+
+import numpy as np
+
+from . import pattern, setups
+from .beam import BeamResult, Convention, FieldSettings, PlaneResult, Spot, analyse, level_key
+from .errors import InputError
+from .media.model import Wave
+from .probes import Disc, Ellipse, Rectangle, check_positive
+
+__all__ = [
+    "Focus",
+    "FocusResult",
+    "SetupResult",
+    "WaterPath",
+    "Wedge",
+    "analyse_immersion",
+    "analyse_wedge",
+]
+
+MAX_WATER_PATH = 2.0  # m: longer than any immersion tank or bubbler
+
+
+@dataclass(frozen=True)
+class Wedge:
+    """An angle-beam wedge: its longitudinal speed, mean path and angle."""
+
+    speed: float  # m/s
+    path: float = 0.0  # m, mean sound path in the wedge along the beam axis
+    incident: float | None = None  # rad
+    refracted: float | None = None  # rad, nominal, for the wave mode asked for
+    name: str = "given"
+
+
+@dataclass(frozen=True)
+class WaterPath:
+    """The couplant column between an immersion probe and the part."""
+
+    speed: float  # m/s
+    path: float  # m
+    density: float | None = None  # kg/m3
+    name: str = "water"
+
+
+@dataclass(frozen=True)
+class Focus:
+    """A spherical focus: the focal length in the couplant."""
+
+    focal_length: float  # m
+
+
+@dataclass(frozen=True)
+class FocusResult:
+    """What a focus does, in the couplant and (after a water path) in the part."""
+
+    normalised_focal_length: float  # S = F / N in the couplant
+    axial_maximum: float  # m from the face, in the couplant: the true on-axis maximum
+    spot_width: float  # m, the focal spot at the first level (diffraction)
+    zone: tuple[float, float] | None  # m from the face: on-axis amplitude at or above the level
+    zone_rule_of_thumb: float  # m: N S^2 2/(1 + 0.5 S), common practice, for comparison
+    focal_depth_in_part: float | None = None  # m below the surface, paraxial
+    axial_maximum_in_part: float | None = None
+    zone_in_part: tuple[float, float] | None = None
+    paraxial_poor: bool = False
+
+
+@dataclass(frozen=True)
+class SetupResult:
+    """The beam in the part and what the setup did to it."""
+
+    beam: BeamResult
+    setup: str  # "wedge", "immersion"
+    refraction: setups.Refraction | None = None
+    effective_aperture: float | None = None  # m, in the incidence plane
+    near_field_in_part: float | None = None  # m
+    transmission: float | None = None  # pressure, couplant to part, normal incidence
+    focus: FocusResult | None = None
+    warnings: tuple[str, ...] = ()
+
+
+def _deg(rad: float) -> str:
+    return f"{math.degrees(rad):.2f} deg"
+
+
+def _mm(metres: float) -> str:
+    return f"{metres * 1e3:.4g} mm"
+
+
+def _levels(levels):
+    return tuple(dict.fromkeys(abs(float(level)) for level in levels))
+
+
+def analyse_wedge(
+    probe: Disc | Rectangle,
+    part: Wave,
+    c_longitudinal: float,
+    c_shear: float | None,
+    wedge: Wedge,
+    *,
+    thickness: float | None = None,
+    depths=(),
+    levels=(6.0, 20.0),
+    mode: str = "pulse-echo",
+    field: FieldSettings | None = None,
+) -> SetupResult:
+    """The beam in the part of a contact probe on an angle-beam wedge.
+
+    Parameters
+    ----------
+    probe : Disc or Rectangle
+        The element; a rectangle's ``length`` lies in the incidence plane.
+    part : Wave
+        The part's wave of the mode used (its ``wave`` names the mode).
+    c_longitudinal, c_shear : float
+        Both speeds of the part, m/s (``c_shear`` None for a liquid).
+    wedge : Wedge
+    thickness : float, optional
+        Part thickness, m: each depth then gets the first and the second leg.
+    depths, levels, mode, field
+        As :func:`beamspread.analyse`; depths are below the scanning surface.
+
+    Raises
+    ------
+    InputError
+        Angles outside [0, 90) degrees or past critical for the mode, a
+        refracted angle no incident angle reaches, a depth below the part.
+    """
+    check_positive(wedge.speed, "wedge speed", "m/s")
+    if not (math.isfinite(wedge.path) and wedge.path >= 0):
+        raise InputError(f"wedge path: {wedge.path!r} m is not allowed; give 0 or more")
+    wave = part.wave
+    r = setups.refract(wedge.speed, c_longitudinal, c_shear, incident=wedge.incident,
+                       refracted=wedge.refracted, wave=wave)
+    beta = r.refracted(wave)
+    if beta is None:
+        which = r.first_critical if wave == "longitudinal" else r.second_critical
+        past = (f"past the {'first' if wave == 'longitudinal' else 'second'} critical angle "
+                f"({_deg(which)})" if which is not None else "where it cannot refract")
+        raise InputError(f"no {wave} wave enters the part at an incident angle of "
+                         f"{_deg(r.incident)}: that lies {past}")
+    warnings: list[str] = list(part.warnings)
+    if wave == "shear" and r.longitudinal is not None:
+        warnings.append(f"a longitudinal wave also enters, at {_deg(r.longitudinal)}: the "
+                        f"incident angle lies below the first critical angle "
+                        f"({_deg(r.first_critical)})")
+    if math.degrees(beta) > 80:
+        warnings.append(f"the refracted angle {_deg(beta)} grazes the surface: the model of "
+                        "the beam in the part is poor there")
+    alpha, c_part, f = r.incident, part.speed, probe.frequency
+    wavelength = c_part / f
+    if thickness is not None:
+        check_positive(thickness, "thickness", "m")
+    depth_list = tuple(dict.fromkeys(check_positive(d, "depth", "m") for d in depths))
+    for d in depth_list:
+        if thickness is not None and d > thickness:
+            raise InputError(f"depth {_mm(d)} lies below the part, which is {_mm(thickness)} "
+                             "thick")
+    if isinstance(probe, Disc):
+        inc = setups.effective_aperture(probe.diameter, alpha, beta)
+        virtual = Ellipse(inc, probe.diameter, f)
+        names = {"length": "incidence", "width": "transverse"}
+        shape = "disc"
+    else:
+        inc = setups.effective_aperture(probe.length, alpha, beta)
+        virtual = Rectangle(inc, probe.width, f)
+        names = {"length": "length", "width": "width"}
+        shape = "side"
+    from .field import beam_widths, last_maximum
+
+    n_virtual = last_maximum(virtual, c_part, bandwidth=0.0, mode="one-way")
+    offset = wedge.path * wedge.speed / c_part
+    near = None if math.isnan(n_virtual) else n_virtual - offset
+    if near is not None and near <= 0:
+        warnings.append(f"the near field ({_mm(n_virtual)} for the virtual element) ends "
+                        f"inside the wedge (its path counts as {_mm(offset)} of the part)")
+        near = None
+    simple = inc * virtual.width / (4 * wavelength) if shape == "disc" else (
+        max(inc, probe.width) ** 2 / (4 * wavelength))
+    level_list = _levels(levels)
+    planes = []
+    for vname, aperture in virtual.planes:
+        angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
+        null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
+        half = {level_key(lv): (None if math.isnan(a) else float(a))
+                for lv, a in zip(level_list, angles, strict=True)}
+        half["null"] = None if math.isnan(null) else null
+        spots = []
+        legs = (1, 2) if thickness is not None else (1,)
+        for depth in depth_list:
+            for leg in legs:
+                path, surface, unfolded = setups.leg_geometry(depth, beta, thickness, leg)
+                valid = near is None or path >= near
+                for lv in level_list:
+                    angle = half[level_key(lv)]
+                    width = footprint = None
+                    if angle is not None:
+                        theta = math.radians(angle)
+                        width = 2 * path * math.tan(theta)
+                        footprint = width
+                        if names[vname] in ("incidence", "length"):
+                            spread = math.tan(beta + theta) - math.tan(beta - theta)
+                            footprint = (unfolded * spread if beta + theta < math.pi / 2
+                                         else None)
+                    spots.append(Spot(depth, -lv, width, valid, leg=leg, sound_path=path,
+                                      surface_distance=surface, footprint=footprint))
+                if field is not None:
+                    found = beam_widths(virtual, c_part, path + offset, level_list, plane=vname,
+                                        bandwidth=field.bandwidth, mode=mode,
+                                        frequencies=field.frequencies, spectrum=field.spectrum)
+                    for w in found:
+                        width = None if math.isnan(w.width) else w.width
+                        foot = width
+                        if width is not None and names[vname] in ("incidence", "length"):
+                            foot = width / math.cos(beta)  # small-divergence projection
+                        spots.append(Spot(depth, -w.level_db, width, None, method="field",
+                                          leg=leg, sound_path=path, surface_distance=surface,
+                                          footprint=foot))
+        planes.append(PlaneResult(names[vname], aperture, half, tuple(spots)))
+    for depth in depth_list:
+        path = depth / math.cos(beta)
+        if near is not None and path < near:
+            warnings.append(f"depth {_mm(depth)} (sound path {_mm(path)}) lies inside the near "
+                            f"field in the part ({_mm(near)}): the far-field width does not "
+                            "hold there")
+    beam = BeamResult(
+        probe=probe, wave=part, convention=Convention(mode), levels=level_list,
+        wavelength=wavelength, near_field=near, near_field_simple=simple - offset,
+        near_field_method="last on-axis maximum of the virtual element in the part, less "
+        "the wedge path's equivalent (common practice)",
+        near_field_factor=None, planes=tuple(planes), depths=depth_list,
+        warnings=tuple(warnings), field=None,
+    )
+    if field is not None:
+        from .beam import FieldSummary
+
+        beam = replace(beam, field=FieldSummary(field, None))
+    return SetupResult(beam, "wedge", refraction=r, effective_aperture=inc,
+                       near_field_in_part=near, warnings=tuple(warnings))
+
+
+def analyse_immersion(
+    probe: Disc | Rectangle,
+    part: Wave,
+    water: WaterPath,
+    *,
+    focus: Focus | None = None,
+    depths=(),
+    levels=(6.0, 20.0),
+    mode: str = "pulse-echo",
+    field: FieldSettings | None = None,
+) -> SetupResult:
+    """The beam in the part of an immersion probe at normal incidence, optionally focused.
+
+    The water path may be 0 (a focus directly in the couplant with ``part``
+    the couplant itself). See the module notes for the model.
+
+    Raises
+    ------
+    InputError
+        A water path below 0 or over 2 m, a focus at or behind the element
+        (not beyond its radius), a focus on a rectangle.
+    """
+    wp = float(water.path)
+    if not math.isfinite(wp) or wp < 0 or wp > MAX_WATER_PATH:
+        raise InputError(f"water path: {wp * 1e3:g} mm is not allowed; give 0 to "
+                         f"{MAX_WATER_PATH * 1e3:g} mm")
+    c_w, c_p, f = water.speed, part.speed, probe.frequency
+    in_water = analyse(probe, Wave(water.name, "longitudinal", c_w, "couplant"),
+                       levels=levels, mode=mode)
+    n_w = in_water.near_field
+    warnings: list[str] = list(part.warnings)
+    near = None if n_w is None else setups.immersion_near_field(n_w, wp, c_w, c_p)
+    if n_w is not None and near is None and wp > 0:
+        warnings.append(f"the water path ({_mm(wp)}) is longer than the near field in water "
+                        f"({_mm(n_w)}): the part lies wholly in the far field")
+    level_list = in_water.levels
+    depth_list = tuple(dict.fromkeys(check_positive(d, "depth", "m") for d in depths))
+    planes = []
+    for plane in in_water.planes:
+        half = {}
+        for key, angle in plane.half_angles.items():
+            if angle is None:
+                half[key] = None
+                continue
+            s = math.sin(math.radians(angle)) * c_p / c_w
+            half[key] = math.degrees(math.asin(s)) if s < 1 else None
+            if s >= 1 and key != "null":
+                warnings.append(f"the {key} dB edge of the beam ({angle:.2f} deg in water) "
+                                "meets the surface past the critical angle: no width in the "
+                                "part at that level")
+        spots = []
+        for depth in depth_list:
+            equivalent = wp + depth * c_p / c_w
+            valid = n_w is None or equivalent >= n_w
+            for lv in level_list:
+                key = level_key(lv)
+                width = None
+                if half[key] is not None:
+                    width = 2 * (wp * math.tan(math.radians(plane.half_angles[key]))
+                                 + depth * math.tan(math.radians(half[key])))
+                spots.append(Spot(depth, -lv, width, valid, sound_path=depth,
+                                  surface_distance=0.0, footprint=width))
+            if field is not None and focus is None:
+                from .field import beam_widths
+
+                for w in beam_widths(probe, c_w, equivalent, level_list, plane=plane.name,
+                                     bandwidth=field.bandwidth, mode=mode,
+                                     frequencies=field.frequencies, spectrum=field.spectrum):
+                    width = None if math.isnan(w.width) else w.width
+                    spots.append(Spot(depth, -w.level_db, width, None, method="field",
+                                      sound_path=depth, surface_distance=0.0, footprint=width))
+        planes.append(PlaneResult(plane.name, plane.aperture, half, tuple(spots)))
+    transmission = None
+    if water.density is not None and part.density is not None:
+        transmission = setups.transmission_coefficient(water.density * c_w, part.density * c_p)
+    focus_result = None
+    if focus is not None:
+        focus_result = _focus(probe, focus, in_water, water, c_p, level_list[0], mode, warnings)
+        warnings.append("with a focus, the widths at depth are those of the flat element's "
+                        "far field: they do not describe the converging beam before the focus")
+    simple_part = None
+    if wp < in_water.near_field_simple:
+        simple_part = (in_water.near_field_simple - wp) * c_w / c_p
+    beam = BeamResult(
+        probe=probe, wave=part, convention=Convention(mode), levels=level_list,
+        wavelength=c_p / f, near_field=near, near_field_simple=simple_part or 0.0,
+        near_field_method="(N_water - water path) c_water / c_part (common practice)",
+        near_field_factor=None, planes=tuple(planes), depths=depth_list,
+        warnings=tuple(warnings),
+    )
+    if field is not None and focus is None:
+        from .beam import FieldSummary
+
+        beam = replace(beam, field=FieldSummary(field, None))
+    return SetupResult(beam, "immersion", near_field_in_part=near, transmission=transmission,
+                       focus=focus_result, warnings=tuple(warnings))
+
+
+def _focus(probe, focus: Focus, in_water: BeamResult, water: WaterPath, c_part: float,
+           level: float, mode: str, warnings: list[str]) -> FocusResult:
+    if not isinstance(probe, Disc):
+        raise InputError("--focus: a focus is modelled for discs (a spherical lens) in this "
+                         "version, not for rectangles")
+    big_f = float(focus.focal_length)
+    a = 0.5 * probe.diameter
+    if not math.isfinite(big_f) or big_f <= a:
+        raise InputError(f"focus: {big_f * 1e3:g} mm is not allowed; a focal length must lie in "
+                         f"front of the element, beyond its radius ({a * 1e3:g} mm)")
+    lam = water.speed / probe.frequency
+    n_w = in_water.near_field or in_water.near_field_simple
+    s = setups.normalised_focal_length(big_f, n_w)
+    if s >= 1:
+        warnings.append(f"S = F/N = {s:.2f} is not below 1: focusing does nothing useful, the "
+                        "beam's narrowest point lies at the near field anyway")
+    z = np.linspace(0.02 * big_f, 3.0 * big_f, 20001)
+    power = 2 if mode == "pulse-echo" else 1
+    amp = setups.focused_disc_axial_pressure(z, probe.diameter, big_f, lam) ** power
+    i = int(np.argmax(amp))
+    target = amp[i] * 10 ** (-level / 20)
+    above = amp >= target
+    lo = i
+    while lo > 0 and above[lo - 1]:
+        lo -= 1
+    hi = i
+    while hi < z.size - 1 and above[hi + 1]:
+        hi += 1
+    zone = None if lo == 0 or hi == z.size - 1 else (float(z[lo]), float(z[hi]))
+    x = float(pattern.pattern_x(level, "disc", mode))
+    spot = setups.focal_spot_width(big_f, lam, probe.diameter, x)
+    rule = n_w * s * s * 2.0 / (1.0 + 0.5 * s)
+    wp = water.path
+    depth = axial = zone_part = None
+    poor = False
+    if wp > 0:
+        depth = setups.focal_depth_in_part(big_f, wp, water.speed, c_part)
+        if depth is None:
+            warnings.append(f"the focus ({_mm(big_f)} in the couplant) lies in the water path "
+                            f"({_mm(wp)}): it never reaches the part")
+        else:
+            rim = a / big_f * c_part / water.speed  # sine of the rim ray's angle in the part
+            poor = rim >= 1 or math.degrees(math.asin(rim)) > 20
+            if poor:
+                warnings.append("the paraxial focal depth in the part is a poor estimate: the "
+                                "rim rays refract steeply (or totally reflect) at the surface")
+        if z[i] > wp:
+            axial = (float(z[i]) - wp) * water.speed / c_part
+        if zone is not None and zone[0] > wp:
+            zone_part = tuple((v - wp) * water.speed / c_part for v in zone)
+    return FocusResult(s, float(z[i]), spot, zone, rule, depth, axial, zone_part, poor)

@@ -1,0 +1,141 @@
+"""Angle-beam wedges, immersion and focus through ``beamspread beam``."""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+import scipy.optimize
+import scipy.special
+
+# ISO 22232-2:2020 reference steel 5920 / 3255 m/s; acrylic wedges 2730 m/s (common practice).
+STEEL = ("--material", "reference-steel")
+PROBE = ("--diameter", "12.7mm", "--frequency", "2.25MHz")
+CL, CS, ACRYLIC = 5920.0, 3255.0, 2730.0
+
+
+@pytest.mark.parametrize("beta", [45, 60, 70])
+def test_wedge_refraction_for_nominal_shear_angles(run, beta):
+    data = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--refracted", str(beta),
+               "--wedge-path", "10mm", "--far-field-only", "--json").json()
+    r = data["refraction"]
+    # Snell's law: sin(alpha)/c_wedge = sin(beta)/c_S; critical angles asin(c_w/c_L|S).
+    assert math.sin(math.radians(r["incident_deg"])) / ACRYLIC == pytest.approx(
+        math.sin(math.radians(beta)) / CS)
+    assert r["refracted_deg"]["shear"] == pytest.approx(beta)
+    assert r["refracted_deg"]["longitudinal"] is None
+    assert r["critical_deg"]["first"] == pytest.approx(math.degrees(math.asin(ACRYLIC / CL)))
+    assert r["critical_deg"]["second"] == pytest.approx(math.degrees(math.asin(ACRYLIC / CS)))
+    assert data["medium"]["wave"] == "shear"
+    assert data["medium"]["longitudinal_m_s"] == CL and data["medium"]["shear_m_s"] == CS
+    # the effective aperture and near field (common practice)
+    alpha = math.radians(r["incident_deg"])
+    assert data["effective_aperture_m"] == pytest.approx(
+        0.0127 * math.cos(math.radians(beta)) / math.cos(alpha))
+
+
+def test_wedge_legs_sound_paths_and_surface_distances(run):
+    data = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "60",
+               "--thickness", "25mm", "--depth", "15mm", "--far-field-only", "--json").json()
+    spots = data["planes"][0]["spots"]
+    beta = math.radians(60)
+    by_leg = {s["leg"]: s for s in spots if s["level_db"] == -6}
+    # geometry of the unfolded beam path: leg 1 down to d, leg 2 down to 2t - d
+    assert by_leg[1]["sound_path_m"] == pytest.approx(0.015 / math.cos(beta))
+    assert by_leg[1]["surface_distance_m"] == pytest.approx(0.015 * math.tan(beta))
+    assert by_leg[2]["sound_path_m"] == pytest.approx(0.035 / math.cos(beta))
+    theta = math.radians(data["planes"][0]["half_angle_deg"]["-6"])
+    assert by_leg[1]["footprint_m"] == pytest.approx(
+        0.015 * (math.tan(beta + theta) - math.tan(beta - theta)))
+
+
+def test_normal_incidence_wedge_is_the_contact_beam(run):
+    # The first tool's contact result in the limit of a normal-incidence wedge with no path.
+    common = ("--diameter", "10mm", "--frequency", "5MHz", *STEEL, "--depth", "30mm",
+              "--depth", "80mm")
+    contact = run("beam", *common, "--json").json()
+    wedged = run("beam", *common, "--wave", "longitudinal", "--wedge-speed", "2730",
+                 "--incident", "0", "--wedge-path", "0", "--json").json()
+    a = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+         for s in contact["planes"][0]["spots"]}
+    b = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+         for s in wedged["planes"][0]["spots"]}
+    assert a.keys() == b.keys()
+    for key, width in a.items():
+        assert b[key] == pytest.approx(width, rel=1e-5), key
+    assert wedged["near_field_in_part_m"] == pytest.approx(contact["near_field_m"], rel=1e-6)
+
+
+def test_vanishing_water_path_is_the_contact_beam(run):
+    # A zero water path in a couplant equal to the part: the first tool's contact result.
+    common = ("--diameter", "10mm", "--frequency", "2MHz", "--material", "water",
+              "--temperature", "20", "--depth", "30mm", "--depth", "90mm")
+    contact = run("beam", *common, "--json").json()
+    immersed = run("beam", *common, "--water-path", "0", "--json").json()
+    a = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+         for s in contact["planes"][0]["spots"]}
+    b = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+         for s in immersed["planes"][0]["spots"]}
+    for key, width in a.items():
+        assert b[key] == pytest.approx(width, rel=1e-6), key
+
+
+def test_immersion_near_field_relation_and_transmission(run):
+    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path",
+               "40mm", "--temperature", "20", "--far-field-only", "--json").json()
+    c_w = data["couplant"]["speed_m_s"]
+    lam = c_w / 5e6
+    n_water = (0.0127**2 - lam**2) / (4 * lam)  # Kinsler & Frey's last maximum
+    # common practice: N_part = (N_water - WP) c_water / c_part
+    assert data["near_field_in_part_m"] == pytest.approx((n_water - 0.040) * c_w / CL)
+    # 2 Z2 / (Z1 + Z2) at normal incidence, water about 1.48 MRayl into steel 46.5 MRayl
+    assert data["transmission_coefficient"] == pytest.approx(1.94, abs=0.01)
+
+
+def test_focus_spot_and_normalised_length(run):
+    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", "--material", "water",
+               "--temperature", "20", "--focus", "50mm", "--far-field-only", "--json").json()
+    f = data["focus"]
+    lam = data["wavelength_m"]
+    n = (0.0127**2 - lam**2) / (4 * lam)
+    assert f["normalised_focal_length"] == pytest.approx(0.05 / n)
+    # O'Neil (1949): pulse-echo -6 dB spot 2 x F lambda / (pi D), x where (2J1(x)/x)^2 = 1/2
+    # (scipy), about 1.03 F lambda / D.
+    x = scipy.optimize.brentq(lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20),
+                              0.1, 3.8)
+    assert f["spot_width_m"] == pytest.approx(2 * x * 0.05 * lam / (math.pi * 0.0127), rel=1e-9)
+    # O'Neil: the true on-axis maximum lies short of the geometric focus, inside the zone.
+    assert f["axial_maximum_m"] < 0.05
+    assert f["zone_m"][0] < f["axial_maximum_m"] < f["zone_m"][1]
+
+
+def test_focus_after_a_water_path(run):
+    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path",
+               "20mm", "--focus", "50mm", "--far-field-only", "--json").json()
+    c_w = data["couplant"]["speed_m_s"]
+    # paraxial focal depth in the part (F - WP) c_water / c_part (common practice)
+    assert data["focus"]["focal_depth_in_part_m"] == pytest.approx(0.030 * c_w / CL)
+
+
+@pytest.mark.parametrize(("args", "needle"), [
+    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "95"), "90 degrees"),
+    ((*PROBE, *STEEL, "--wedge", "acrylic", "--incident", "60"), "critical"),
+    ((*PROBE, *STEEL, "--wedge-speed", "7000", "--refracted", "45"), "largest reachable"),
+    ((*PROBE, *STEEL, "--wedge", "acrylic"), "--incident"),
+    ((*PROBE, *STEEL, "--wedge", "unobtainium", "--refracted", "45"), "unobtainium"),
+    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--thickness", "10mm",
+      "--depth", "12mm"), "below the part"),
+    ((*PROBE, *STEEL, "--water-path", "3m"), "water path"),
+    ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "5mm"), "focal length"),
+    ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "-5mm"), "--focus"),
+    (("--length", "10", "--width", "5", "--frequency", "5", *STEEL, "--water-path", "20mm",
+      "--focus", "50mm"), "discs"),
+    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--water-path", "10mm"),
+     "not both"),
+    ((*PROBE, *STEEL, "--refracted", "45"), "--wedge"),
+])
+def test_setup_bad_input(run, args, needle):
+    r = run("beam", *args)
+    assert r.code == 2, (r.stdout, r.stderr)
+    lines = r.stderr.strip().splitlines()
+    assert len(lines) == 1 and needle in lines[0], lines
