@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 import re
 import shlex
 from pathlib import Path
@@ -28,13 +29,13 @@ def test_readme_console_blocks_match_the_tool(run, args, expected):
     assert produced[: len(expected)] == expected
 
 
-def test_readme_sonar_figures(run):
-    # The figures quoted in the README's hobbyist example come from this command.
+def test_readme_sonar_footprint_follows_the_cone(run):
+    # The footprint the README shows at 30 m is 2 D tan(half-angle) of the -3 dB cone
+    # (geometry), as the JSON of the same command gives it.
     data = run("beam", "--diameter", "25mm", "--frequency", "200kHz", "--material", "seawater",
-               "--temperature", "12", "--condition", "salinity=34", "--condition", "depth=15m",
-               "--depth", "30m", "--level", "3", "--level", "10", "--one-way", "--json").json()
-    plane = data["planes"][0]
-    text = README.read_text(encoding="utf-8")
-    assert f"{plane['half_angle_deg']['-3']:.2f}°" in text
-    assert f"a {2 * plane['half_angle_deg']['-3']:.1f}° cone" in text
-    assert f"{plane['spots'][0]['width_m']:.2f} m across" in text
+               "--temperature", "12", "--condition", "salinity=34", "--sonar", "--bottom-depth",
+               "30m", "--far-field-only", "--json").json()
+    half = data["planes"][0]["half_angle_deg"]["-3"]
+    width = 2 * 30.0 * math.tan(math.radians(half))
+    assert data["footprints"][0]["width_m"] == pytest.approx(width)
+    assert f"{width:.2f} m" in README.read_text(encoding="utf-8")

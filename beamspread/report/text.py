@@ -68,7 +68,8 @@ def _sonar_lines(di, absorption, figures, units) -> list[str]:
         rows.append(["directivity index", f"{di:.2f} dB",
                      figures.directivity_method if figures else ""])
     if absorption is not None:
-        rows.append(["absorption", f"{absorption.db_per_km:.4g} dB/km", absorption.source])
+        rows.append(["absorption", f"{absorption.db_per_km:.4g} dB/km",
+                     absorption.source.split(":")[0]])
     if figures is not None:
         rows.append(["far-field (Rayleigh) distance", format_length(figures.rayleigh_distance,
                                                                      units), "area / wavelength"])
