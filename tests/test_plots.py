@@ -1,0 +1,220 @@
+"""Pictures: each format written and not blank, what is drawn agrees with the numbers, bad paths.
+
+The numbers a picture must agree with come from the field engine
+(:func:`beamspread.field.beam_widths`), not from the picture code: the test
+finds the drawn -6 dB contour in the saved PNG's pixels and compares it with
+the computed width at the depth of that pixel row.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+import zlib
+
+import numpy as np
+import pytest
+
+from beamspread.axis import disc_near_field
+from beamspread.errors import InputError
+from beamspread.field import (
+    axial_profile,
+    beam_widths,
+    field_map,
+    last_maximum,
+    transverse_profile,
+)
+from beamspread.probes import Disc, Rectangle
+from beamspread.report import plots
+
+SPEED = 5920.0  # m/s, an invented steel
+DISC = Disc(0.010, 5e6)
+LAM = SPEED / DISC.frequency
+NEAR = float(disc_near_field(DISC.diameter, LAM))
+
+
+@pytest.fixture(scope="module")
+def beam_map():
+    return field_map(DISC, SPEED, np.linspace(-0.012, 0.012, 128),
+                     np.linspace(0.1 * NEAR, 3 * NEAR, 256))
+
+
+def _pictures(beam_map):
+    """One call per picture: name -> function(path)."""
+    rect = Rectangle(0.02, 0.01, 5e6)
+    profiles = [transverse_profile(rect, SPEED, 0.08, np.linspace(-0.012, 0.012, 121), plane=n)
+                for n in ("length", "width")]
+    widths = {n: beam_widths(rect, SPEED, 0.08, [6, 20], plane=n) for n in ("length", "width")}
+    axial = axial_profile(DISC, SPEED, np.linspace(0.05 * NEAR, 3 * NEAR, 300))
+    edges = tuple(plots.BeamEdge.from_half_angle(level, math.radians(angle), 0.1,
+                                                 start_width=0.006)
+                  for level, angle in ((6, 5.0), (20, 9.0)))
+    section = plots.SectionGeometry(0.025, math.radians(45), 0.0, edges, flaw_depth=0.015)
+    caption = "Invented example: disc 10 mm, 5 MHz, 5920 m/s, pulse-echo, continuous wave"
+    return {
+        "map": lambda p: plots.plot_map(beam_map, p, near_field=NEAR, depths=[0.04],
+                                        caption=caption),
+        "axis": lambda p: plots.plot_axis(axial, p, near_field=NEAR,
+                                          axial_maximum=last_maximum(DISC, SPEED),
+                                          caption=caption),
+        "across": lambda p: plots.plot_across(profiles, widths, p, caption=caption,
+                                              units="in"),
+        "polar": lambda p: plots.plot_directivity(dict(DISC.planes), LAM, "disc", p,
+                                                  caption=caption),
+        "cartesian": lambda p: plots.plot_directivity(dict(rect.planes), LAM, "rectangle", p,
+                                                      polar=False, levels_db=(6, 20)),
+        "section": lambda p: plots.plot_section(section, p, caption=caption),
+        "footprint": lambda p: plots.plot_footprint(
+            [5.0, 10.0, 20.0], {3: [0.8, 1.6, 3.2], "-10 dB, length plane": [1.4, 2.8, 5.6]},
+            p, near_field=2.0, caption="Invented widths"),
+    }
+
+
+NAMES = ["map", "axis", "across", "polar", "cartesian", "section", "footprint"]
+
+
+def _read_png(path) -> np.ndarray:
+    from matplotlib.image import imread
+
+    return imread(str(path))
+
+
+@pytest.mark.parametrize("name", NAMES)
+@pytest.mark.parametrize("suffix", [".png", ".svg", ".pdf"])
+def test_each_picture_in_each_format_is_written_and_not_blank(tmp_path, beam_map, name,
+                                                              suffix):
+    target = tmp_path / f"{name}{suffix}"
+    written = _pictures(beam_map)[name](target)
+    assert written == target and target.is_file()
+    assert [p.name for p in tmp_path.iterdir()] == [target.name]  # no temporary left
+    data = target.read_bytes()
+    if suffix == ".png":
+        image = _read_png(target)
+        assert image.shape[:2] == (round(4.5 * plots.DPI), round(7 * plots.DPI)) or (
+            name == "section")
+        colours = np.unique((image[..., :3] * 255).astype(np.uint8).reshape(-1, 3), axis=0)
+        assert len(colours) > 200
+    elif suffix == ".svg":
+        text = data.decode("utf-8")
+        assert text.lstrip().startswith("<?xml") and "<svg" in text
+        assert len(re.findall(r"<path ", text)) > 20
+    else:
+        assert data.startswith(b"%PDF")
+        streams = re.findall(rb"stream\r?\n(.*?)endstream", data, re.S)
+        content = b"".join(zlib.decompress(s) if s[:1] == b"x" else s for s in streams)
+        assert content.count(b" l") + content.count(b" c") > 50  # lines and curves drawn
+
+
+def _dark_runs(row: np.ndarray) -> list[float]:
+    """Centres of runs of near-black pixels in one PNG row."""
+    dark = row[:, :3].sum(axis=1) < 0.45
+    centres, start = [], None
+    for i, flag in enumerate([*dark, False]):
+        if flag and start is None:
+            start = i
+        elif not flag and start is not None:
+            centres.append(0.5 * (start + i - 1))
+            start = None
+    return centres
+
+
+@pytest.mark.parametrize("depth_mm", [30.0, 37.0, 43.0, 50.0, 58.0])
+def test_the_map_contour_crosses_each_depth_at_the_computed_width(tmp_path, beam_map,
+                                                                  depth_mm):
+    fig = plots.map_figure(beam_map, levels_db=(6, 20), near_field=NEAR, depths=[0.04])
+    path = plots.save_figure(fig, tmp_path / "map.png")
+    image = _read_png(path)
+    ax = next(a for a in fig.axes if a.images)  # the map, as laid out when it was saved
+    height = image.shape[0]
+    # The pixel row nearest the depth, and the depth that row shows (mm -> m).
+    _, y = ax.transData.transform((0.0, depth_mm))
+    row = round(height - y - 0.5)
+    depth = ax.transData.inverted().transform((0.0, height - row - 0.5))[1] * 1e-3
+    width = beam_widths(DISC, SPEED, depth, [6.0])[0].width
+    expected = [ax.transData.transform((side * width / 2 * 1e3, 0.0))[0] - 0.5
+                for side in (-1, 1)]
+    runs = _dark_runs(image[row])
+    for x in expected:
+        nearest = min(runs, key=lambda c: abs(c - x))
+        assert abs(nearest - x) <= 2.0, (depth, x, nearest)
+
+
+def test_the_depth_line_and_the_near_field_are_where_asked(beam_map):
+    fig = plots.new_figure()
+    ax = fig.add_subplot()
+    drawn = plots.draw_map(ax, beam_map, near_field=NEAR, depths=[0.04], units="in")
+    assert drawn.depth_lines[0].get_ydata()[0] == pytest.approx(0.04 / 0.0254)
+    assert drawn.near_field.get_ydata()[0] == pytest.approx(NEAR / 0.0254)
+    assert set(drawn.contours) == {6.0, 20.0}
+    assert ax.get_ylim()[0] > ax.get_ylim()[1]  # depth grows downward
+    assert "in" in ax.get_xlabel() and "in" in ax.get_ylabel()
+
+
+def test_section_footprint_is_where_the_edges_cross_the_flaw_depth():
+    # Far-field cone edges from the exit point: at unfolded depth d along an axis at
+    # beta from the normal, the edges at beta -+ theta meet the depth at d tan(beta -+ theta).
+    beta, theta, d, t = math.radians(45), math.radians(6), 0.015, 0.025
+    edge = plots.BeamEdge.from_half_angle(6, theta, 0.2)
+    g = plots.SectionGeometry(t, beta, 0.002, (edge,), flaw_depth=d)
+    one, two = plots.section_footprints(g)
+    # Edges leave at beta -+ theta only approximately for a cone of width 2 s tan(theta)
+    # measured across the axis; compute the exact crossing of the offset line instead.
+    def crossing(depth, side):
+        # x = s sin b + o cos b, y = s cos b - o sin b, o = side s tan(theta)
+        s = depth / (math.cos(beta) - side * math.tan(theta) * math.sin(beta))
+        return 0.002 + s * math.sin(beta) + side * s * math.tan(theta) * math.cos(beta)
+    assert (one.near, one.far) == pytest.approx((crossing(d, -1), crossing(d, 1)), abs=1e-9)
+    assert (two.near, two.far) == pytest.approx(
+        sorted([crossing(2 * t - d, -1), crossing(2 * t - d, 1)]), abs=1e-9)
+    assert one.sound_path == pytest.approx(d / math.cos(beta))
+    assert two.surface_distance == pytest.approx((2 * t - d) * math.tan(beta))
+
+
+@pytest.mark.parametrize("name", NAMES)
+def test_bad_suffix_and_missing_folder_leave_nothing(tmp_path, beam_map, name):
+    draw = _pictures(beam_map)[name]
+    with pytest.raises(InputError, match=r"\.png, \.svg, \.pdf"):
+        draw(tmp_path / "picture.jpg")
+    with pytest.raises(InputError, match="does not exist"):
+        draw(tmp_path / "missing" / "picture.png")
+    assert list(tmp_path.iterdir()) == []
+
+
+def test_a_failure_while_saving_leaves_nothing(tmp_path, monkeypatch, beam_map):
+    fig = plots.map_figure(beam_map)
+
+    def broken(*args, **kwargs):
+        raise RuntimeError("disk full")
+
+    monkeypatch.setattr(fig, "savefig", broken)
+    target = tmp_path / "map.pdf"
+    target.write_bytes(b"old")
+    with pytest.raises(RuntimeError):
+        plots.save_figure(fig, target)
+    assert [p.name for p in tmp_path.iterdir()] == ["map.pdf"]
+    assert target.read_bytes() == b"old"
+
+
+def test_bad_inputs_are_refused(tmp_path, beam_map):
+    with pytest.raises(InputError, match="units"):
+        plots.plot_map(beam_map, tmp_path / "m.png", units="cm")
+    with pytest.raises(InputError, match="level"):
+        plots.plot_map(beam_map, tmp_path / "m.png", levels_db=(0,))
+    with pytest.raises(InputError, match="shape"):
+        plots.plot_directivity({"x": 0.01}, LAM, "hexagon", tmp_path / "d.png")
+    with pytest.raises(InputError, match="flaw depth"):
+        plots.SectionGeometry(0.02, 0.5, flaw_depth=0.03)
+    with pytest.raises(InputError, match="widths"):
+        plots.plot_footprint([1.0, 2.0], {3: [0.5]}, tmp_path / "f.png")
+    assert list(tmp_path.iterdir()) == []
+
+
+def test_matplotlib_is_not_imported_by_the_module_alone():
+    import subprocess
+    import sys
+
+    code = ("import sys, beamspread.report.plots, beamspread.scan, beamspread.setupfile; "
+            "print('matplotlib' in sys.modules)")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
+                         check=True).stdout.strip()
+    assert out == "False"
