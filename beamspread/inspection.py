@@ -106,6 +106,46 @@ class SetupResult:
     transmission: float | None = None  # pressure, couplant to part, normal incidence
     focus: FocusResult | None = None
     warnings: tuple[str, ...] = ()
+    virtual: Disc | Rectangle | Ellipse | None = None  # the element as the part sees it
+    offset: float = 0.0  # m: how far the virtual element sits behind the exit point
+
+    def edges(self, path_length: float, field: FieldSettings | None, *, samples: int = 24):
+        """The beam's full width in the incidence plane along the sound path, per level.
+
+        Returns ``{level_db: (sound_paths, widths)}``, m: from the computed field
+        of the virtual element when ``field`` is given, else the far-field cone
+        leaving the exit point at the element's effective aperture.
+        """
+        if self.virtual is None:
+            raise InputError("the beam's edges along the path need a wedge setup")
+        plane = self.virtual.planes[0][0]
+        beam = self.beam
+        paths = np.linspace(0.0, path_length, samples)
+        out = {}
+        if field is None:
+            start = self.virtual.planes[0][1]
+            half = beam.planes[0].half_angles
+            for level in beam.levels:
+                angle = half[level_key(level)]
+                if angle is not None:
+                    widths = start + 2.0 * paths * math.tan(math.radians(angle))
+                    out[level] = (tuple(paths), tuple(widths))
+            return out
+        from .field import beam_widths
+
+        first = max(0.05 * (beam.near_field or beam.near_field_simple or path_length), 1e-4)
+        paths = np.linspace(first, path_length, samples)
+        table = {level: [] for level in beam.levels}
+        for s in paths:
+            for w in beam_widths(self.virtual, beam.wave.speed, s + self.offset, beam.levels,
+                                 plane=plane, bandwidth=field.bandwidth,
+                                 mode=beam.convention.mode, frequencies=field.frequencies,
+                                 spectrum=field.spectrum):
+                table[w.level_db].append(w.width)
+        for level, widths in table.items():
+            if all(math.isfinite(w) for w in widths):
+                out[level] = (tuple(paths), tuple(widths))
+        return out
 
 
 def _deg(rad: float) -> str:
@@ -265,7 +305,8 @@ def analyse_wedge(
 
         beam = replace(beam, field=FieldSummary(field, None))
     return SetupResult(beam, "wedge", refraction=r, effective_aperture=inc,
-                       near_field_in_part=near, warnings=tuple(warnings))
+                       near_field_in_part=near, warnings=tuple(warnings), virtual=virtual,
+                       offset=offset)
 
 
 def analyse_immersion(

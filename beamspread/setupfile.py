@@ -15,7 +15,7 @@ The format is beamspread's own. Quantities are strings with their unit
 
     [medium]
     material = "reference-steel"   # or: speed = "5920 m/s"
-    wave = "longitudinal"          # or "shear"
+    wave = "longitudinal"          # or "shear" (default: longitudinal; shear on a wedge)
     temperature = "20 degC"        # optional, with a material
     conditions = { salinity = "35", depth = "30 m" }   # optional, as the medium declares
 
@@ -197,7 +197,7 @@ class Setup:
     focus: str | None = None
     material: str | None = None
     speed: str | None = None
-    wave: str = "longitudinal"
+    wave: str | None = None  # None: the command's default (longitudinal; shear on a wedge)
     temperature: str | None = None
     conditions: tuple[tuple[str, str], ...] = ()
     wedge: str | None = None
@@ -495,3 +495,8 @@ def save_setup(setup: Setup, path: str | os.PathLike, *, force: bool = False) ->
         Path(temporary).unlink(missing_ok=True)
         raise
     return target
+
+
+def recordable_options() -> frozenset[str]:
+    """The command-line options a setup file records (with the mode flags)."""
+    return frozenset([*_BY_OPTION, *_MODE_FLAGS])

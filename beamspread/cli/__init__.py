@@ -26,6 +26,9 @@ _COMMANDS = {
     "map": "beamspread.cli.field:map_",
     "materials": "beamspread.cli.materials:materials",
     "plugins": "beamspread.cli.plugins:plugins",
+    "report": "beamspread.cli.report:report",
+    "scan-plan": "beamspread.cli.scan:scan_plan",
+    "section": "beamspread.cli.section:section",
     "size": "beamspread.cli.size:size",
 }
 
@@ -64,6 +67,12 @@ class _Group(click.Group):
     def main(self, args=None, prog_name=None, complete_var=None, standalone_mode=True, **extra):
         debug = os.environ.get("BEAMSPREAD_DEBUG") == "1"
         try:
+            args = list(sys.argv[1:] if args is None else args)
+            if args and args[0] in _COMMANDS and any(
+                    a.startswith(("--setup", "--save")) for a in args[1:]):
+                from .setupargs import expand
+
+                args = [args[0], *expand(self.get_command(None, args[0]), args[1:])]
             rv = super().main(args, prog_name or "beamspread", complete_var,
                               standalone_mode=False, **extra)
         except click.UsageError as exc:

@@ -16,6 +16,7 @@ from .options import (
     resolve_wave,
 )
 from .params import ANGLE, DEPTHS, LENGTH, LEVEL, PATH_LENGTH, SPEED
+from .setupargs import setup_file_options
 
 
 def setup_options(f):
@@ -69,13 +70,17 @@ def setup_options(f):
               help="Electro-acoustic efficiency for the echo budget.")
 @click.option("--bottom-loss", type=float, default=10.0, show_default=True, metavar="DB",
               help="Reflection loss of the bottom for the echo budget.")
+@click.option("--plot", "plot_path", type=click.Path(dir_okay=False), default=None,
+              help="Draw to FILE (.png, .svg, .pdf): the far-field directivity, or with "
+              "--bottom-depth the footprint on the bottom.")
+@setup_file_options
 @output_options
 @pass_output
 def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, depths, levels, pulse_echo, bandwidth, spectrum, frequency_count,
          far_field_only, wedge, wedge_speed, incident, refracted, wedge_path, thickness,
-         water_path, couplant, focus, sonar, bottom_depths, power, efficiency, bottom_loss, fmt,
-         units):
+         water_path, couplant, focus, sonar, bottom_depths, power, efficiency, bottom_loss,
+         plot_path, setup_path, save_path, fmt, units):
     """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
@@ -94,6 +99,10 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
 
     probe = make_probe(diameter, length, width, frequency)
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
+    if plot_path is not None:
+        from ..report.plots import check_target
+
+        check_target(plot_path)
     on_wedge = wedge is not None or wedge_speed is not None
     immersed = water_path is not None or focus is not None
     if on_wedge and immersed:
@@ -113,6 +122,7 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
         from .setup import run_setup
 
         return run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
+                         plot_path=plot_path,
                          wedge=wedge, wedge_speed=wedge_speed, incident=incident,
                          refracted=refracted, wedge_path=wedge_path, thickness=thickness,
                          water_path=water_path, couplant=couplant, focus=focus,
@@ -136,6 +146,8 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
                                   bottom_loss, warnings)
     di = figures.directivity_index_db if figures else directivity_index(probe,
                                                                          result.wavelength)
+    if plot_path is not None:
+        _plot(plot_path, result, figures, units)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import beam_to_dict, dumps, sonar_to_dict
@@ -186,3 +198,35 @@ def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss
                                bottom_loss_db=bottom_loss, constant=constant)
                    for depth in bottoms]
     return figures, budgets
+
+
+def caption_of(result) -> str:
+    """A one-line caption naming the inputs of a result, for pictures."""
+    from ..probes import Disc
+
+    p, w = result.probe, result.wave
+    size = (f"disc {p.diameter * 1e3:g} mm" if isinstance(p, Disc)
+            else f"rectangle {p.length * 1e3:g} x {p.width * 1e3:g} mm")
+    where = "given speed" if w.medium == "given" else w.medium
+    return (f"{size}, {p.frequency / 1e6:g} MHz; {where}, {w.wave} {w.speed:.1f} m/s; "
+            f"{result.convention.mode}; beamspread model estimate")
+
+
+def _plot(path, result, figures, units):
+    from ..report import plots
+
+    if figures is not None and figures.footprints:
+        depths = sorted({f.depth for f in figures.footprints})
+        first = result.planes[0].name
+        by_level = {}
+        for f in figures.footprints:
+            if f.plane == first:
+                by_level.setdefault(-f.level_db, []).append(f.width)
+        plots.plot_footprint(depths, by_level, path, near_field=result.near_field,
+                             mode=result.convention.mode, caption=caption_of(result),
+                             units="m" if units == "mm" else "ft")
+    else:
+        shape = "disc" if result.probe.shape == "disc" else "rectangle"
+        plots.plot_directivity(dict(result.probe.planes), result.wavelength, shape, path,
+                               levels_db=result.levels, caption=caption_of(result))
+    click.echo(f"beamspread: drew {path}", err=True)

@@ -20,6 +20,29 @@ from .options import (
     resolve_wave,
 )
 from .params import LENGTH, LEVEL
+from .setupargs import setup_file_options
+
+
+def _plot_option(f):
+    return click.option("--plot", "plot_path", type=click.Path(dir_okay=False), default=None,
+                        help="Also draw to FILE (.png, .svg, .pdf).")(f)
+
+
+def _check_plot(path):
+    if path is not None:
+        from ..report.plots import check_target
+
+        check_target(path)
+
+
+def _caption(probe, wave, settings, mode):
+    from ..report.text import field_description
+
+    size = (f"disc {probe.diameter * 1e3:g} mm" if probe.shape == "disc"
+            else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm")
+    where = "given speed" if wave.medium == "given" else wave.medium
+    return (f"{size}, {probe.frequency / 1e6:g} MHz; {where}, {wave.wave} {wave.speed:.1f} m/s; "
+            f"{field_description(settings, mode)}; beamspread model estimate")
 
 MAX_PROFILE_POINTS = 100_000
 MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in bounded blocks
@@ -77,11 +100,13 @@ def _check_validity(warnings, start, near_simple):
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
 @field_options
+@_plot_option
+@setup_file_options
 @output_options
 @pass_output
 def axis(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, start, stop, points, bandwidth, spectrum, frequency_count, pulse_echo,
-         fmt, units):
+         plot_path, setup_path, save_path, fmt, units):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -92,6 +117,7 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
 
     from ..field import axial_profile, last_maximum
 
+    _check_plot(plot_path)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
@@ -105,6 +131,12 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
     profile = axial_profile(probe, medium.speed, np.linspace(start, stop, points), **kwargs)
     axial = last_maximum(probe, medium.speed, **kwargs)
     axial = None if np.isnan(axial) else axial
+    if plot_path is not None:
+        from ..report.plots import plot_axis
+
+        plot_axis(profile, plot_path, near_field=near, axial_maximum=axial,
+                  caption=_caption(probe, medium, settings, mode), units=units)
+        click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import axial_to_dict, dumps
@@ -136,17 +168,20 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
               help="Levels for the widths (dB below the maximum at this depth); default 6 "
               "and 20.")
 @field_options
+@_plot_option
+@setup_file_options
 @output_options
 @pass_output
 def across(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
            materials_dirs, depth, plane, span, points, levels, bandwidth, spectrum,
-           frequency_count, pulse_echo, fmt, units):
+           frequency_count, pulse_echo, plot_path, setup_path, save_path, fmt, units):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
     from ..beam import DEFAULT_LEVELS
     from ..field import beam_widths, transverse_profile
 
+    _check_plot(plot_path)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
@@ -169,6 +204,12 @@ def across(diameter, length, width, frequency, material, wave, speed, temperatur
                                            **kwargs))
         widths[name] = beam_widths(probe, medium.speed, depth, levels or DEFAULT_LEVELS,
                                    plane=name, **kwargs)
+    if plot_path is not None:
+        from ..report.plots import plot_across
+
+        plot_across(profiles, widths, plot_path, caption=_caption(probe, medium, settings, mode),
+                    units=units)
+        click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import across_to_dict, dumps
@@ -217,9 +258,14 @@ def _write_atomically(path: Path, write) -> None:
               help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).")
 @click.option("--force", is_flag=True, help="Overwrite an existing --output file.")
 @click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
+@_plot_option
+@click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True,
+              help="Lengths on the picture.")
+@setup_file_options
 def map_(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, plane, start, stop, span, depth_points, lateral_points, bandwidth,
-         spectrum, frequency_count, pulse_echo, output, force, as_json):
+         spectrum, frequency_count, pulse_echo, output, force, as_json, plot_path, units,
+         setup_path, save_path):
     """A 2-D map of the computed amplitude in a plane through the axis.
 
     \b
@@ -249,6 +295,7 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
         raise click.UsageError(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory")
+    _check_plot(plot_path)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
@@ -269,6 +316,16 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
                        np.linspace(start, stop, depth_points), plane=plane,
                        bandwidth=settings.bandwidth, mode=mode,
                        frequencies=settings.frequencies, spectrum=settings.spectrum)
+    if plot_path is not None:
+        from ..report.plots import plot_map
+
+        near, _ = _near_fields(probe, wavelength)
+        plot_map(result, plot_path, near_field=near if settings.bandwidth == 0 else None,
+                 caption=_caption(probe, medium, settings, mode), units=units)
+        click.echo(f"beamspread: drew {plot_path}", err=True)
+        if target is None:  # the picture was what was asked for
+            emit_warnings(warnings)
+            return
     emit_warnings(warnings)
     from ..report import serialize
 

@@ -31,7 +31,8 @@ def _part_speeds(resolved):
     return tuple(speeds)
 
 
-def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units, *, wedge,
+def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units, *, plot_path,
+              wedge,
               wedge_speed, incident, refracted, wedge_path, thickness, water_path, couplant,
               focus, temperature, materials_dirs):
     from ..beam import DEFAULT_LEVELS
@@ -75,6 +76,8 @@ def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
                               "path_m": water.path}}
     warnings.extend(result.warnings)
     warnings = list(dict.fromkeys(warnings))
+    if plot_path is not None:
+        _plot(plot_path, result, settings, thickness, depths, units)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import beam_to_dict, dumps, setup_to_dict
@@ -96,3 +99,24 @@ def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
         table = beam_table(result.beam, units).split("\n")
         head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
         click.echo("\n".join(table[:head] + setup_lines(result, extra, units) + table[head:]))
+
+
+def _plot(path, result, settings, thickness, depths, units):
+    """A wedge with a thickness: the section; otherwise the directivity in the part."""
+    from ..report import plots
+    from .beam import caption_of
+
+    if result.refraction is not None and thickness is not None:
+        from .section import section_geometry
+
+        geometry = section_geometry(result, thickness, depths[0] if depths else None,
+                                    settings, None)
+        plots.plot_section(geometry, path, caption=caption_of(result.beam), units=units)
+    else:
+        beam = result.beam
+        probe = result.virtual or beam.probe
+        shape = "disc" if probe.shape in ("disc", "ellipse") else "rectangle"
+        planes = {pl.name: pl.aperture for pl in beam.planes}
+        plots.plot_directivity(planes, beam.wavelength, shape, path, levels_db=beam.levels,
+                               caption=caption_of(beam))
+    click.echo(f"beamspread: drew {path}", err=True)
