@@ -139,3 +139,11 @@ def test_setup_bad_input(run, args, needle):
     assert r.code == 2, (r.stdout, r.stderr)
     lines = r.stderr.strip().splitlines()
     assert len(lines) == 1 and needle in lines[0], lines
+
+
+def test_plain_beam_json_gives_both_speeds_of_the_material(run):
+    # ISO 22232-2:2020 reference steel: 5920 m/s longitudinal, 3255 m/s shear.
+    data = run("beam", *PROBE, *STEEL, "--far-field-only", "--json").json()
+    assert data["medium"]["longitudinal_m_s"] == CL and data["medium"]["shear_m_s"] == CS
+    water = run("beam", *PROBE, "--material", "water", "--far-field-only", "--json").json()
+    assert water["medium"]["shear_m_s"] is None

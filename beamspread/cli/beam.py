@@ -153,6 +153,11 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
         from ..report.serialize import beam_to_dict, dumps, sonar_to_dict
 
         data = beam_to_dict(result)
+        from .setup import _part_speeds
+
+        if resolved.medium is not None:
+            data["medium"]["longitudinal_m_s"], data["medium"]["shear_m_s"] = (
+                _part_speeds(resolved))
         data["warnings"] = warnings
         data.update(sonar_to_dict(result, di, absorption, figures, budgets, sonar))
         click.echo(dumps(data))
@@ -208,8 +213,12 @@ def caption_of(result) -> str:
     size = (f"disc {p.diameter * 1e3:g} mm" if isinstance(p, Disc)
             else f"rectangle {p.length * 1e3:g} x {p.width * 1e3:g} mm")
     where = "given speed" if w.medium == "given" else w.medium
-    return (f"{size}, {p.frequency / 1e6:g} MHz; {where}, {w.wave} {w.speed:.1f} m/s; "
+    return (f"{size}, {frequency_text(p.frequency)}; {where}, {w.wave} {w.speed:.1f} m/s; "
             f"{result.convention.mode}; beamspread model estimate")
+
+
+def frequency_text(hertz: float) -> str:
+    return f"{hertz / 1e6:g} MHz" if hertz >= 1e6 else f"{hertz / 1e3:g} kHz"
 
 
 def _plot(path, result, figures, units):

@@ -41,7 +41,10 @@ def _caption(probe, wave, settings, mode):
     size = (f"disc {probe.diameter * 1e3:g} mm" if probe.shape == "disc"
             else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm")
     where = "given speed" if wave.medium == "given" else wave.medium
-    return (f"{size}, {probe.frequency / 1e6:g} MHz; {where}, {wave.wave} {wave.speed:.1f} m/s; "
+    from .beam import frequency_text
+
+    return (f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
+            f"{wave.speed:.1f} m/s; "
             f"{field_description(settings, mode)}; beamspread model estimate")
 
 MAX_PROFILE_POINTS = 100_000

@@ -24,6 +24,9 @@ def _part_speeds(resolved):
         return ((wave.speed, None) if wave.wave == "longitudinal" else (None, wave.speed))
     speeds = []
     for mode in ("longitudinal", "shear"):
+        if mode == wave.wave:  # already evaluated
+            speeds.append(wave.speed)
+            continue
         try:
             speeds.append(resolved.medium.evaluate(mode, resolved.conditions).speed)
         except Exception:  # a liquid, or a table without that wave
