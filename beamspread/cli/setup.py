@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import click
 
+from ..errors import BeamspreadError
 from .options import emit_warnings, load_registry
 
 
@@ -29,7 +30,7 @@ def _part_speeds(resolved):
             continue
         try:
             speeds.append(resolved.medium.evaluate(mode, resolved.conditions).speed)
-        except Exception:  # a liquid, or a table without that wave
+        except BeamspreadError:  # a liquid, or a table without that wave
             speeds.append(None)
     return tuple(speeds)
 
