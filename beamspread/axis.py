@@ -38,6 +38,7 @@ from __future__ import annotations
 
 import numpy as np
 
+from ._search import golden_max
 from .probes import check_positive
 
 __all__ = [
@@ -48,7 +49,6 @@ __all__ = [
     "simple_near_field",
 ]
 
-_GOLDEN = (np.sqrt(5.0) - 1.0) / 2.0
 
 
 def simple_near_field(aperture: np.ndarray | float, wavelength: np.ndarray | float) -> np.ndarray:
@@ -147,23 +147,6 @@ def rectangle_axial_pressure(
     return (4.0 / (2.0 * np.pi)) * np.hypot(re, im)
 
 
-def _golden_max(f, lo: float, hi: float, tol: float) -> float:
-    """Maximum of a unimodal ``f`` on [lo, hi] by golden-section search."""
-    c = hi - _GOLDEN * (hi - lo)
-    d = lo + _GOLDEN * (hi - lo)
-    fc, fd = f(c), f(d)
-    while hi - lo > tol:
-        if fc > fd:
-            hi, d, fd = d, c, fc
-            c = hi - _GOLDEN * (hi - lo)
-            fc = f(c)
-        else:
-            lo, c, fc = c, d, fd
-            d = lo + _GOLDEN * (hi - lo)
-            fd = f(d)
-    return 0.5 * (lo + hi)
-
-
 def rectangle_near_field(length: float, width: float, wavelength: float) -> float:
     """Position of the last on-axis maximum of a rectangle, m; NaN where there is none.
 
@@ -193,4 +176,4 @@ def rectangle_near_field(length: float, width: float, wavelength: float) -> floa
     def amplitude(zi: float) -> float:
         return float(rectangle_axial_pressure(zi, length, width, wavelength))
 
-    return float(_golden_max(amplitude, float(z[i - 1]), float(z[i + 1]), 1e-10 * float(z[i])))
+    return float(golden_max(amplitude, float(z[i - 1]), float(z[i + 1]), 1e-10 * float(z[i])))

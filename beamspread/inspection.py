@@ -381,8 +381,9 @@ def analyse_immersion(
                     spots.append(Spot(depth, -w.level_db, width, None, method="field",
                                       sound_path=depth, surface_distance=0.0, footprint=width))
         planes.append(PlaneResult(plane.name, plane.aperture, half, tuple(spots)))
+    direct = wp == 0 and water.speed == c_p  # a focused probe straight in the medium
     transmission = None
-    if water.density is not None and part.density is not None:
+    if not direct and water.density is not None and part.density is not None:
         transmission = setups.transmission_coefficient(water.density * c_w, part.density * c_p)
     focus_result = None
     if focus is not None:
@@ -392,10 +393,12 @@ def analyse_immersion(
     simple_part = None
     if wp < in_water.near_field_simple:
         simple_part = (in_water.near_field_simple - wp) * c_w / c_p
+    method = ("last on-axis maximum of the element in the medium" if direct else
+              "(N_water - water path) c_water / c_part (common practice)")
     beam = BeamResult(
         probe=probe, wave=part, convention=Convention(mode), levels=level_list,
         wavelength=c_p / f, near_field=near, near_field_simple=simple_part or 0.0,
-        near_field_method="(N_water - water path) c_water / c_part (common practice)",
+        near_field_method=method,
         near_field_factor=None, planes=tuple(planes), depths=depth_list,
         warnings=tuple(warnings),
     )
@@ -403,7 +406,8 @@ def analyse_immersion(
         from .beam import FieldSummary
 
         beam = replace(beam, field=FieldSummary(field, None))
-    return SetupResult(beam, "immersion", near_field_in_part=near, transmission=transmission,
+    return SetupResult(beam, "focused" if direct else "immersion", near_field_in_part=near,
+                       transmission=transmission,
                        focus=focus_result, warnings=tuple(warnings))
 
 

@@ -65,7 +65,30 @@ class Disc:
 
 
 @dataclass(frozen=True)
-class Rectangle:
+class _TwoSided:
+    """An element with a size along x (``length``) and along y (``width``)."""
+
+    length: float
+    width: float
+    frequency: float
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
+        object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
+        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+
+    @property
+    def planes(self) -> tuple[tuple[str, float], ...]:
+        """The planes of the beam, as (name, aperture in m): length (x), then width (y)."""
+        return (("length", self.length), ("width", self.width))
+
+    @property
+    def longest_side(self) -> float:
+        return max(self.length, self.width)
+
+
+@dataclass(frozen=True)
+class Rectangle(_TwoSided):
     """A flat rectangular piston.
 
     Parameters
@@ -78,29 +101,11 @@ class Rectangle:
         Centre frequency, Hz.
     """
 
-    length: float
-    width: float
-    frequency: float
-
     shape = "rectangle"
-
-    def __post_init__(self) -> None:
-        object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
-        object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
-        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
-
-    @property
-    def planes(self) -> tuple[tuple[str, float], ...]:
-        """The planes of the beam, as (name, aperture in m): length, then width."""
-        return (("length", self.length), ("width", self.width))
-
-    @property
-    def longest_side(self) -> float:
-        return max(self.length, self.width)
 
 
 @dataclass(frozen=True)
-class Ellipse:
+class Ellipse(_TwoSided):
     """A flat elliptical piston: the element a disc looks like from inside a part.
 
     A disc on an angle-beam wedge is seen from the part as an ellipse whose
@@ -117,25 +122,7 @@ class Ellipse:
         Centre frequency, Hz.
     """
 
-    length: float
-    width: float
-    frequency: float
-
     shape = "ellipse"
-
-    def __post_init__(self) -> None:
-        object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
-        object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
-        object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
-
-    @property
-    def planes(self) -> tuple[tuple[str, float], ...]:
-        """The principal planes, as (name, axis in m): length (x), then width (y)."""
-        return (("length", self.length), ("width", self.width))
-
-    @property
-    def longest_side(self) -> float:
-        return max(self.length, self.width)
 
 
 Probe = Disc | Rectangle | Ellipse

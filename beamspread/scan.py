@@ -189,8 +189,8 @@ def field_widths(probe, speed: float, start: float, stop: float, *, count: int =
     golden-section search between its neighbours, and that depth added, so
     that the governing width does not depend on the sampling.
     """
+    from ._search import golden_max
     from .field import beam_widths
-    from .field.profiles import _golden_max
 
     plane = _plane(probe, plane)
     kwargs = {"plane": plane, "bandwidth": bandwidth, "mode": mode,
@@ -206,7 +206,7 @@ def field_widths(probe, speed: float, start: float, stop: float, *, count: int =
         keys = list(out)
         i = min(range(len(keys)), key=lambda k: out[keys[k]])
         lo, hi = keys[max(0, i - 1)], keys[min(len(keys) - 1, i + 1)]
-        best = _golden_max(lambda z: -width(z), lo, hi, 1e-6 * hi)
+        best = golden_max(lambda z: -width(z), lo, hi, 1e-6 * hi)
         w = width(best)
         if math.isfinite(w) and w < out[keys[i]]:
             out[best] = w

@@ -3,7 +3,7 @@
 Francois & Garrison (1982) give a table of check values (their Table IV); we could not read
 it, so the seawater equation is checked against the independent simplified form of Ainslie &
 McColm (1998) with the agreement those authors state (about 10 %), and against the pure-water
-coefficient REFERENCES.md records.
+coefficient of Francois & Garrison's paper (from memory).
 """
 
 from __future__ import annotations
@@ -49,7 +49,7 @@ def test_francois_garrison_and_ainslie_mccolm_agree_over_depth(z):
 
 
 def test_pure_water_coefficient_is_not_the_typo():
-    # REFERENCES.md: Francois & Garrison's A3 for T <= 20 degC begins 4.937e-4 dB/(km kHz^2)
+    # Francois & Garrison (1982): A3 for T <= 20 degC begins 4.937e-4 dB/(km kHz^2) (from memory)
     # (a copy with 4.397e-4 circulates). At 0 degC and the surface the pure-water term is A3 f^2.
     _, _, water = ab.francois_garrison_terms(1e6, temperature=0.0, depth=0.0)
     assert float(water) / 1000.0**2 == pytest.approx(4.937e-4, rel=1e-12)

@@ -184,3 +184,12 @@ def test_cli_start_up_imports_nothing_heavy():
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
                          check=True)
     assert out.stderr.endswith("[]"), out.stderr
+
+
+def test_depth_ranges_and_conflicting_outputs(run):
+    data = run(*BASE, "--depth", "20:60:20", "--far-field-only", "--json").json()
+    # 20, 40 and 60 mm (bare numbers in mm), each at two levels
+    assert sorted({s["depth_m"] for s in data["planes"][0]["spots"]}) == pytest.approx(
+        [0.02, 0.04, 0.06])
+    r = run(*BASE, "--json", "--format", "csv")
+    assert r.code == 2 and "--json" in r.stderr

@@ -142,3 +142,28 @@ def test_saved_setup_is_readable_toml(run, tmp_path):
     data = tomllib.loads(saved.read_text())
     assert data["probe"]["diameter"].endswith("mm") and data["inspection"]["depths"]
     assert json.dumps(data)  # plain data, nothing executable
+
+
+def test_plot_never_overwrites_without_force(run, tmp_path):
+    out = tmp_path / "keep.png"
+    out.write_bytes(b"precious")
+    r = run("axis", *DISC, "--points", "20", "--plot", str(out))
+    assert r.code == 2 and "--force" in r.stderr and out.read_bytes() == b"precious"
+    assert run("axis", *DISC, "--points", "20", "--plot", str(out), "--force").code == 0
+    _not_blank(out)
+
+
+def test_save_happens_only_after_the_command_works(run, tmp_path):
+    saved = tmp_path / "s.toml"
+    r = run("beam", "--diameter", "10", "--frequency", "5", "--material", "unobtanium",
+            "--save", str(saved))
+    assert r.code == 2 and len(r.stderr.strip().splitlines()) == 1
+    assert not saved.exists()
+
+
+def test_setup_options_a_command_cannot_use_are_named(run, tmp_path):
+    saved = tmp_path / "weld.toml"
+    assert run("beam", *WELD, "--far-field-only", "--save", str(saved)).code == 0
+    r = run("axis", "--setup", str(saved), "--points", "20", "--json")
+    assert r.code == 0
+    assert "--wedge" in r.stderr and "does not use" in r.stderr

@@ -147,3 +147,17 @@ def test_plain_beam_json_gives_both_speeds_of_the_material(run):
     assert data["medium"]["longitudinal_m_s"] == CL and data["medium"]["shear_m_s"] == CS
     water = run("beam", *PROBE, "--material", "water", "--far-field-only", "--json").json()
     assert water["medium"]["shear_m_s"] is None
+
+
+def test_contradictory_setup_options(run):
+    r = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--incident", "30", "--refracted",
+            "60")
+    assert r.code == 2 and "not both" in r.stderr
+    r = run("beam", *PROBE, *STEEL, "--couplant", "glycerin")
+    assert r.code == 2 and "--water-path" in r.stderr
+
+
+def test_focus_straight_in_the_medium_is_labelled_so(run):
+    r = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", "--material", "water",
+            "--focus", "50mm", "--far-field-only")
+    assert r.code == 0 and "straight in water" in r.stdout and "immersion" not in r.stdout

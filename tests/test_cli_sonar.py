@@ -25,7 +25,8 @@ def test_sonar_defaults_and_full_angles(run):
 
 def test_directivity_index_is_the_exact_disc_formula(run):
     data = run(*SOUNDER, "--sonar", "--far-field-only", "--json").json()
-    # REFERENCES.md: Q = (ka)^2 / (1 - J1(2ka)/(ka)) with scipy.special.j1.
+    # Baffled-disc directivity factor Q = (ka)^2 / (1 - J1(2ka)/(ka)) from the radiation
+    # resistance (Kinsler & Frey, the piston chapter), evaluated with scipy.special.j1.
     ka = math.pi * 0.025 / data["wavelength_m"]
     q = ka**2 / (1 - scipy.special.j1(2 * ka) / ka)
     assert data["directivity_index_db"] == pytest.approx(10 * math.log10(q), abs=1e-9)

@@ -85,7 +85,8 @@ def test_side_root_matches_scipy_brentq():
 
 
 def test_pulse_echo_level_is_half_the_one_way_level():
-    # Definition (REFERENCES.md): pulse-echo is the one-way pattern squared, so -N dB
+    # Definition (Krautkramer, echo field versus free field): pulse-echo is the one-way
+    # pattern squared, so -N dB
     # pulse-echo equals -N/2 dB one-way.
     levels = np.array([3.0, 6.0, 12.0, 20.0, 40.0])
     assert np.allclose(pattern_x(levels, "disc", "pulse-echo"),

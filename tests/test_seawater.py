@@ -32,7 +32,8 @@ def test_t68_conversion():
 def test_unesco_near_the_surface_against_teos10(p, t, s):
     # Reference: TEOS-10 through gsw.sound_speed_t_exact (absolute salinity from practical
     # salinity by gsw.SR_from_SP). The older equations differ from TEOS-10 by a few tenths of a
-    # m/s (REFERENCES.md); near the surface 0.3 m/s bounds "a few tenths".
+    # m/s (the TEOS-10 manual's comparison, from memory); near the surface 0.3 m/s bounds
+    # "a few tenths".
     reference = float(gsw.sound_speed_t_exact(gsw.SR_from_SP(s), t, p))
     assert float(eq.seawater_unesco(t, s, p)) == pytest.approx(reference, abs=0.3)
 
@@ -42,7 +43,7 @@ def test_unesco_near_the_surface_against_teos10(p, t, s):
 @pytest.mark.parametrize("s", [34.5, 35.0])
 def test_unesco_runs_high_at_depth_against_teos10(p, t, s):
     # Reference: TEOS-10 (gsw). The known spread at depth: UNESCO runs 0.3-0.7 m/s above
-    # TEOS-10 in cold deep water (REFERENCES.md; the excess found by Dushaw et al. 1993 from
+    # TEOS-10 in cold deep water (from memory; the excess found by Dushaw et al. 1993 from
     # ocean travel times, from memory).
     reference = float(gsw.sound_speed_t_exact(gsw.SR_from_SP(s), t, p))
     excess = float(eq.seawater_unesco(t, s, p)) - reference
@@ -110,7 +111,7 @@ _OCEAN = [(p, t) for p in (0.0, 200.0) for t in (0.0, 10.0, 20.0, 30.0)] + [
 @pytest.mark.parametrize("s", [34.0, 35.0, 37.0])
 def test_del_grosso_against_teos10(p, t, s):
     # Reference: TEOS-10 (gsw.sound_speed_t_exact). The published equations differ from it by a
-    # few tenths of a m/s (REFERENCES.md); 0.3 m/s bounds that.
+    # few tenths of a m/s (from memory); 0.3 m/s bounds that.
     reference = float(gsw.sound_speed_t_exact(gsw.SR_from_SP(s), t, p))
     assert float(eq.seawater_del_grosso(t, s, p)) == pytest.approx(reference, abs=0.3)
 

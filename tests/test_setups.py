@@ -109,7 +109,7 @@ def test_leg_geometry():
 def test_focal_spot_about_1_03_f_lambda_over_d():
     # O'Neil (1949) focal-plane pattern 2 J1(x)/x; pulse-echo -6 dB where (2J1(x)/x)^2 = 1/2
     # (x from scipy brentq on scipy.special.j1): width = 2 x F lambda / (pi D), the "1.02"
-    # of common practice is 1.027 (REFERENCES.md, traps).
+    # of common practice is 1.027 pulse-echo (computed here).
     x = scipy.optimize.brentq(lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20),
                               0.1, 3.8)
     width = focal_spot_width(0.05, 0.0003, 0.0127, float(pattern_x(6, "disc", "pulse-echo")))

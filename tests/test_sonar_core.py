@@ -13,7 +13,7 @@ from beamspread import Disc, InputError, Rectangle, analyse, sonar
 
 def _exact_disc_q(ka):
     # The directivity factor of a baffled disc, written with scipy's J1:
-    # Q = (ka)^2 / (1 - J1(2ka)/(ka)) (Kinsler et al.; REFERENCES.md).
+    # Q = (ka)^2 / (1 - J1(2ka)/(ka)) (Kinsler et al., the piston chapter).
     return ka**2 / (1.0 - special.j1(2.0 * ka) / ka)
 
 
@@ -49,8 +49,8 @@ def test_disc_directivity_factor_against_scipy(ka):
 
 @pytest.mark.parametrize("ka", [50.0, 120.0, 400.0])
 def test_disc_directivity_index_large_ka_limit(ka):
-    # DI -> 20 log10(ka) for ka >> 1 (Urick; REFERENCES.md): J1(2ka)/(ka) falls as ka^-1.5, so
-    # the two are within 0.01 dB from ka = 50.
+    # DI -> 20 log10(ka) for ka >> 1 (Urick, Principles of Underwater Sound; from memory):
+    # J1(2ka)/(ka) falls as ka^-1.5, so the two are within 0.01 dB from ka = 50.
     wavelength = 1e-3
     probe = Disc(ka * wavelength / np.pi, 1.0)
     assert sonar.directivity_index(probe, wavelength) == pytest.approx(
@@ -123,7 +123,8 @@ def test_rayleigh_distance_of_a_disc():
 
 def test_disc_first_side_lobe_against_scipy():
     # d/dx [J1(x)/x] = -J2(x)/x, so the first side lobe of 2 J1(x)/x sits at the first zero of
-    # J2 (scipy.special.jn_zeros). Its one-way level is -17.57 dB (REFERENCES.md brief).
+    # J2 (scipy.special.jn_zeros). Its one-way level is -17.57 dB (computed here from the
+    # pattern; UT texts quote -17.6 dB).
     x = special.jn_zeros(2, 1)[0]
     level = 20.0 * math.log10(abs(2.0 * special.j1(x) / x))
     assert sonar.side_lobe_level("disc", "one-way") == pytest.approx(level, abs=1e-6)

@@ -5,6 +5,7 @@ from __future__ import annotations
 import click
 
 from .options import (
+    check_plot,
     emit_warnings,
     field_options,
     field_settings,
@@ -12,15 +13,16 @@ from .options import (
     medium_options,
     output_options,
     pass_output,
+    plot_option,
     probe_options,
     resolve_wave,
 )
-from .params import ANGLE, DEPTHS, LENGTH, LEVEL, PATH_LENGTH, SPEED
+from .params import ANGLE, DEPTHS, LENGTH, LEVEL, PATH_LENGTH, RANGE_DEPTHS, SPEED
 from .setupargs import setup_file_options
 
 
-def setup_options(f):
-    """The inspection setup: a wedge, or a water path, and a focus."""
+def wedge_options(f):
+    """An angle-beam wedge on the part, and the part's thickness."""
     for decorator in reversed((
         click.option("--wedge", default=None, metavar="NAME",
                      help="Angle-beam wedge material by name (its longitudinal speed)."),
@@ -35,6 +37,15 @@ def setup_options(f):
                      help="Mean sound path in the wedge along the beam axis."),
         click.option("--thickness", type=LENGTH, default=None,
                      help="Part thickness: each depth then gets the second leg too."),
+    )):
+        f = decorator(f)
+    return f
+
+
+def setup_options(f):
+    """The inspection setup: a wedge, or a water path, and a focus."""
+    f = wedge_options(f)
+    for decorator in reversed((
         click.option("--water-path", type=PATH_LENGTH, default=None,
                      help="Immersion: couplant path from the probe to the part surface."),
         click.option("--couplant", default="water", show_default=True, metavar="NAME",
@@ -49,12 +60,13 @@ def setup_options(f):
 @click.command()
 @probe_options
 @medium_options
-@click.option("--depth", "depths", type=LENGTH, multiple=True,
-              help="Depth (range from the face) for a spot size; repeatable.")
+@click.option("--depth", "depth_groups", type=RANGE_DEPTHS, multiple=True,
+              help="Depth (range from the face) for a spot size, or a range START:STOP:STEP "
+              "(bare numbers in mm); repeatable.")
 @click.option("--level", "levels", type=LEVEL, multiple=True,
               help="Level in dB below the peak (-6, 6 and 6dB all mean 6 dB down); "
               "repeatable; default 6 and 20.")
-@field_options
+@field_options(sonar=True)
 @click.option("--far-field-only", is_flag=True,
               help="Only the far-field widths, without the computed field.")
 @setup_options
@@ -70,17 +82,17 @@ def setup_options(f):
               help="Electro-acoustic efficiency for the echo budget.")
 @click.option("--bottom-loss", type=float, default=10.0, show_default=True, metavar="DB",
               help="Reflection loss of the bottom for the echo budget.")
-@click.option("--plot", "plot_path", type=click.Path(dir_okay=False), default=None,
-              help="Draw to FILE (.png, .svg, .pdf): the far-field directivity, or with "
-              "--bottom-depth the footprint on the bottom.")
+@plot_option("Draw to FILE (.png, .svg, .pdf): the far-field directivity; with "
+             "--bottom-depth the footprint on the bottom; with a wedge and --thickness the "
+             "section.")
 @setup_file_options
 @output_options
 @pass_output
 def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-         materials_dirs, depths, levels, pulse_echo, bandwidth, spectrum, frequency_count,
+         materials_dirs, depth_groups, levels, pulse_echo, bandwidth, spectrum, frequency_count,
          far_field_only, wedge, wedge_speed, incident, refracted, wedge_path, thickness,
          water_path, couplant, focus, sonar, bottom_depths, power, efficiency, bottom_loss,
-         plot_path, setup_path, save_path, fmt, units):
+         plot_path, force_plot, setup_path, save_path, fmt, units):
     """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
@@ -98,11 +110,9 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
     from ..sonar import SONAR_LEVELS_SHOWN, SONAR_MODE, directivity_index
 
     probe = make_probe(diameter, length, width, frequency)
+    depths = [d for group in depth_groups for d in group]
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
-    if plot_path is not None:
-        from ..report.plots import check_target
-
-        check_target(plot_path)
+    check_plot(plot_path, force_plot)
     on_wedge = wedge is not None or wedge_speed is not None
     immersed = water_path is not None or focus is not None
     if on_wedge and immersed:
@@ -111,13 +121,16 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
     if (on_wedge or immersed) and (sonar or bottom_depths or power is not None):
         raise click.UsageError("--sonar, --bottom-depth and --power describe a bare transducer "
                                "in water, not an inspection setup")
+    if water_path is None and focus is None and _given("couplant"):
+        raise click.UsageError("--couplant describes the water path: give --water-path too")
     if not on_wedge and any(v is not None for v in (incident, refracted, wedge_path)):
         raise click.UsageError("--incident, --refracted and --wedge-path need --wedge or "
                                "--wedge-speed")
     if thickness is not None and not on_wedge:
         raise click.UsageError("--thickness (for the second leg) needs a wedge")
     resolved = resolve_wave(material, wave or ("shear" if on_wedge else None), speed,
-                            temperature, conditions, materials_dirs)
+                            temperature, conditions, materials_dirs,
+                            temperature_elsewhere=water_path is not None or on_wedge)
     if on_wedge or immersed:
         from .setup import run_setup
 
@@ -203,6 +216,12 @@ def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss
                                bottom_loss_db=bottom_loss, constant=constant)
                    for depth in bottoms]
     return figures, budgets
+
+
+def _given(name: str) -> bool:
+    """Whether the option ``name`` was typed (not its default)."""
+    ctx = click.get_current_context()
+    return ctx.get_parameter_source(name) not in (None, click.core.ParameterSource.DEFAULT)
 
 
 def caption_of(result) -> str:

@@ -9,6 +9,7 @@ from pathlib import Path
 import click
 
 from .options import (
+    check_plot,
     emit_warnings,
     field_options,
     field_settings,
@@ -16,23 +17,12 @@ from .options import (
     medium_options,
     output_options,
     pass_output,
+    plot_option,
     probe_options,
     resolve_wave,
 )
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
-
-
-def _plot_option(f):
-    return click.option("--plot", "plot_path", type=click.Path(dir_okay=False), default=None,
-                        help="Also draw to FILE (.png, .svg, .pdf).")(f)
-
-
-def _check_plot(path):
-    if path is not None:
-        from ..report.plots import check_target
-
-        check_target(path)
 
 
 def _caption(probe, wave, settings, mode):
@@ -103,13 +93,13 @@ def _check_validity(warnings, start, near_simple):
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
 @field_options
-@_plot_option
+@plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
 def axis(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
          materials_dirs, start, stop, points, bandwidth, spectrum, frequency_count, pulse_echo,
-         plot_path, setup_path, save_path, fmt, units):
+         plot_path, force_plot, setup_path, save_path, fmt, units):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -120,7 +110,7 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
 
     from ..field import axial_profile, last_maximum
 
-    _check_plot(plot_path)
+    check_plot(plot_path, force_plot)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
@@ -171,20 +161,21 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
               help="Levels for the widths (dB below the maximum at this depth); default 6 "
               "and 20.")
 @field_options
-@_plot_option
+@plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
 def across(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
            materials_dirs, depth, plane, span, points, levels, bandwidth, spectrum,
-           frequency_count, pulse_echo, plot_path, setup_path, save_path, fmt, units):
+           frequency_count, pulse_echo, plot_path, force_plot, setup_path, save_path, fmt,
+           units):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
     from ..beam import DEFAULT_LEVELS
     from ..field import beam_widths, transverse_profile
 
-    _check_plot(plot_path)
+    check_plot(plot_path, force_plot)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
@@ -259,9 +250,10 @@ def _write_atomically(path: Path, write) -> None:
 @field_options
 @click.option("--output", "-o", type=click.Path(dir_okay=False), default=None,
               help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).")
-@click.option("--force", is_flag=True, help="Overwrite an existing --output file.")
+@click.option("--force", is_flag=True, help="Overwrite an existing --output or --plot file.")
 @click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
-@_plot_option
+@plot_option("Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.",
+             force=False)
 @click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True,
               help="Lengths on the picture.")
 @setup_file_options
@@ -298,7 +290,7 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
         raise click.UsageError(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory")
-    _check_plot(plot_path)
+    check_plot(plot_path, force)
     probe, settings, medium, mode, warnings = _setup(
         diameter, length, width, frequency, material, wave, speed, temperature, conditions,
         materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)

@@ -43,13 +43,16 @@ def make_probe(diameter, length, width, frequency):
     return Rectangle(length, width, frequency)
 
 
-def field_options(f):
+def field_options(f=None, *, sonar: bool = False):
     """--bandwidth, --spectrum, --frequencies and --pulse-echo/--one-way."""
+    if f is None:
+        return lambda g: field_options(g, sonar=sonar)
     from ..beam import DEFAULT_BANDWIDTH
 
+    default = "the default; with --sonar, one-way" if sonar else "the default"
     f = click.option("--pulse-echo/--one-way", "pulse_echo", default=None,
-                     help="Pulse-echo (the default; with --sonar, one-way) squares the one-way "
-                     "pattern: transmit x receive.")(f)
+                     help=f"Pulse-echo ({default}) squares the one-way pattern: transmit x "
+                     "receive.")(f)
     f = click.option("--frequencies", "frequency_count", type=click.IntRange(1, 256),
                      default=32, show_default=True,
                      help="How many frequencies sample a broadband spectrum.")(f)
@@ -131,14 +134,21 @@ class Resolved:
         return self.medium.evaluate_absorption(frequency, self.conditions)
 
 
-def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs) -> Resolved:
-    """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources."""
+def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs, *,
+                 temperature_elsewhere: bool = False) -> Resolved:
+    """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources.
+
+    ``temperature_elsewhere``: --temperature also sets another medium (a
+    couplant), so a part that does not depend on it is not warned about it.
+    """
     from ..media.model import Wave
 
     wave = wave or "longitudinal"
     if (material is None) == (speed is None):
         raise click.UsageError("give either --material NAME or --speed SPEED")
     if speed is not None:
+        if temperature_elsewhere:
+            temperature = None
         if temperature is not None or conditions:
             raise click.UsageError(
                 "--temperature and --condition describe a --material; "
@@ -149,6 +159,9 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
     entry = registry.get(material)
     medium = entry.medium
     values: dict[str, float] = {}
+    if temperature is not None and temperature_elsewhere and medium.parameter(
+            "temperature") is None and not getattr(medium, "depends_on_temperature", False):
+        temperature = None  # it is the couplant's
     if temperature is not None:
         declared = medium.parameter("temperature")
         unit = declared.unit if declared is not None else "degC"
@@ -186,6 +199,32 @@ def pass_output(f):
 
     @functools.wraps(f)
     def wrapper(*args, fmt, as_json, **kwargs):
+        if as_json and fmt not in ("table", "json"):
+            raise click.UsageError(f"--json and --format {fmt} ask for two outputs; give one")
         return f(*args, fmt=resolved_format(fmt, as_json), **kwargs)
 
     return wrapper
+
+
+def plot_option(help_text: str, *, force: bool = True):
+    """``--plot FILE`` (and, unless the command has its own, ``--force``)."""
+
+    def decorate(f):
+        if force:
+            f = click.option("--force", "force_plot", is_flag=True,
+                             help="Overwrite an existing --plot file.")(f)
+        return click.option("--plot", "plot_path", type=click.Path(dir_okay=False),
+                            default=None, help=help_text)(f)
+
+    return decorate
+
+
+def check_plot(path, force: bool) -> None:
+    """Refuse a bad --plot path, or an existing file without --force, before computing."""
+    if path is None:
+        return
+    from ..report.plots import check_target
+
+    if check_target(path).exists() and not force:
+        raise click.BadParameter(f"{path!r} exists; add --force to overwrite it",
+                                 param_hint="--plot")

@@ -74,9 +74,12 @@ class Condition(click.ParamType):
 
 
 class DepthList(click.ParamType):
-    """A depth, or a range START:STOP:STEP (each with a unit; bare numbers in m)."""
+    """A depth, or a range START:STOP:STEP (each with a unit; bare numbers in ``unit``)."""
 
     name = "depths"
+
+    def __init__(self, unit: str = "m") -> None:
+        self.unit = unit
 
     def get_metavar(self, param, ctx=None) -> str:
         return "DEPTH|START:STOP:STEP"
@@ -88,7 +91,7 @@ class DepthList(click.ParamType):
 
         parts = str(value).split(":")
         try:
-            numbers = [parse_quantity(p, "length", default="m") for p in parts]
+            numbers = [parse_quantity(p, "length", default=self.unit) for p in parts]
             if len(numbers) == 1:
                 if numbers[0] <= 0:
                     raise InputError(f"{value!r} is not allowed; a depth must be above 0")
@@ -127,7 +130,8 @@ class Angle(click.ParamType):
 
 LEVEL = Level()
 ANGLE = Angle()
-DEPTHS = DepthList()
+DEPTHS = DepthList("m")  # water depths, bare numbers in m
+RANGE_DEPTHS = DepthList("mm")  # depths in a part, bare numbers in mm
 CONDITION = Condition()
 LENGTH = Quantity("length")
 PATH_LENGTH = Quantity("length", zero=True)  # a path that may vanish

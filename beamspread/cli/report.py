@@ -46,6 +46,7 @@ def _compute(p, units):
 
     offset = 0.0
     probe = make_probe(p["diameter"], p["length"], p["width"], p["frequency"])
+    p = {**p, "depths": [d for group in p["depth_groups"] for d in group]}
     settings = field_settings(p["bandwidth"], p["spectrum"], p["frequency_count"])
     on_wedge = p["wedge"] is not None or p["wedge_speed"] is not None
     resolved = resolve_wave(p["material"], p["wave"] or ("shear" if on_wedge else None),

@@ -6,8 +6,9 @@ import math
 
 import click
 
-from .beam import setup_options
+from .beam import wedge_options
 from .options import (
+    check_plot,
     emit_warnings,
     field_options,
     field_settings,
@@ -15,6 +16,7 @@ from .options import (
     medium_options,
     output_options,
     pass_output,
+    plot_option,
     probe_options,
     resolve_wave,
 )
@@ -36,22 +38,22 @@ def section_geometry(result, thickness, depth, settings, wedge_path):
 @click.command()
 @probe_options
 @medium_options
-@setup_options
+@wedge_options
 @click.option("--depth", type=LENGTH, default=None, help="Flaw depth: the footprint is drawn "
               "there on both legs.")
 @click.option("--level", "levels", type=LEVEL, multiple=True,
               help="Levels of the edges drawn, dB below the axis (default 6 and 20).")
 @field_options
 @click.option("--far-field-only", is_flag=True, help="Edges from the far-field cone only.")
-@click.option("--plot", "plot_path", type=click.Path(dir_okay=False), default=None,
-              help="Draw the section to FILE (.png, .svg, .pdf).")
+@plot_option("Draw the section to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
 def section(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
             materials_dirs, wedge, wedge_speed, incident, refracted, wedge_path, thickness,
-            water_path, couplant, focus, depth, levels, bandwidth, spectrum, frequency_count,
-            pulse_echo, far_field_only, plot_path, setup_path, save_path, fmt, units):
+            depth, levels, bandwidth, spectrum, frequency_count,
+            pulse_echo, far_field_only, plot_path, force_plot, setup_path, save_path, fmt,
+            units):
     """The angle beam on the part's section: the plate, the exit point, the beam axis
     and its level edges over both legs, and the footprint at the flaw depth.
 
@@ -63,16 +65,14 @@ def section(diameter, length, width, frequency, material, wave, speed, temperatu
     from ..report import plots
     from .setup import _named_speed, _part_speeds, load_registry
 
-    if plot_path is not None:
-        plots.check_target(plot_path)
+    check_plot(plot_path, force_plot)
     if wedge is None and wedge_speed is None:
         raise click.UsageError("the section needs a wedge: --wedge NAME or --wedge-speed SPEED")
     if thickness is None:
         raise click.UsageError("the section needs the part --thickness")
-    if water_path is not None or focus is not None:
-        raise click.UsageError("the section draws an angle beam from a wedge, not immersion")
     if (incident is None) == (refracted is None):
-        raise click.UsageError("give the wedge's --incident angle or the --refracted angle")
+        raise click.UsageError("give the wedge's --incident angle or the --refracted angle, "
+                               "one of them")
     from ..inspection import Wedge, analyse_wedge
 
     probe = make_probe(diameter, length, width, frequency)

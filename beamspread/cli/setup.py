@@ -50,7 +50,10 @@ def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
     if wedge is not None or wedge_speed is not None:
         if wedge is not None and wedge_speed is not None:
             raise click.UsageError("give --wedge NAME or --wedge-speed SPEED, not both")
-        if (incident is None) == (refracted is None):
+        if incident is not None and refracted is not None:
+            raise click.UsageError("give the wedge's --incident angle or the --refracted angle "
+                                   "in the part, not both")
+        if incident is None and refracted is None:
             raise click.UsageError("give the wedge's --incident angle or the --refracted angle "
                                    "in the part")
         if wedge is not None:

@@ -94,23 +94,32 @@ def _typed_options(args: list[str], command: click.Command) -> dict[str, object]
     return options
 
 
-def expand(command: click.Command, args: list[str]) -> list[str]:
-    """The command's arguments with ``--setup`` spliced in and ``--save`` carried out."""
+def expand(command: click.Command, name: str, args: list[str]):
+    """The command's arguments with ``--setup`` spliced in, and what ``--save`` must do.
+
+    Returns ``(args, save)``: ``save`` is None, or a function to call once the
+    command has succeeded (a setup is only written for a command line that works,
+    and an existing file is refused before anything is computed).
+    """
+    from pathlib import Path
+
     args, setup_path = _take(list(args), _SETUP)
     args, save_path = _take(args, _SAVE)
     if setup_path is None and save_path is None:
-        return args
-    if setup_path is not None and ("-h" in args or "--help" in args):
-        return args
+        return args, None
+    if "-h" in args or "--help" in args:
+        return args, None
     from ..setupfile import Setup, load_setup, save_setup
 
     spliced: list[str] = []
     if setup_path is not None:
         setup = load_setup(setup_path)
         accepted = _accepted(command)
+        unused = []
         for option, value in setup.to_options().items():
             param = accepted.get(option)
             if param is None:
+                unused.append(option)
                 continue
             if value is True:
                 spliced.append(option)
@@ -119,9 +128,27 @@ def expand(command: click.Command, args: list[str]) -> list[str]:
                     spliced += [option, item]
             else:
                 spliced += [option, str(value)]
+            if isinstance(value, list) and len(value) > 1 and not getattr(param, "multiple",
+                                                                           False):
+                click.echo(f"beamspread: warning: {name} takes one {option}; the setup's "
+                           f"first ({value[0]}) is used", err=True)
+        if unused:
+            click.echo(f"beamspread: warning: {name} does not use the setup's "
+                       f"{', '.join(unused)}; its result leaves them out", err=True)
     full = spliced + args
-    if save_path is not None:
-        typed = _typed_options(full, command)
-        save_setup(Setup.from_options(typed), save_path)
+    if save_path is None:
+        return full, None
+    target = Path(save_path)
+    if target.exists():
+        raise click.UsageError(f"--save: {save_path!r} exists; a setup is never overwritten: "
+                               "remove it or choose another name")
+    if not target.parent.is_dir():
+        raise click.UsageError(f"--save: the folder {str(target.parent)!r} does not exist")
+    typed = _typed_options(full, command)
+    setup = Setup.from_options(typed)  # checked now: a bad value fails before computing
+
+    def save() -> None:
+        save_setup(setup, target)
         click.echo(f"beamspread: saved the setup to {save_path}", err=True)
-    return full
+
+    return full, save

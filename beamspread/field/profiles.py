@@ -20,6 +20,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from .._search import golden_max
 from ..axis import simple_near_field
 from ..errors import InputError
 from ..probes import check_positive
@@ -39,7 +40,6 @@ __all__ = [
     "transverse_profile",
 ]
 
-_GOLDEN = (math.sqrt(5.0) - 1.0) / 2.0
 
 
 @dataclass(frozen=True)
@@ -155,22 +155,6 @@ def axial_profile(
     return AxialProfile(depth, amp, mode, bandwidth)
 
 
-def _golden_max(f, lo: float, hi: float, tol: float) -> float:
-    c = hi - _GOLDEN * (hi - lo)
-    d = lo + _GOLDEN * (hi - lo)
-    fc, fd = f(c), f(d)
-    while hi - lo > tol:
-        if fc > fd:
-            hi, d, fd = d, c, fc
-            c = hi - _GOLDEN * (hi - lo)
-            fc = f(c)
-        else:
-            lo, c, fc = c, d, fd
-            d = lo + _GOLDEN * (hi - lo)
-            fd = f(d)
-    return 0.5 * (lo + hi)
-
-
 def last_maximum(
     probe,
     speed: float,
@@ -229,7 +213,7 @@ def last_maximum(
     else:
         return float("nan")
     i = int(peaks[-1])
-    return _golden_max(
+    return golden_max(
         lambda zi: float(amplitude(zi)[0]), float(z[i - 1]), float(z[i + 1]), 1e-9 * float(z[i])
     )
 

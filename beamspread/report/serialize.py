@@ -127,7 +127,8 @@ def dumps(data: Any) -> str:
 
 CSV_COLUMNS = (
     "mode", "wavelength_m", "near_field_m", "plane", "aperture_m", "level", "half_angle_deg",
-    "depth_m", "width_m", "far_field_valid", "method",
+    "depth_m", "width_m", "far_field_valid", "method", "leg", "sound_path_m",
+    "surface_distance_m", "footprint_m",
 )
 
 
@@ -160,8 +161,9 @@ def beam_to_csv(result: BeamResult) -> str:
             rows = spots.get(key) or [None]
             for spot in rows:
                 tail = (
-                    ("", "", "", "") if spot is None
-                    else (spot.depth, spot.width, spot.far_field_valid, spot.method)
+                    ("",) * 8 if spot is None
+                    else (spot.depth, spot.width, spot.far_field_valid, spot.method, spot.leg,
+                          spot.sound_path, spot.surface_distance, spot.footprint)
                 )
                 writer.writerow([_cell(v) for v in (*head, *tail)])
     return buffer.getvalue()

@@ -213,8 +213,13 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
             out.append("Footprint on the horizontal plane at the depth")
             out.append(columns([["depth", "leg", "plane", "method",
                                  *[f"{k} dB" for k in keys]], *prints]))
-        out.append("  far field: 2·(sound path)·tan(half-angle)." if angled
-                   else "  far field: 2·z·tan(half-angle).")
+        if angled:
+            out.append("  far field: 2·(sound path)·tan(half-angle).")
+        elif result.near_field_method.startswith("(N_water"):
+            out.append("  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
+                       "in the part)).")
+        else:
+            out.append("  far field: 2·z·tan(half-angle).")
         if inside:
             out.append("  * inside the near field: the far-field width does not hold there.")
         if result.field is not None:
@@ -336,7 +341,8 @@ def design_table(found, wave, units="mm") -> str:
            f"{found.mode}, in {wave.medium if wave.medium != 'given' else 'the given medium'} "
            f"({wave.speed:.1f} m/s)", "",
            columns([["quantity", "value"], *rows]), ""]
-    out.extend(textwrap.wrap(CAUTION, 100))
+    caution = SONAR_CAUTION if wave.state in ("liquid", "gas") else CAUTION
+    out.extend(textwrap.wrap(caution, 100))
     return "\n".join(out)
 
 
@@ -357,6 +363,9 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
         lines.append(f"       effective aperture in the incidence plane "
                      f"{format_length(setup.effective_aperture, units)}; near field in the "
                      f"part {_len_or_none(setup.near_field_in_part, units)}")
+    elif setup.setup == "focused":
+        lines.append(f"Setup: a spherically focused disc straight in {setup.beam.wave.medium}, "
+                     "no water path")
     else:
         c = extra["couplant"]
         lines.append(f"Setup: immersion in {c['name']} ({c['speed_m_s']:.1f} m/s), water path "
@@ -364,19 +373,19 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
                      f"{_len_or_none(setup.near_field_in_part, units)}"
                      + ("" if setup.transmission is None else
                         f"; pressure transmission into the part {setup.transmission:.3f}"))
-        f = setup.focus
-        if f is not None:
-            zone = ("none" if f.zone is None else
-                    f"{format_length(f.zone[0], units)} to {format_length(f.zone[1], units)}")
-            lines.append(f"       focus: S = F/N {f.normalised_focal_length:.3f}; on-axis "
-                         f"maximum at {format_length(f.axial_maximum, units)} in the couplant; "
-                         f"focal spot {format_length(f.spot_width, units)}; zone {zone} "
-                         f"(rule of thumb N·S²·2/(1 + S/2): "
-                         f"{format_length(f.zone_rule_of_thumb, units)} long)")
-            if f.focal_depth_in_part is not None:
-                lines.append(f"       focal depth in the part (paraxial) "
-                             f"{format_length(f.focal_depth_in_part, units)}"
-                             + (" - a poor estimate here" if f.paraxial_poor else ""))
+    f = setup.focus
+    if f is not None:
+        zone = ("none" if f.zone is None else
+                f"{format_length(f.zone[0], units)} to {format_length(f.zone[1], units)}")
+        where = "from the face" if setup.setup == "focused" else "in the couplant"
+        lines.append(f"       focus: S = F/N {f.normalised_focal_length:.3f}; on-axis maximum "
+                     f"at {format_length(f.axial_maximum, units)} {where}; focal spot "
+                     f"{format_length(f.spot_width, units)}; zone {zone} (rule of thumb "
+                     f"N·S²·2/(1 + S/2): {format_length(f.zone_rule_of_thumb, units)} long)")
+        if f.focal_depth_in_part is not None:
+            lines.append(f"       focal depth in the part (paraxial) "
+                         f"{format_length(f.focal_depth_in_part, units)}"
+                         + (" - a poor estimate here" if f.paraxial_poor else ""))
     return [line for text in lines for line in textwrap.wrap(text, 100,
                                                              subsequent_indent="       ")]
 
