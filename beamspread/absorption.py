@@ -52,9 +52,7 @@ AINSLIE_MCCOLM = (
     "Ainslie & McColm (1998), J. Acoust. Soc. Am. 103, 1671: simplified boric acid, "
     "magnesium sulphate and viscous terms"
 )
-FRESH_WATER = (
-    "pure-water (viscous) term of Francois & Garrison (1982), J. Acoust. Soc. Am. 72, 896"
-)
+FRESH_WATER = "pure-water (viscous) term of Francois & Garrison (1982), J. Acoust. Soc. Am. 72, 896"
 ISO_9613_1 = (
     "ISO 9613-1:1993, atmospheric absorption: classical term and the oxygen and nitrogen "
     "relaxations"
@@ -145,8 +143,7 @@ def francois_garrison(frequency, temperature=10.0, salinity=35.0, depth=0.0, ph=
     >>> 50 < float(a) < 70
     True
     """
-    boric, magnesium, water = francois_garrison_terms(frequency, temperature, salinity,
-                                                      depth, ph)
+    boric, magnesium, water = francois_garrison_terms(frequency, temperature, salinity, depth, ph)
     return boric + magnesium + water
 
 

@@ -50,7 +50,6 @@ __all__ = [
 ]
 
 
-
 def simple_near_field(aperture: np.ndarray | float, wavelength: np.ndarray | float) -> np.ndarray:
     """The common estimate ``D**2 / (4 lambda)`` (or ``L**2 / (4 lambda)``), m."""
     a = np.asarray(aperture, dtype=float)

@@ -49,8 +49,11 @@ class Convention:
     reference: str = "dB below the on-axis amplitude at the same range"
 
     def describe(self) -> str:
-        how = ("pulse-echo (transmit x receive: the one-way pattern squared)"
-               if self.mode == "pulse-echo" else "one-way (transmit only)")
+        how = (
+            "pulse-echo (transmit x receive: the one-way pattern squared)"
+            if self.mode == "pulse-echo"
+            else "one-way (transmit only)"
+        )
         return f"{how}; {self.angle}-angles from the beam axis; levels in {self.reference}"
 
 
@@ -85,8 +88,10 @@ class FieldSettings:
     spectrum: str = "gaussian"
     frequencies: int = 32
 
-    amplitude = ("spectral RMS of the echo of a small reflector at the point (pulse-echo), "
-                 "or of the transmitted pulse there (one-way)")
+    amplitude = (
+        "spectral RMS of the echo of a small reflector at the point (pulse-echo), "
+        "or of the transmitted pulse there (one-way)"
+    )
 
 
 @dataclass(frozen=True)
@@ -265,19 +270,33 @@ def analyse(
             for level in level_list:
                 angle = half_angles[level_key(level)]
                 width = None if angle is None else 2.0 * depth * math.tan(math.radians(angle))
-                spots.append(Spot(depth, -level, width, valid, sound_path=depth,
-                                  surface_distance=0.0, footprint=width))
+                spots.append(
+                    Spot(
+                        depth,
+                        -level,
+                        width,
+                        valid,
+                        sound_path=depth,
+                        surface_distance=0.0,
+                        footprint=width,
+                    )
+                )
             if field is not None:
-                spots.extend(_field_spots(probe, wave.speed, depth, level_list, name, mode,
-                                          field))
+                spots.extend(_field_spots(probe, wave.speed, depth, level_list, name, mode, field))
         planes.append(PlaneResult(name, aperture, half_angles, tuple(spots)))
 
     summary = None
     if field is not None:
         from .field import last_maximum
 
-        axial = last_maximum(probe, wave.speed, bandwidth=field.bandwidth, mode=mode,
-                             frequencies=field.frequencies, spectrum=field.spectrum)
+        axial = last_maximum(
+            probe,
+            wave.speed,
+            bandwidth=field.bandwidth,
+            mode=mode,
+            frequencies=field.frequencies,
+            spectrum=field.spectrum,
+        )
         summary = FieldSummary(field, None if math.isnan(axial) else axial)
         shallow = [d for d in depth_list if d < 0.05 * near_simple]
         if shallow:
@@ -312,11 +331,30 @@ def analyse(
 def _field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSettings):
     from .field import beam_widths
 
-    found = beam_widths(probe, speed, depth, levels, plane=plane, bandwidth=settings.bandwidth,
-                        mode=mode, frequencies=settings.frequencies, spectrum=settings.spectrum)
+    found = beam_widths(
+        probe,
+        speed,
+        depth,
+        levels,
+        plane=plane,
+        bandwidth=settings.bandwidth,
+        mode=mode,
+        frequencies=settings.frequencies,
+        spectrum=settings.spectrum,
+    )
     spots = []
     for w in found:
         width = None if math.isnan(w.width) else w.width
-        spots.append(Spot(depth, -w.level_db, width, None, method="field", sound_path=depth,
-                          surface_distance=0.0, footprint=width))
+        spots.append(
+            Spot(
+                depth,
+                -w.level_db,
+                width,
+                None,
+                method="field",
+                sound_path=depth,
+                surface_distance=0.0,
+                footprint=width,
+            )
+        )
     return spots

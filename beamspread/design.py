@@ -109,8 +109,9 @@ def _positive(value, name: str, unit: str) -> np.ndarray:
     bad = ~np.isfinite(array) | (array <= 0)
     if np.any(bad):
         shown = array[bad].flat[0] if array.ndim else float(array)
-        raise InputError(f"{name}: {shown:g} {unit} is not allowed; it must be a finite "
-                         "number above 0")
+        raise InputError(
+            f"{name}: {shown:g} {unit} is not allowed; it must be a finite number above 0"
+        )
     return array
 
 
@@ -124,8 +125,7 @@ def _target(half_angle_deg, full_angle_deg, spot, depth):
     """The target half-angle (rad), the footprint depth (m, NaN for none) and its kind."""
     given = [v is not None for v in (half_angle_deg, full_angle_deg, spot)]
     if sum(given) != 1:
-        raise InputError("give one target: a half angle, a full angle, or a spot width at a "
-                         "depth")
+        raise InputError("give one target: a half angle, a full angle, or a spot width at a depth")
     if spot is not None:
         if depth is None:
             raise InputError("a spot target needs the depth it is wanted at")
@@ -180,8 +180,11 @@ def _spot_message(depth, spot_w, solution, near, smallest) -> str:
         f"no far-field solution for a {_mm(spot_w)} spot at {_mm(depth)}: {solution} "
         f"has its near field out to {_mm(near)}, beyond the depth, where the far-field cone "
         "does not hold"
-        + (f"; the smallest far-field spot at that depth is {_mm(smallest)}"
-           if np.isfinite(smallest) else "")
+        + (
+            f"; the smallest far-field spot at that depth is {_mm(smallest)}"
+            if np.isfinite(smallest)
+            else ""
+        )
     )
 
 
@@ -189,8 +192,23 @@ def _disc_di(diameter, wavelength):
     return 10.0 * np.log10(sonar.disc_directivity_factor(diameter, wavelength))
 
 
-def _finish(shape, solved, mode, level, aperture, other, frequency, speed, wavelength, theta,
-            other_half, near, di, depth, impossible) -> Design:
+def _finish(
+    shape,
+    solved,
+    mode,
+    level,
+    aperture,
+    other,
+    frequency,
+    speed,
+    wavelength,
+    theta,
+    other_half,
+    near,
+    di,
+    depth,
+    impossible,
+) -> Design:
     aperture = np.where(impossible, np.nan, aperture)
     frequency = np.where(impossible, np.nan, frequency)
     wavelength = np.where(impossible, np.nan, wavelength)
@@ -202,14 +220,25 @@ def _finish(shape, solved, mode, level, aperture, other, frequency, speed, wavel
         far = np.isfinite(depth) & (np.isnan(near) | (depth >= near)) & ~impossible
     half_deg = np.degrees(theta)
     return Design(
-        shape=shape, solved=solved, mode=mode, level_db=-level,
-        aperture=_out(aperture), other_side=None if other is None else _out(other),
-        frequency=_out(frequency), speed=_out(speed), wavelength=_out(wavelength),
-        half_angle_deg=_out(half_deg), full_angle_deg=_out(2.0 * half_deg),
-        other_half_angle_deg=None if other_half is None else _out(
-            np.where(impossible, np.nan, np.degrees(other_half))),
-        near_field=_out(near), directivity_index_db=_out(di), depth=_out(depth),
-        footprint_width=_out(width), far_field_at_depth=_out(far),
+        shape=shape,
+        solved=solved,
+        mode=mode,
+        level_db=-level,
+        aperture=_out(aperture),
+        other_side=None if other is None else _out(other),
+        frequency=_out(frequency),
+        speed=_out(speed),
+        wavelength=_out(wavelength),
+        half_angle_deg=_out(half_deg),
+        full_angle_deg=_out(2.0 * half_deg),
+        other_half_angle_deg=None
+        if other_half is None
+        else _out(np.where(impossible, np.nan, np.degrees(other_half))),
+        near_field=_out(near),
+        directivity_index_db=_out(di),
+        depth=_out(depth),
+        footprint_width=_out(width),
+        far_field_at_depth=_out(far),
     )
 
 
@@ -233,13 +262,21 @@ def smallest_spot(frequency, speed, depth, *, level_db=3.0, mode: str = sonar.SO
     largest = np.sqrt(wavelength * wavelength + 4.0 * wavelength * z)
     s = x * wavelength / (np.pi * largest)
     with np.errstate(invalid="ignore"):
-        return _out(np.where(s < 1.0, 2.0 * z * np.tan(np.arcsin(np.minimum(s, 1.0))),
-                             np.nan))
+        return _out(np.where(s < 1.0, 2.0 * z * np.tan(np.arcsin(np.minimum(s, 1.0))), np.nan))
 
 
-def size_disc(frequency, speed, *, half_angle_deg=None, full_angle_deg=None, spot=None,
-              depth=None, level_db=3.0, mode: str = sonar.SONAR_MODE,
-              on_impossible: str = "raise") -> Design:
+def size_disc(
+    frequency,
+    speed,
+    *,
+    half_angle_deg=None,
+    full_angle_deg=None,
+    spot=None,
+    depth=None,
+    level_db=3.0,
+    mode: str = sonar.SONAR_MODE,
+    on_impossible: str = "raise",
+) -> Design:
     """The disc diameter that gives a target beam at a frequency.
 
     Parameters
@@ -286,7 +323,8 @@ def size_disc(frequency, speed, *, half_angle_deg=None, full_angle_deg=None, spo
     x = float(pattern.pattern_x(level, "disc", mode))
     wavelength = speed / frequency
     theta, depth, wavelength, frequency, speed = np.broadcast_arrays(
-        theta, depth, wavelength, frequency, speed)
+        theta, depth, wavelength, frequency, speed
+    )
     diameter = x * wavelength / (np.pi * np.sin(theta))
     near = axis.disc_near_field(diameter, wavelength)
     impossible = np.zeros(diameter.shape, dtype=bool)
@@ -296,20 +334,45 @@ def size_disc(frequency, speed, *, half_angle_deg=None, full_angle_deg=None, spo
         if on_impossible == "raise" and np.any(impossible):
             i = np.flatnonzero(impossible)[0]
             z = depth.flat[i]
-            smallest = smallest_spot(frequency.flat[i], speed.flat[i], z, level_db=level,
-                                     mode=mode)
+            smallest = smallest_spot(frequency.flat[i], speed.flat[i], z, level_db=level, mode=mode)
             solution = f"the disc that gives it ({_mm(diameter.flat[i])})"
-            _refuse(impossible, _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution,
-                                              near.flat[i], smallest), on_impossible)
+            _refuse(
+                impossible,
+                _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest),
+                on_impossible,
+            )
     _refuse(impossible, "", on_impossible)
-    return _finish("disc", "diameter", mode, level, diameter, None, frequency, speed,
-                   wavelength, theta, None, near, _disc_di(diameter, wavelength), depth,
-                   impossible)
+    return _finish(
+        "disc",
+        "diameter",
+        mode,
+        level,
+        diameter,
+        None,
+        frequency,
+        speed,
+        wavelength,
+        theta,
+        None,
+        near,
+        _disc_di(diameter, wavelength),
+        depth,
+        impossible,
+    )
 
 
-def size_frequency(diameter, speed, *, half_angle_deg=None, full_angle_deg=None, spot=None,
-                   depth=None, level_db=3.0, mode: str = sonar.SONAR_MODE,
-                   on_impossible: str = "raise") -> Design:
+def size_frequency(
+    diameter,
+    speed,
+    *,
+    half_angle_deg=None,
+    full_angle_deg=None,
+    spot=None,
+    depth=None,
+    level_db=3.0,
+    mode: str = sonar.SONAR_MODE,
+    on_impossible: str = "raise",
+) -> Design:
     """The frequency at which a disc of ``diameter`` (m) gives a target beam.
 
     Parameters and results as :func:`size_disc`, with the diameter given.
@@ -340,21 +403,51 @@ def size_frequency(diameter, speed, *, half_angle_deg=None, full_angle_deg=None,
             lam = -2.0 * z + np.sqrt(4.0 * z * z + d * d)  # the wavelength whose N is z
             s = x * lam / (np.pi * d)
             smallest = 2.0 * z * np.tan(np.arcsin(s)) if s < 1 else np.nan
-            solution = (f"a {_mm(d)} disc at the frequency that gives it "
-                        f"({frequency.flat[i] / 1e6:.4g} MHz)")
-            message = _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution,
-                                    near.flat[i], smallest)
-            _refuse(impossible, message + (" with this diameter" if np.isfinite(smallest)
-                                           else ""), on_impossible)
+            solution = (
+                f"a {_mm(d)} disc at the frequency that gives it "
+                f"({frequency.flat[i] / 1e6:.4g} MHz)"
+            )
+            message = _spot_message(
+                z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest
+            )
+            _refuse(
+                impossible,
+                message + (" with this diameter" if np.isfinite(smallest) else ""),
+                on_impossible,
+            )
     _refuse(impossible, "", on_impossible)
-    return _finish("disc", "frequency", mode, level, diameter, None, frequency, speed,
-                   wavelength, theta, None, near, _disc_di(diameter, wavelength), depth,
-                   impossible)
+    return _finish(
+        "disc",
+        "frequency",
+        mode,
+        level,
+        diameter,
+        None,
+        frequency,
+        speed,
+        wavelength,
+        theta,
+        None,
+        near,
+        _disc_di(diameter, wavelength),
+        depth,
+        impossible,
+    )
 
 
-def size_rectangle_side(frequency, speed, other_side, *, half_angle_deg=None,
-                        full_angle_deg=None, spot=None, depth=None, level_db=3.0,
-                        mode: str = sonar.SONAR_MODE, on_impossible: str = "raise") -> Design:
+def size_rectangle_side(
+    frequency,
+    speed,
+    other_side,
+    *,
+    half_angle_deg=None,
+    full_angle_deg=None,
+    spot=None,
+    depth=None,
+    level_db=3.0,
+    mode: str = sonar.SONAR_MODE,
+    on_impossible: str = "raise",
+) -> Design:
     """One side of a rectangle that gives a target beam in its plane, the other side given.
 
     The pattern of a rectangle is separable: the angle in the plane of a side
@@ -381,15 +474,15 @@ def size_rectangle_side(frequency, speed, other_side, *, half_angle_deg=None,
     x = float(pattern.pattern_x(level, "side", mode))
     wavelength = speed / frequency
     theta, depth, wavelength, frequency, speed, other = np.broadcast_arrays(
-        theta, depth, wavelength, frequency, speed, other)
+        theta, depth, wavelength, frequency, speed, other
+    )
     side = x * wavelength / (np.pi * np.sin(theta))
     other_half = pattern.half_angle(level, other, wavelength, "side", mode)
     near = np.empty(side.shape)
     di = np.empty(side.shape)
     for i in np.ndindex(side.shape):
         near[i] = axis.rectangle_near_field(side[i], other[i], wavelength[i])
-        di[i] = sonar.directivity_index(Rectangle(side[i], other[i], frequency[i]),
-                                        wavelength[i])
+        di[i] = sonar.directivity_index(Rectangle(side[i], other[i], frequency[i]), wavelength[i])
     impossible = np.zeros(side.shape, dtype=bool)
     if kind == "spot":
         with np.errstate(invalid="ignore"):
@@ -397,10 +490,27 @@ def size_rectangle_side(frequency, speed, other_side, *, half_angle_deg=None,
         if on_impossible == "raise" and np.any(impossible):
             i = np.flatnonzero(impossible)[0]
             z = depth.flat[i]
-            solution = (f"the {_mm(side.flat[i])} by {_mm(other.flat[i])} rectangle that "
-                        "gives it")
-            _refuse(impossible, _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution,
-                                              near.flat[i], np.nan), on_impossible)
+            solution = f"the {_mm(side.flat[i])} by {_mm(other.flat[i])} rectangle that gives it"
+            _refuse(
+                impossible,
+                _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], np.nan),
+                on_impossible,
+            )
     _refuse(impossible, "", on_impossible)
-    return _finish("rectangle", "side", mode, level, side, other, frequency, speed, wavelength,
-                   theta, other_half, near, di, depth, impossible)
+    return _finish(
+        "rectangle",
+        "side",
+        mode,
+        level,
+        side,
+        other,
+        frequency,
+        speed,
+        wavelength,
+        theta,
+        other_half,
+        near,
+        di,
+        depth,
+        impossible,
+    )

@@ -137,10 +137,17 @@ class SetupResult:
         paths = np.linspace(first, path_length, samples)
         table = {level: [] for level in beam.levels}
         for s in paths:
-            for w in beam_widths(self.virtual, beam.wave.speed, s + self.offset, beam.levels,
-                                 plane=plane, bandwidth=field.bandwidth,
-                                 mode=beam.convention.mode, frequencies=field.frequencies,
-                                 spectrum=field.spectrum):
+            for w in beam_widths(
+                self.virtual,
+                beam.wave.speed,
+                s + self.offset,
+                beam.levels,
+                plane=plane,
+                bandwidth=field.bandwidth,
+                mode=beam.convention.mode,
+                frequencies=field.frequencies,
+                spectrum=field.spectrum,
+            ):
                 table[w.level_db].append(w.width)
         for level, widths in table.items():
             if all(math.isfinite(w) for w in widths):
@@ -199,23 +206,39 @@ def analyse_wedge(
     if not (math.isfinite(wedge.path) and wedge.path >= 0):
         raise InputError(f"wedge path: {wedge.path!r} m is not allowed; give 0 or more")
     wave = part.wave
-    r = setups.refract(wedge.speed, c_longitudinal, c_shear, incident=wedge.incident,
-                       refracted=wedge.refracted, wave=wave)
+    r = setups.refract(
+        wedge.speed,
+        c_longitudinal,
+        c_shear,
+        incident=wedge.incident,
+        refracted=wedge.refracted,
+        wave=wave,
+    )
     beta = r.refracted(wave)
     if beta is None:
         which = r.first_critical if wave == "longitudinal" else r.second_critical
-        past = (f"past the {'first' if wave == 'longitudinal' else 'second'} critical angle "
-                f"({_deg(which)})" if which is not None else "where it cannot refract")
-        raise InputError(f"no {wave} wave enters the part at an incident angle of "
-                         f"{_deg(r.incident)}: that lies {past}")
+        past = (
+            f"past the {'first' if wave == 'longitudinal' else 'second'} critical angle "
+            f"({_deg(which)})"
+            if which is not None
+            else "where it cannot refract"
+        )
+        raise InputError(
+            f"no {wave} wave enters the part at an incident angle of "
+            f"{_deg(r.incident)}: that lies {past}"
+        )
     warnings: list[str] = list(part.warnings)
     if wave == "shear" and r.longitudinal is not None:
-        warnings.append(f"a longitudinal wave also enters, at {_deg(r.longitudinal)}: the "
-                        f"incident angle lies below the first critical angle "
-                        f"({_deg(r.first_critical)})")
+        warnings.append(
+            f"a longitudinal wave also enters, at {_deg(r.longitudinal)}: the "
+            f"incident angle lies below the first critical angle "
+            f"({_deg(r.first_critical)})"
+        )
     if math.degrees(beta) > 80:
-        warnings.append(f"the refracted angle {_deg(beta)} grazes the surface: the model of "
-                        "the beam in the part is poor there")
+        warnings.append(
+            f"the refracted angle {_deg(beta)} grazes the surface: the model of "
+            "the beam in the part is poor there"
+        )
     alpha, c_part, f = r.incident, part.speed, probe.frequency
     wavelength = c_part / f
     if thickness is not None:
@@ -223,8 +246,7 @@ def analyse_wedge(
     depth_list = tuple(dict.fromkeys(check_positive(d, "depth", "m") for d in depths))
     for d in depth_list:
         if thickness is not None and d > thickness:
-            raise InputError(f"depth {_mm(d)} lies below the part, which is {_mm(thickness)} "
-                             "thick")
+            raise InputError(f"depth {_mm(d)} lies below the part, which is {_mm(thickness)} thick")
     if isinstance(probe, Disc):
         inc = setups.effective_aperture(probe.diameter, alpha, beta)
         virtual = Ellipse(inc, probe.diameter, f)
@@ -241,18 +263,25 @@ def analyse_wedge(
     offset = wedge.path * wedge.speed / c_part
     near = None if math.isnan(n_virtual) else n_virtual - offset
     if near is not None and near <= 0:
-        warnings.append(f"the near field ({_mm(n_virtual)} for the virtual element) ends "
-                        f"inside the wedge (its path counts as {_mm(offset)} of the part)")
+        warnings.append(
+            f"the near field ({_mm(n_virtual)} for the virtual element) ends "
+            f"inside the wedge (its path counts as {_mm(offset)} of the part)"
+        )
         near = None
-    simple = inc * virtual.width / (4 * wavelength) if shape == "disc" else (
-        max(inc, probe.width) ** 2 / (4 * wavelength))
+    simple = (
+        inc * virtual.width / (4 * wavelength)
+        if shape == "disc"
+        else (max(inc, probe.width) ** 2 / (4 * wavelength))
+    )
     level_list = _levels(levels)
     planes = []
     for vname, aperture in virtual.planes:
         angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
         null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
-        half = {level_key(lv): (None if math.isnan(a) else float(a))
-                for lv, a in zip(level_list, angles, strict=True)}
+        half = {
+            level_key(lv): (None if math.isnan(a) else float(a))
+            for lv, a in zip(level_list, angles, strict=True)
+        }
         half["null"] = None if math.isnan(null) else null
         spots = []
         legs = (1, 2) if thickness is not None else (1,)
@@ -269,44 +298,88 @@ def analyse_wedge(
                         footprint = width
                         if names[vname] in ("incidence", "length"):
                             spread = math.tan(beta + theta) - math.tan(beta - theta)
-                            footprint = (unfolded * spread if beta + theta < math.pi / 2
-                                         else None)
-                    spots.append(Spot(depth, -lv, width, valid, leg=leg, sound_path=path,
-                                      surface_distance=surface, footprint=footprint))
+                            footprint = unfolded * spread if beta + theta < math.pi / 2 else None
+                    spots.append(
+                        Spot(
+                            depth,
+                            -lv,
+                            width,
+                            valid,
+                            leg=leg,
+                            sound_path=path,
+                            surface_distance=surface,
+                            footprint=footprint,
+                        )
+                    )
                 if field is not None:
-                    found = beam_widths(virtual, c_part, path + offset, level_list, plane=vname,
-                                        bandwidth=field.bandwidth, mode=mode,
-                                        frequencies=field.frequencies, spectrum=field.spectrum)
+                    found = beam_widths(
+                        virtual,
+                        c_part,
+                        path + offset,
+                        level_list,
+                        plane=vname,
+                        bandwidth=field.bandwidth,
+                        mode=mode,
+                        frequencies=field.frequencies,
+                        spectrum=field.spectrum,
+                    )
                     for w in found:
                         width = None if math.isnan(w.width) else w.width
                         foot = width
                         if width is not None and names[vname] in ("incidence", "length"):
                             foot = width / math.cos(beta)  # small-divergence projection
-                        spots.append(Spot(depth, -w.level_db, width, None, method="field",
-                                          leg=leg, sound_path=path, surface_distance=surface,
-                                          footprint=foot))
+                        spots.append(
+                            Spot(
+                                depth,
+                                -w.level_db,
+                                width,
+                                None,
+                                method="field",
+                                leg=leg,
+                                sound_path=path,
+                                surface_distance=surface,
+                                footprint=foot,
+                            )
+                        )
         planes.append(PlaneResult(names[vname], aperture, half, tuple(spots)))
     for depth in depth_list:
         path = depth / math.cos(beta)
         if near is not None and path < near:
-            warnings.append(f"depth {_mm(depth)} (sound path {_mm(path)}) lies inside the near "
-                            f"field in the part ({_mm(near)}): the far-field width does not "
-                            "hold there")
+            warnings.append(
+                f"depth {_mm(depth)} (sound path {_mm(path)}) lies inside the near "
+                f"field in the part ({_mm(near)}): the far-field width does not "
+                "hold there"
+            )
     beam = BeamResult(
-        probe=probe, wave=part, convention=Convention(mode), levels=level_list,
-        wavelength=wavelength, near_field=near, near_field_simple=simple - offset,
+        probe=probe,
+        wave=part,
+        convention=Convention(mode),
+        levels=level_list,
+        wavelength=wavelength,
+        near_field=near,
+        near_field_simple=simple - offset,
         near_field_method="last on-axis maximum of the virtual element in the part, less "
         "the wedge path's equivalent (common practice)",
-        near_field_factor=None, planes=tuple(planes), depths=depth_list,
-        warnings=tuple(warnings), field=None,
+        near_field_factor=None,
+        planes=tuple(planes),
+        depths=depth_list,
+        warnings=tuple(warnings),
+        field=None,
     )
     if field is not None:
         from .beam import FieldSummary
 
         beam = replace(beam, field=FieldSummary(field, None))
-    return SetupResult(beam, "wedge", refraction=r, effective_aperture=inc,
-                       near_field_in_part=near, warnings=tuple(warnings), virtual=virtual,
-                       offset=offset)
+    return SetupResult(
+        beam,
+        "wedge",
+        refraction=r,
+        effective_aperture=inc,
+        near_field_in_part=near,
+        warnings=tuple(warnings),
+        virtual=virtual,
+        offset=offset,
+    )
 
 
 def analyse_immersion(
@@ -333,17 +406,21 @@ def analyse_immersion(
     """
     wp = float(water.path)
     if not math.isfinite(wp) or wp < 0 or wp > MAX_WATER_PATH:
-        raise InputError(f"water path: {wp * 1e3:g} mm is not allowed; give 0 to "
-                         f"{MAX_WATER_PATH * 1e3:g} mm")
+        raise InputError(
+            f"water path: {wp * 1e3:g} mm is not allowed; give 0 to {MAX_WATER_PATH * 1e3:g} mm"
+        )
     c_w, c_p, f = water.speed, part.speed, probe.frequency
-    in_water = analyse(probe, Wave(water.name, "longitudinal", c_w, "couplant"),
-                       levels=levels, mode=mode)
+    in_water = analyse(
+        probe, Wave(water.name, "longitudinal", c_w, "couplant"), levels=levels, mode=mode
+    )
     n_w = in_water.near_field
     warnings: list[str] = list(part.warnings)
     near = None if n_w is None else setups.immersion_near_field(n_w, wp, c_w, c_p)
     if n_w is not None and near is None and wp > 0:
-        warnings.append(f"the water path ({_mm(wp)}) is longer than the near field in water "
-                        f"({_mm(n_w)}): the part lies wholly in the far field")
+        warnings.append(
+            f"the water path ({_mm(wp)}) is longer than the near field in water "
+            f"({_mm(n_w)}): the part lies wholly in the far field"
+        )
     level_list = in_water.levels
     depth_list = tuple(dict.fromkeys(check_positive(d, "depth", "m") for d in depths))
     planes = []
@@ -356,9 +433,11 @@ def analyse_immersion(
             s = math.sin(math.radians(angle)) * c_p / c_w
             half[key] = math.degrees(math.asin(s)) if s < 1 else None
             if s >= 1 and key != "null":
-                warnings.append(f"the {key} dB edge of the beam ({angle:.2f} deg in water) "
-                                "meets the surface past the critical angle: no width in the "
-                                "part at that level")
+                warnings.append(
+                    f"the {key} dB edge of the beam ({angle:.2f} deg in water) "
+                    "meets the surface past the critical angle: no width in the "
+                    "part at that level"
+                )
         spots = []
         for depth in depth_list:
             equivalent = wp + depth * c_p / c_w
@@ -367,19 +446,48 @@ def analyse_immersion(
                 key = level_key(lv)
                 width = None
                 if half[key] is not None:
-                    width = 2 * (wp * math.tan(math.radians(plane.half_angles[key]))
-                                 + depth * math.tan(math.radians(half[key])))
-                spots.append(Spot(depth, -lv, width, valid, sound_path=depth,
-                                  surface_distance=0.0, footprint=width))
+                    width = 2 * (
+                        wp * math.tan(math.radians(plane.half_angles[key]))
+                        + depth * math.tan(math.radians(half[key]))
+                    )
+                spots.append(
+                    Spot(
+                        depth,
+                        -lv,
+                        width,
+                        valid,
+                        sound_path=depth,
+                        surface_distance=0.0,
+                        footprint=width,
+                    )
+                )
             if field is not None and focus is None:
                 from .field import beam_widths
 
-                for w in beam_widths(probe, c_w, equivalent, level_list, plane=plane.name,
-                                     bandwidth=field.bandwidth, mode=mode,
-                                     frequencies=field.frequencies, spectrum=field.spectrum):
+                for w in beam_widths(
+                    probe,
+                    c_w,
+                    equivalent,
+                    level_list,
+                    plane=plane.name,
+                    bandwidth=field.bandwidth,
+                    mode=mode,
+                    frequencies=field.frequencies,
+                    spectrum=field.spectrum,
+                ):
                     width = None if math.isnan(w.width) else w.width
-                    spots.append(Spot(depth, -w.level_db, width, None, method="field",
-                                      sound_path=depth, surface_distance=0.0, footprint=width))
+                    spots.append(
+                        Spot(
+                            depth,
+                            -w.level_db,
+                            width,
+                            None,
+                            method="field",
+                            sound_path=depth,
+                            surface_distance=0.0,
+                            footprint=width,
+                        )
+                    )
         planes.append(PlaneResult(plane.name, plane.aperture, half, tuple(spots)))
     direct = wp == 0 and water.speed == c_p  # a focused probe straight in the medium
     transmission = None
@@ -388,45 +496,76 @@ def analyse_immersion(
     focus_result = None
     if focus is not None:
         focus_result = _focus(probe, focus, in_water, water, c_p, level_list[0], mode, warnings)
-        warnings.append("with a focus, the widths at depth are those of the flat element's "
-                        "far field: they do not describe the converging beam before the focus")
+        warnings.append(
+            "with a focus, the widths at depth are those of the flat element's "
+            "far field: they do not describe the converging beam before the focus"
+        )
     simple_part = None
     if wp < in_water.near_field_simple:
         simple_part = (in_water.near_field_simple - wp) * c_w / c_p
-    method = ("last on-axis maximum of the element in the medium" if direct else
-              "(N_water - water path) c_water / c_part (common practice)")
+    method = (
+        "last on-axis maximum of the element in the medium"
+        if direct
+        else "(N_water - water path) c_water / c_part (common practice)"
+    )
     beam = BeamResult(
-        probe=probe, wave=part, convention=Convention(mode), levels=level_list,
-        wavelength=c_p / f, near_field=near, near_field_simple=simple_part or 0.0,
+        probe=probe,
+        wave=part,
+        convention=Convention(mode),
+        levels=level_list,
+        wavelength=c_p / f,
+        near_field=near,
+        near_field_simple=simple_part or 0.0,
         near_field_method=method,
-        near_field_factor=None, planes=tuple(planes), depths=depth_list,
+        near_field_factor=None,
+        planes=tuple(planes),
+        depths=depth_list,
         warnings=tuple(warnings),
     )
     if field is not None and focus is None:
         from .beam import FieldSummary
 
         beam = replace(beam, field=FieldSummary(field, None))
-    return SetupResult(beam, "focused" if direct else "immersion", near_field_in_part=near,
-                       transmission=transmission,
-                       focus=focus_result, warnings=tuple(warnings))
+    return SetupResult(
+        beam,
+        "focused" if direct else "immersion",
+        near_field_in_part=near,
+        transmission=transmission,
+        focus=focus_result,
+        warnings=tuple(warnings),
+    )
 
 
-def _focus(probe, focus: Focus, in_water: BeamResult, water: WaterPath, c_part: float,
-           level: float, mode: str, warnings: list[str]) -> FocusResult:
+def _focus(
+    probe,
+    focus: Focus,
+    in_water: BeamResult,
+    water: WaterPath,
+    c_part: float,
+    level: float,
+    mode: str,
+    warnings: list[str],
+) -> FocusResult:
     if not isinstance(probe, Disc):
-        raise InputError("--focus: a focus is modelled for discs (a spherical lens) in this "
-                         "version, not for rectangles")
+        raise InputError(
+            "--focus: a focus is modelled for discs (a spherical lens) in this "
+            "version, not for rectangles"
+        )
     big_f = float(focus.focal_length)
     a = 0.5 * probe.diameter
     if not math.isfinite(big_f) or big_f <= a:
-        raise InputError(f"focus: {big_f * 1e3:g} mm is not allowed; a focal length must lie in "
-                         f"front of the element, beyond its radius ({a * 1e3:g} mm)")
+        raise InputError(
+            f"focus: {big_f * 1e3:g} mm is not allowed; a focal length must lie in "
+            f"front of the element, beyond its radius ({a * 1e3:g} mm)"
+        )
     lam = water.speed / probe.frequency
     n_w = in_water.near_field or in_water.near_field_simple
     s = setups.normalised_focal_length(big_f, n_w)
     if s >= 1:
-        warnings.append(f"S = F/N = {s:.2f} is not below 1: focusing does nothing useful, the "
-                        "beam's narrowest point lies at the near field anyway")
+        warnings.append(
+            f"S = F/N = {s:.2f} is not below 1: focusing does nothing useful, the "
+            "beam's narrowest point lies at the near field anyway"
+        )
     z = np.linspace(0.02 * big_f, 3.0 * big_f, 20001)
     power = 2 if mode == "pulse-echo" else 1
     amp = setups.focused_disc_axial_pressure(z, probe.diameter, big_f, lam) ** power
@@ -449,14 +588,18 @@ def _focus(probe, focus: Focus, in_water: BeamResult, water: WaterPath, c_part: 
     if wp > 0:
         depth = setups.focal_depth_in_part(big_f, wp, water.speed, c_part)
         if depth is None:
-            warnings.append(f"the focus ({_mm(big_f)} in the couplant) lies in the water path "
-                            f"({_mm(wp)}): it never reaches the part")
+            warnings.append(
+                f"the focus ({_mm(big_f)} in the couplant) lies in the water path "
+                f"({_mm(wp)}): it never reaches the part"
+            )
         else:
             rim = a / big_f * c_part / water.speed  # sine of the rim ray's angle in the part
             poor = rim >= 1 or math.degrees(math.asin(rim)) > 20
             if poor:
-                warnings.append("the paraxial focal depth in the part is a poor estimate: the "
-                                "rim rays refract steeply (or totally reflect) at the surface")
+                warnings.append(
+                    "the paraxial focal depth in the part is a poor estimate: the "
+                    "rim rays refract steeply (or totally reflect) at the surface"
+                )
         if z[i] > wp:
             axial = (float(z[i]) - wp) * water.speed / c_part
         if zone is not None and zone[0] > wp:

@@ -114,9 +114,7 @@ def _state() -> _State:
     _check_pending(pm, info, failures)
     for name, plugin_info in info.items():
         plugin = pm.get_plugin(name)
-        plugin_info.hooks = sorted(
-            caller.name for caller in pm.get_hookcallers(plugin) or ()
-        )
+        plugin_info.hooks = sorted(caller.name for caller in pm.get_hookcallers(plugin) or ())
     if _tracing():
         for name in info:
             sys.stderr.write(f"beamspread: loaded plug-in {name}\n")
@@ -149,9 +147,9 @@ def reset_plugin_manager() -> None:
     _state.cache_clear()
 
 
-def call_each(hook: str, make_kwargs: Callable[[str], dict[str, Any]]) -> Iterator[
-    tuple[str, Exception | None]
-]:
+def call_each(
+    hook: str, make_kwargs: Callable[[str], dict[str, Any]]
+) -> Iterator[tuple[str, Exception | None]]:
     """Call one hook's implementations one by one, built-ins first.
 
     ``make_kwargs(plugin_name)`` gives the keyword arguments for each call (so

@@ -39,8 +39,7 @@ __all__ = [
     "scan_depths",
 ]
 
-RULE = ("index step = narrowest beam width over the depths x (1 - overlap) "
-        "(common practice)")
+RULE = "index step = narrowest beam width over the depths x (1 - overlap) (common practice)"
 
 MAX_DEPTHS = 2000
 
@@ -75,8 +74,10 @@ def check_overlap(overlap) -> float:
     except (TypeError, ValueError):
         raise InputError(f"overlap: {overlap!r} is not a number") from None
     if not math.isfinite(value) or not 0.0 <= value < 1.0:
-        raise InputError(f"overlap: {overlap!r} is not allowed; give a fraction from 0 up to "
-                         "(not including) 1, e.g. 0.1 or '10%'")
+        raise InputError(
+            f"overlap: {overlap!r} is not allowed; give a fraction from 0 up to "
+            "(not including) 1, e.g. 0.1 or '10%'"
+        )
     return value
 
 
@@ -94,16 +95,22 @@ def parse_overlap(value) -> float:
     if isinstance(value, str):
         m = _PERCENT.match(value)
         if not m:
-            raise InputError(f"overlap: {value!r} is not a fraction or a percentage "
-                             "(e.g. 0.1 or 10%)")
+            raise InputError(
+                f"overlap: {value!r} is not a fraction or a percentage (e.g. 0.1 or 10%)"
+            )
         number = float(m.group(1))
         return check_overlap(number / 100.0 if m.group(2) else number)
     return check_overlap(value)
 
 
-def plan_scan(widths_by_depth: Mapping[float, float | None], overlap, *,
-              level_db: float | None = None, plane: str | None = None,
-              method: str = "given") -> ScanPlan:
+def plan_scan(
+    widths_by_depth: Mapping[float, float | None],
+    overlap,
+    *,
+    level_db: float | None = None,
+    plane: str | None = None,
+    method: str = "given",
+) -> ScanPlan:
     """The largest index step keeping ``overlap`` between passes over the depths given.
 
     Parameters
@@ -133,8 +140,10 @@ def plan_scan(widths_by_depth: Mapping[float, float | None], overlap, *,
     for depth, width in widths_by_depth.items():
         d = check_positive(depth, "scan depth", "m")
         if width is None or (isinstance(width, float) and math.isnan(width)):
-            raise InputError(f"scan plan: no beam width at depth {d * 1e3:g} mm (the level is "
-                             "not reached there); choose other depths or another level")
+            raise InputError(
+                f"scan plan: no beam width at depth {d * 1e3:g} mm (the level is "
+                "not reached there); choose other depths or another level"
+            )
         pairs.append((d, check_positive(width, f"beam width at depth {d * 1e3:g} mm", "m")))
     pairs.sort()
     depth, width = min(pairs, key=lambda p: (p[1], p[0]))
@@ -156,12 +165,18 @@ def scan_depths(start: float, stop: float, count: int) -> np.ndarray:
     start = check_positive(start, "first depth", "m")
     stop = check_positive(stop, "last depth", "m")
     if stop < start:
-        raise InputError(f"depth range: the last depth {stop * 1e3:g} mm lies before the first "
-                         f"{start * 1e3:g} mm")
-    if isinstance(count, bool) or not isinstance(count, (int, np.integer)) or not (
-            1 <= count <= MAX_DEPTHS):
-        raise InputError(f"depths: {count!r} is not allowed; give a whole number from 1 to "
-                         f"{MAX_DEPTHS}")
+        raise InputError(
+            f"depth range: the last depth {stop * 1e3:g} mm lies before the first "
+            f"{start * 1e3:g} mm"
+        )
+    if (
+        isinstance(count, bool)
+        or not isinstance(count, (int, np.integer))
+        or not (1 <= count <= MAX_DEPTHS)
+    ):
+        raise InputError(
+            f"depths: {count!r} is not allowed; give a whole number from 1 to {MAX_DEPTHS}"
+        )
     if count == 1 or stop == start:
         return np.array([start] * (1 if stop == start else count))
     return np.linspace(start, stop, int(count))
@@ -172,15 +187,27 @@ def _plane(probe, plane):
     if plane is None:
         return names[0]
     if plane not in names:
-        raise InputError(f"plane: {plane!r} is not a plane of this probe; use one of "
-                         f"{', '.join(names)}")
+        raise InputError(
+            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(names)}"
+        )
     return plane
 
 
-def field_widths(probe, speed: float, start: float, stop: float, *, count: int = 16,
-                 level_db: float = 6.0, plane: str | None = None, refine: bool = True,
-                 bandwidth: float = 0.0, mode: str = "pulse-echo", frequencies: int = 32,
-                 spectrum: str = "gaussian") -> dict[float, float]:
+def field_widths(
+    probe,
+    speed: float,
+    start: float,
+    stop: float,
+    *,
+    count: int = 16,
+    level_db: float = 6.0,
+    plane: str | None = None,
+    refine: bool = True,
+    bandwidth: float = 0.0,
+    mode: str = "pulse-echo",
+    frequencies: int = 32,
+    spectrum: str = "gaussian",
+) -> dict[float, float]:
     """Beam widths of the computed field over a depth range, m, by depth (m).
 
     ``count`` depths from ``start`` to ``stop`` (:func:`scan_depths`), each
@@ -193,8 +220,13 @@ def field_widths(probe, speed: float, start: float, stop: float, *, count: int =
     from .field import beam_widths
 
     plane = _plane(probe, plane)
-    kwargs = {"plane": plane, "bandwidth": bandwidth, "mode": mode,
-              "frequencies": frequencies, "spectrum": spectrum}
+    kwargs = {
+        "plane": plane,
+        "bandwidth": bandwidth,
+        "mode": mode,
+        "frequencies": frequencies,
+        "spectrum": spectrum,
+    }
 
     def width(depth: float) -> float:
         return float(beam_widths(probe, speed, depth, [level_db], **kwargs)[0].width)
@@ -214,9 +246,17 @@ def field_widths(probe, speed: float, start: float, stop: float, *, count: int =
     return out
 
 
-def far_field_widths(probe, speed: float, start: float, stop: float, *, count: int = 16,
-                     level_db: float = 6.0, plane: str | None = None,
-                     mode: str = "pulse-echo") -> dict[float, float]:
+def far_field_widths(
+    probe,
+    speed: float,
+    start: float,
+    stop: float,
+    *,
+    count: int = 16,
+    level_db: float = 6.0,
+    plane: str | None = None,
+    mode: str = "pulse-echo",
+) -> dict[float, float]:
     """Far-field widths ``2 z tan(theta)`` over a depth range, m, by depth (m).
 
     The far-field cone widens with depth, so the first depth governs; it
@@ -234,9 +274,20 @@ def far_field_widths(probe, speed: float, start: float, stop: float, *, count: i
     return {float(d): 2.0 * float(d) * math.tan(theta) for d in dict.fromkeys(depths.tolist())}
 
 
-def plan_scan_for(probe, speed: float, start: float, stop: float, overlap, *,
-                  count: int = 16, level_db: float = 6.0, plane: str | None = None,
-                  method: str = "field", mode: str = "pulse-echo", **field) -> ScanPlan:
+def plan_scan_for(
+    probe,
+    speed: float,
+    start: float,
+    stop: float,
+    overlap,
+    *,
+    count: int = 16,
+    level_db: float = 6.0,
+    plane: str | None = None,
+    method: str = "field",
+    mode: str = "pulse-echo",
+    **field,
+) -> ScanPlan:
     """:func:`plan_scan` over widths from :func:`field_widths` or :func:`far_field_widths`.
 
     ``method`` is ``"field"`` (the computed field, near field included; extra
@@ -245,11 +296,21 @@ def plan_scan_for(probe, speed: float, start: float, stop: float, overlap, *,
     check_overlap(overlap)
     plane = _plane(probe, plane)
     if method == "field":
-        widths = field_widths(probe, speed, start, stop, count=count, level_db=level_db,
-                              plane=plane, mode=mode, **field)
+        widths = field_widths(
+            probe,
+            speed,
+            start,
+            stop,
+            count=count,
+            level_db=level_db,
+            plane=plane,
+            mode=mode,
+            **field,
+        )
     elif method == "far-field":
-        widths = far_field_widths(probe, speed, start, stop, count=count, level_db=level_db,
-                                  plane=plane, mode=mode)
+        widths = far_field_widths(
+            probe, speed, start, stop, count=count, level_db=level_db, plane=plane, mode=mode
+        )
     else:
         raise InputError(f"method: {method!r} is unknown; use field or far-field")
     return plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)

@@ -140,18 +140,18 @@ def _check(key: _Key, value):
         return value
     if kind == "conditions":
         if not isinstance(value, dict):
-            raise InputError(f"{name}: give a table such as {{ salinity = \"35\" }}")
+            raise InputError(f'{name}: give a table such as {{ salinity = "35" }}')
         out = []
         for cname, text in value.items():
             if not re.fullmatch(r"[a-z][a-z0-9_-]*", str(cname)):
                 raise InputError(f"{name}: {cname!r} is not a condition name (lower case)")
             if not isinstance(text, str) or not text.strip():
-                raise InputError(f"{name}.{cname}: give the value as a string, e.g. \"35\"")
+                raise InputError(f'{name}.{cname}: give the value as a string, e.g. "35"')
             out.append((str(cname), text))
         return tuple(out)
     if kind in ("lengths", "levels"):
         if not isinstance(value, (list, tuple)):
-            raise InputError(f"{name}: give a list, e.g. [\"20 mm\", \"40 mm\"]")
+            raise InputError(f'{name}: give a list, e.g. ["20 mm", "40 mm"]')
         return tuple(_one(name, kind, v) for v in value)
     return _one(name, kind, value)
 
@@ -164,19 +164,26 @@ def _one(name: str, kind: str, value):
         return str(value)  # kept as written, as text
     kind = "length" if kind == "lengths" else kind
     if not isinstance(value, str):
-        raise InputError(f"{name}: {value!r} has no unit; write it as a string with its unit, "
-                         f"e.g. \"{_EXAMPLES[kind]}\"")
+        raise InputError(
+            f"{name}: {value!r} has no unit; write it as a string with its unit, "
+            f'e.g. "{_EXAMPLES[kind]}"'
+        )
     m = re.fullmatch(r"\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s*(.*?)\s*", value)
     if m is not None and not m.group(1):
-        raise InputError(f"{name}: {value!r} has no unit; write e.g. \"{_EXAMPLES[kind]}\"")
+        raise InputError(f'{name}: {value!r} has no unit; write e.g. "{_EXAMPLES[kind]}"')
     number = parse_quantity(value, kind, what=name)
     if kind != "temperature" and not number > 0 and not (kind == "angle" and number == 0):
         raise InputError(f"{name}: {value!r} is not allowed; it must be above 0")
     return value
 
 
-_EXAMPLES = {"length": "10 mm", "frequency": "5 MHz", "speed": "5920 m/s",
-             "temperature": "20 degC", "angle": "45 deg"}
+_EXAMPLES = {
+    "length": "10 mm",
+    "frequency": "5 MHz",
+    "speed": "5920 m/s",
+    "temperature": "20 degC",
+    "angle": "45 deg",
+}
 
 
 @dataclass(frozen=True)
@@ -233,8 +240,10 @@ class Setup:
         if (self.material is None) == (self.speed is None):
             raise InputError("medium: give either a material or a speed")
         if self.speed is not None and (self.temperature is not None or self.conditions):
-            raise InputError("medium: temperature and conditions describe a material; with a "
-                             "speed they mean nothing")
+            raise InputError(
+                "medium: temperature and conditions describe a material; with a "
+                "speed they mean nothing"
+            )
         if self.wedge is not None and self.wedge_speed is not None:
             raise InputError("wedge: give either its material or its speed, not both")
         if self.incident is not None and self.refracted is not None:
@@ -276,8 +285,9 @@ class Setup:
         return args
 
     @classmethod
-    def from_options(cls, options: dict[str, object], *, title: str | None = None,
-                     description: str | None = None) -> Setup:
+    def from_options(
+        cls, options: dict[str, object], *, title: str | None = None, description: str | None = None
+    ) -> Setup:
         """The setup a command line describes: the inverse of :meth:`to_options`.
 
         Values are strings with units as typed; numbers are taken in the SI
@@ -294,8 +304,9 @@ class Setup:
             key = _BY_OPTION.get(option)
             if key is None:
                 known = ", ".join(sorted([*_BY_OPTION, *_MODE_FLAGS]))
-                raise InputError(f"option {option}: a setup file cannot record it; it records "
-                                 f"{known}")
+                raise InputError(
+                    f"option {option}: a setup file cannot record it; it records {known}"
+                )
             if value is None or value == () or value == []:
                 continue
             if key.kind == "conditions":
@@ -314,8 +325,14 @@ class Setup:
         return cls(**{k: v for k, v in values.items() if v is not None})
 
 
-_SI_UNITS = {"length": (1e3, "mm"), "lengths": (1e3, "mm"), "frequency": (1e-6, "MHz"),
-             "speed": (1.0, "m/s"), "temperature": (1.0, "degC"), "angle": (1.0, "deg")}
+_SI_UNITS = {
+    "length": (1e3, "mm"),
+    "lengths": (1e3, "mm"),
+    "frequency": (1e-6, "MHz"),
+    "speed": (1.0, "m/s"),
+    "temperature": (1.0, "degC"),
+    "angle": (1.0, "deg"),
+}
 
 
 def _text(key: _Key, value):
@@ -349,8 +366,11 @@ def _line_of(text: str, section: str, key: str | None) -> int | None:
             if key is None and current == section:
                 return number
             continue
-        if key is not None and current == section and re.match(
-                rf"^\s*(\"{re.escape(key)}\"|{re.escape(key)})\s*=", line):
+        if (
+            key is not None
+            and current == section
+            and re.match(rf"^\s*(\"{re.escape(key)}\"|{re.escape(key)})\s*=", line)
+        ):
             return number
     return None
 
@@ -369,11 +389,17 @@ def parse_setup(text: str, path: str = "<setup>") -> Setup:
     except tomllib.TOMLDecodeError as exc:
         raise InputError(f"{path}: not valid TOML: {exc}") from None
     if "format" not in data:
-        raise InputError(f"{path}: key 'format' is missing; the first line should read "
-                         f"format = {FORMAT}")
+        raise InputError(
+            f"{path}: key 'format' is missing; the first line should read format = {FORMAT}"
+        )
     if data["format"] != FORMAT or isinstance(data["format"], bool):
-        raise _fail(path, text, "", "format",
-                    f"{data['format']!r} is not a format this version reads (it reads {FORMAT})")
+        raise _fail(
+            path,
+            text,
+            "",
+            "format",
+            f"{data['format']!r} is not a format this version reads (it reads {FORMAT})",
+        )
     values: dict[str, object] = {}
     keys = {(k.section, k.key): k for k in _KEYS}
     for name, value in data.items():
@@ -388,15 +414,21 @@ def parse_setup(text: str, path: str = "<setup>") -> Setup:
                 try:
                     values[key.field] = _check(key, item)
                 except InputError as exc:
-                    raise _fail(path, text, name, sub,
-                                str(exc).removeprefix(f"{_where(key)}: ")) from None
+                    raise _fail(
+                        path, text, name, sub, str(exc).removeprefix(f"{_where(key)}: ")
+                    ) from None
             continue
         key = keys.get(("", name))
         if key is None:
             what = "section" if isinstance(value, dict) else "key"
-            raise _fail(path, text, name if what == "section" else "", None if what ==
-                        "section" else name, f"unknown {what}; a setup has format, title, "
-                        f"description and the sections {', '.join(_SECTIONS)}")
+            raise _fail(
+                path,
+                text,
+                name if what == "section" else "",
+                None if what == "section" else name,
+                f"unknown {what}; a setup has format, title, "
+                f"description and the sections {', '.join(_SECTIONS)}",
+            )
         try:
             values[key.field] = _check(key, value)
         except InputError as exc:
@@ -409,8 +441,9 @@ def parse_setup(text: str, path: str = "<setup>") -> Setup:
         return Setup(**values)
     except InputError as exc:
         section = str(exc).split(":", 1)[0]
-        raise _fail(path, text, section if section in _SECTIONS else "", None,
-                    str(exc).split(": ", 1)[-1]) from None
+        raise _fail(
+            path, text, section if section in _SECTIONS else "", None, str(exc).split(": ", 1)[-1]
+        ) from None
 
 
 def load_setup(path: str | os.PathLike) -> Setup:
@@ -482,8 +515,7 @@ def save_setup(setup: Setup, path: str | os.PathLike, *, force: bool = False) ->
     if target.exists() and not force:
         raise InputError(f"{str(path)!r} exists; use --force to overwrite it")
     text = dumps_setup(setup)
-    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.",
-                                     suffix=".part")
+    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
     try:
         with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as handle:
             handle.write(text)

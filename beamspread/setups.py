@@ -136,12 +136,13 @@ def refract(
     first, second = critical_angles(c_wedge, c_longitudinal, c_shear)
     if refracted is not None:
         if not 0.0 <= refracted < _RIGHT:
-            raise InputError(f"refracted angle {math.degrees(refracted):g} deg is not allowed; "
-                             "it must lie from 0 up to (not at) 90 degrees")
+            raise InputError(
+                f"refracted angle {math.degrees(refracted):g} deg is not allowed; "
+                "it must lie from 0 up to (not at) 90 degrees"
+            )
         c_mode = c_longitudinal if wave == "longitudinal" else c_shear
         if c_mode is None:
-            raise InputError(f"the part's {wave} speed is not known (or it carries no shear "
-                             "wave)")
+            raise InputError(f"the part's {wave} speed is not known (or it carries no shear wave)")
         s = c_wedge * math.sin(refracted) / c_mode
         if s >= 1.0:  # only where the mode is slower in the part than in the wedge
             largest = math.degrees(math.asin(c_mode / c_wedge))
@@ -152,11 +153,14 @@ def refract(
         incident = math.asin(s)
     assert incident is not None
     if not 0.0 <= incident < _RIGHT:
-        raise InputError(f"incident angle {math.degrees(incident):g} deg is not allowed; "
-                         "it must lie from 0 up to (not at) 90 degrees")
+        raise InputError(
+            f"incident angle {math.degrees(incident):g} deg is not allowed; "
+            "it must lie from 0 up to (not at) 90 degrees"
+        )
     sin_in = math.sin(incident)
-    beta_l = (float(_snell(sin_in, c_wedge, c_longitudinal)) if c_longitudinal is not None
-              else math.nan)
+    beta_l = (
+        float(_snell(sin_in, c_wedge, c_longitudinal)) if c_longitudinal is not None else math.nan
+    )
     beta_s = float(_snell(sin_in, c_wedge, c_shear)) if c_shear is not None else math.nan
     return Refraction(
         incident=incident,
@@ -176,8 +180,9 @@ def effective_aperture(aperture: float, incident: float, refracted: float) -> fl
     return aperture * math.cos(refracted) / math.cos(incident)
 
 
-def wedge_near_field(near_field_in_part: float, wedge_path: float, c_wedge: float,
-                     c_part: float) -> float:
+def wedge_near_field(
+    near_field_in_part: float, wedge_path: float, c_wedge: float, c_part: float
+) -> float:
     """Near field left in the part after a wedge, m (may be negative: then none is left).
 
     Common practice: the wedge path counts as ``wedge_path * c_wedge / c_part``
@@ -186,8 +191,9 @@ def wedge_near_field(near_field_in_part: float, wedge_path: float, c_wedge: floa
     return near_field_in_part - wedge_path * c_wedge / c_part
 
 
-def immersion_near_field(near_field_in_water: float, water_path: float, c_water: float,
-                         c_part: float) -> float | None:
+def immersion_near_field(
+    near_field_in_water: float, water_path: float, c_water: float, c_part: float
+) -> float | None:
     """Near field in the part after a water path, m; None where the part lies in the far field.
 
     Common practice: ``(N_water - WP) * c_water / c_part`` for ``WP < N_water``.
@@ -262,8 +268,10 @@ def focused_disc_axial_pressure(z, diameter: float, focal_length: float, wavelen
     z = np.asarray(z, dtype=float)
     a = 0.5 * diameter
     if focal_length <= a:
-        raise InputError(f"focal length {focal_length * 1e3:g} mm is not allowed; it must "
-                         f"exceed the element's radius ({a * 1e3:g} mm)")
+        raise InputError(
+            f"focal length {focal_length * 1e3:g} mm is not allowed; it must "
+            f"exceed the element's radius ({a * 1e3:g} mm)"
+        )
     k = 2.0 * np.pi / wavelength
     h = focal_length - math.sqrt(focal_length**2 - a * a)
     r1 = np.sqrt((z - h) ** 2 + a * a)
@@ -274,8 +282,9 @@ def focused_disc_axial_pressure(z, diameter: float, focal_length: float, wavelen
         return np.where(near, k * h, num / np.where(near, 1.0, den))
 
 
-def focal_depth_in_part(focal_length: float, water_path: float, c_water: float,
-                        c_part: float) -> float | None:
+def focal_depth_in_part(
+    focal_length: float, water_path: float, c_water: float, c_part: float
+) -> float | None:
     """Paraxial focal depth in the part after a water path, m; None if the focus lies in water.
 
     Common practice: ``(F - WP) * c_water / c_part``.

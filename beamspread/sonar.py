@@ -202,8 +202,7 @@ def rectangle_directivity_factor(length: float, width: float, wavelength: float)
     c, s = np.cos(phi), np.sin(phi)
     edge = np.concatenate([length / np.cos(phi1), width / np.sin(phi2)])
     f0, f1, f2 = _sin_moments(k * edge)
-    integrand = (length * width * f0 / k - (width * c + length * s) * f1 / k**2
-                 + c * s * f2 / k**3)
+    integrand = length * width * f0 / k - (width * c + length * s) * f1 / k**2 + c * s * f2 / k**3
     total = 4.0 * float(integrand @ weights)
     area = length * width
     return 2.0 * k * area * area / total
@@ -252,8 +251,9 @@ def rayleigh_distance(probe: Probe, wavelength: float) -> float:
 # ----------------------------------------------------------------- angles and side lobes
 
 
-def full_angle(level_db, aperture, wavelength, shape: str = "disc",
-               mode: str = SONAR_MODE) -> np.ndarray:
+def full_angle(
+    level_db, aperture, wavelength, shape: str = "disc", mode: str = SONAR_MODE
+) -> np.ndarray:
     """Full angle (rad) of the main lobe at ``level_db`` dB down: twice :func:`pattern.half_angle`.
 
     NaN where the pattern has not fallen to the level by 90 degrees.
@@ -290,11 +290,13 @@ def _side_lobe_x(shape: str) -> tuple[float, float]:
         raise InputError(f"shape {shape!r} is unknown; use one of {', '.join(pattern.SHAPES)}")
     lo = pattern.first_null_x(shape) + 1e-3
     if shape == "side":
+
         def slope(x: float) -> float:
             return math.sin(x) - x * math.cos(x)
 
         hi = 1.5 * math.pi - 1e-3
     else:
+
         def slope(x: float) -> float:
             return float(jinc(x)) - _j0(x)
 
@@ -339,8 +341,13 @@ class SideLobe:
     angle_deg: float | None  # from the axis; None where it would lie beyond 90 degrees
 
 
-def first_side_lobe(aperture: float, wavelength: float, shape: str = "disc",
-                    mode: str = SONAR_MODE, plane: str = "diameter") -> SideLobe:
+def first_side_lobe(
+    aperture: float,
+    wavelength: float,
+    shape: str = "disc",
+    mode: str = SONAR_MODE,
+    plane: str = "diameter",
+) -> SideLobe:
     """Level and angle of the first side lobe of an aperture.
 
     The angle is None where the lobe would lie beyond 90 degrees (an
@@ -418,10 +425,10 @@ def equivalent_beam_angle(probe: Probe, wavelength: float) -> float:
         total = 0.0
         step = max(1, (1 << 20) // n)
         for start in range(0, n, step):
-            st = np.sin(theta[start:start + step, None])
+            st = np.sin(theta[start : start + step, None])
             u, v = st * np.cos(phi), st * np.sin(phi)
             d = np.sinc(kl * u / np.pi) * np.sinc(kw * v / np.pi)
-            total += float(((d**4 * st) @ wp) @ wt[start:start + step])
+            total += float(((d**4 * st) @ wp) @ wt[start : start + step])
         return 4.0 * total
     raise InputError(f"probe: {probe!r} is not a Disc or a Rectangle")
 
@@ -458,8 +465,9 @@ def depth_range(start: float, stop: float, step: float) -> tuple[float, ...]:
         raise InputError(f"depth range: the stop {stop:g} m lies before the start {start:g} m")
     count = math.floor((stop - start) / step * (1.0 + 1e-12)) + 1
     if count > 10000:
-        raise InputError(f"depth range: {count} depths is too many; use a larger step "
-                         "(at most 10000 depths)")
+        raise InputError(
+            f"depth range: {count} depths is too many; use a larger step (at most 10000 depths)"
+        )
     return tuple(float(start + i * step) for i in range(count))
 
 
@@ -513,8 +521,12 @@ def source_level(power, efficiency, directivity_index_db, constant: float = 170.
         raise InputError("power: give the electrical power in W, above 0")
     if np.any(~np.isfinite(eta)) or np.any(eta <= 0) or np.any(eta > 1):
         raise InputError("efficiency: give a fraction above 0 and at most 1 (0.5 for 50 %)")
-    return constant + 10.0 * np.log10(p) + 10.0 * np.log10(eta) + np.asarray(
-        directivity_index_db, dtype=float)
+    return (
+        constant
+        + 10.0 * np.log10(p)
+        + 10.0 * np.log10(eta)
+        + np.asarray(directivity_index_db, dtype=float)
+    )
 
 
 @dataclass(frozen=True)
@@ -543,13 +555,25 @@ class EchoBudget:
 
     @property
     def terms(self) -> tuple[Term, ...]:
-        return (self.source_level, self.spreading_loss, self.absorption_loss,
-                self.bottom_loss, self.received_level)
+        return (
+            self.source_level,
+            self.spreading_loss,
+            self.absorption_loss,
+            self.bottom_loss,
+            self.received_level,
+        )
 
 
-def echo_budget(*, power: float, efficiency: float, directivity_index_db: float,
-                range_m: float, absorption_db_per_km: float = 0.0,
-                bottom_loss_db: float = 0.0, constant: float = 170.8) -> EchoBudget:
+def echo_budget(
+    *,
+    power: float,
+    efficiency: float,
+    directivity_index_db: float,
+    range_m: float,
+    absorption_db_per_km: float = 0.0,
+    bottom_loss_db: float = 0.0,
+    constant: float = 170.8,
+) -> EchoBudget:
     """A simple sonar-equation budget for the echo of a bottom at ``range_m``.
 
     Parameters
@@ -594,8 +618,10 @@ def echo_budget(*, power: float, efficiency: float, directivity_index_db: float,
     """
     range_m = check_positive(range_m, "range", "m")
     if range_m < 1.0:
-        raise InputError(f"range: {range_m:g} m lies inside the 1 m reference distance of the "
-                         "source level; give a range of at least 1 m")
+        raise InputError(
+            f"range: {range_m:g} m lies inside the 1 m reference distance of the "
+            "source level; give a range of at least 1 m"
+        )
     for value, name in ((absorption_db_per_km, "absorption"), (bottom_loss_db, "bottom loss")):
         if not math.isfinite(value) or value < 0:
             raise InputError(f"{name}: {value!r} dB is not allowed; give 0 or more")
@@ -605,14 +631,18 @@ def echo_budget(*, power: float, efficiency: float, directivity_index_db: float,
     received = sl - spreading - absorption - bottom_loss_db
     return EchoBudget(
         range_m=range_m,
-        source_level=Term("source level", sl,
-                          f"{constant:g} + 10 log10(P) + 10 log10(eta) + DI",
-                          "dB re 1 uPa at 1 m"),
+        source_level=Term(
+            "source level",
+            sl,
+            f"{constant:g} + 10 log10(P) + 10 log10(eta) + DI",
+            "dB re 1 uPa at 1 m",
+        ),
         spreading_loss=Term("two-way spreading loss", spreading, "40 log10(R / 1 m)"),
         absorption_loss=Term("two-way absorption loss", absorption, "2 alpha R"),
         bottom_loss=Term("bottom reflection loss", float(bottom_loss_db), "given"),
-        received_level=Term("received echo level", received, "SL - 40 log10 R - 2 alpha R - BL",
-                            "dB re 1 uPa"),
+        received_level=Term(
+            "received echo level", received, "SL - 40 log10 R - 2 alpha R - BL", "dB re 1 uPa"
+        ),
     )
 
 
@@ -641,8 +671,9 @@ class SonarFigures:
     absorption_db_per_km: float | None = None
 
 
-def sonar_figures(result, *, bottom_depths: Sequence[float] = (),
-                  absorption_db_per_km: float | None = None) -> SonarFigures:
+def sonar_figures(
+    result, *, bottom_depths: Sequence[float] = (), absorption_db_per_km: float | None = None
+) -> SonarFigures:
     """Directivity, full angles, side lobes, psi and footprints of an analysed beam.
 
     Parameters
@@ -673,13 +704,22 @@ def sonar_figures(result, *, bottom_depths: Sequence[float] = (),
     probe, wavelength = result.probe, result.wavelength
     shape = "disc" if isinstance(probe, Disc) else "side"
     q = directivity_factor(probe, wavelength)
-    method = ("exact: (ka)^2 / (1 - J1(2ka)/(ka))" if shape == "disc" else
-              "exact: from the radiation resistance (integral over the face autocorrelation)")
-    full = {plane.name: {key: (None if value is None else 2.0 * value)
-                         for key, value in plane.half_angles.items()}
-            for plane in result.planes}
-    lobes = tuple(first_side_lobe(aperture, wavelength, shape, result.convention.mode, name)
-                  for name, aperture in probe.planes)
+    method = (
+        "exact: (ka)^2 / (1 - J1(2ka)/(ka))"
+        if shape == "disc"
+        else "exact: from the radiation resistance (integral over the face autocorrelation)"
+    )
+    full = {
+        plane.name: {
+            key: (None if value is None else 2.0 * value)
+            for key, value in plane.half_angles.items()
+        }
+        for plane in result.planes
+    }
+    lobes = tuple(
+        first_side_lobe(aperture, wavelength, shape, result.convention.mode, name)
+        for name, aperture in probe.planes
+    )
     psi = equivalent_beam_angle(probe, wavelength)
     depths = []
     for depth in bottom_depths:
@@ -697,10 +737,14 @@ def sonar_figures(result, *, bottom_depths: Sequence[float] = (),
             key = level_key(level)
             for plane in result.planes:
                 angle = plane.half_angles.get(key)
-                width = (None if angle is None
-                         else float(footprint_width(depth, math.radians(angle))))
-                prints.append(Footprint(depth, -abs(level), plane.name, width,
-                                        near is not None and depth < near))
+                width = (
+                    None if angle is None else float(footprint_width(depth, math.radians(angle)))
+                )
+                prints.append(
+                    Footprint(
+                        depth, -abs(level), plane.name, width, near is not None and depth < near
+                    )
+                )
     return SonarFigures(
         mode=result.convention.mode,
         directivity_factor=q,

@@ -49,41 +49,94 @@ class _Kind:
 _INCH = 0.0254
 _F = 5.0 / 9.0
 KINDS: dict[str, _Kind] = {
-    "length": _Kind("length", "mm", {
-        "m": (1.0, 0.0), "km": (1e3, 0.0), "cm": (1e-2, 0.0), "mm": (1e-3, 0.0),
-        "um": (1e-6, 0.0), "µm": (1e-6, 0.0), "in": (_INCH, 0.0), "ft": (12 * _INCH, 0.0),
-    }),
-    "frequency": _Kind("frequency", "MHz", {
-        "Hz": (1.0, 0.0), "kHz": (1e3, 0.0), "MHz": (1e6, 0.0), "GHz": (1e9, 0.0),
-    }),
-    "speed": _Kind("speed", "m/s", {
-        "m/s": (1.0, 0.0), "km/s": (1e3, 0.0), "mm/us": (1e3, 0.0), "mm/µs": (1e3, 0.0),
-        "in/us": (_INCH * 1e6, 0.0), "in/µs": (_INCH * 1e6, 0.0), "ft/s": (12 * _INCH, 0.0),
-    }),
-    "temperature": _Kind("temperature", "degC", {
-        "degC": (1.0, 0.0), "°C": (1.0, 0.0), "C": (1.0, 0.0),
-        "degF": (_F, -32.0 * _F), "°F": (_F, -32.0 * _F), "F": (_F, -32.0 * _F),
-        "K": (1.0, -273.15),
-    }),
-    "density": _Kind("density", "kg/m3", {
-        "kg/m3": (1.0, 0.0), "kg/m^3": (1.0, 0.0), "g/cm3": (1e3, 0.0), "g/cm^3": (1e3, 0.0),
-    }),
-    "salinity": _Kind("salinity", "g/kg", {
-        "g/kg": (1.0, 0.0), "ppt": (1.0, 0.0), "psu": (1.0, 0.0), "‰": (1.0, 0.0),
-    }),
-    "pressure": _Kind("pressure", "dbar", {
-        "dbar": (1.0, 0.0), "bar": (10.0, 0.0), "kPa": (0.1, 0.0), "MPa": (100.0, 0.0),
-        "Pa": (1e-4, 0.0),
-    }),
+    "length": _Kind(
+        "length",
+        "mm",
+        {
+            "m": (1.0, 0.0),
+            "km": (1e3, 0.0),
+            "cm": (1e-2, 0.0),
+            "mm": (1e-3, 0.0),
+            "um": (1e-6, 0.0),
+            "µm": (1e-6, 0.0),
+            "in": (_INCH, 0.0),
+            "ft": (12 * _INCH, 0.0),
+        },
+    ),
+    "frequency": _Kind(
+        "frequency",
+        "MHz",
+        {
+            "Hz": (1.0, 0.0),
+            "kHz": (1e3, 0.0),
+            "MHz": (1e6, 0.0),
+            "GHz": (1e9, 0.0),
+        },
+    ),
+    "speed": _Kind(
+        "speed",
+        "m/s",
+        {
+            "m/s": (1.0, 0.0),
+            "km/s": (1e3, 0.0),
+            "mm/us": (1e3, 0.0),
+            "mm/µs": (1e3, 0.0),
+            "in/us": (_INCH * 1e6, 0.0),
+            "in/µs": (_INCH * 1e6, 0.0),
+            "ft/s": (12 * _INCH, 0.0),
+        },
+    ),
+    "temperature": _Kind(
+        "temperature",
+        "degC",
+        {
+            "degC": (1.0, 0.0),
+            "°C": (1.0, 0.0),
+            "C": (1.0, 0.0),
+            "degF": (_F, -32.0 * _F),
+            "°F": (_F, -32.0 * _F),
+            "F": (_F, -32.0 * _F),
+            "K": (1.0, -273.15),
+        },
+    ),
+    "density": _Kind(
+        "density",
+        "kg/m3",
+        {
+            "kg/m3": (1.0, 0.0),
+            "kg/m^3": (1.0, 0.0),
+            "g/cm3": (1e3, 0.0),
+            "g/cm^3": (1e3, 0.0),
+        },
+    ),
+    "salinity": _Kind(
+        "salinity",
+        "g/kg",
+        {
+            "g/kg": (1.0, 0.0),
+            "ppt": (1.0, 0.0),
+            "psu": (1.0, 0.0),
+            "‰": (1.0, 0.0),
+        },
+    ),
+    "pressure": _Kind(
+        "pressure",
+        "dbar",
+        {
+            "dbar": (1.0, 0.0),
+            "bar": (10.0, 0.0),
+            "kPa": (0.1, 0.0),
+            "MPa": (100.0, 0.0),
+            "Pa": (1e-4, 0.0),
+        },
+    ),
     "percent": _Kind("percent", "%", {"%": (1.0, 0.0)}),
     "angle": _Kind("angle", "deg", {"deg": (1.0, 0.0), "°": (1.0, 0.0)}),
     "number": _Kind("number", "", {}),
 }
 # Case-insensitive aliases, built once: "mhz" -> "MHz". Ambiguous spellings
 # ("mm" vs "Mm") do not exist among the units above.
-_FOLDED = {
-    kind: {unit.lower(): unit for unit in k.to_si} for kind, k in KINDS.items()
-}
+_FOLDED = {kind: {unit.lower(): unit for unit in k.to_si} for kind, k in KINDS.items()}
 
 
 def parse_quantity(

@@ -40,8 +40,9 @@ def plugin():
     def register(obj, name):
         pm = plugins.get_plugin_manager()
         pm.register(obj, name=name)
-        plugins._state().info[name] = plugins.PluginInfo(name, builtin=False,
-                                                         distribution="test", version="0")
+        plugins._state().info[name] = plugins.PluginInfo(
+            name, builtin=False, distribution="test", version="0"
+        )
         registered.append(name)
         return obj
 

@@ -104,20 +104,24 @@ def test_media_wire_their_absorption():
     registry = build_registry()
     sea = registry.get("seawater").medium
     assert sea.absorption_db_per_km(200e3) == pytest.approx(
-        float(ab.francois_garrison(200e3, 10.0, 35.0, 0.0, 8.0)))
+        float(ab.francois_garrison(200e3, 10.0, 35.0, 0.0, 8.0))
+    )
     got = sea.absorption_db_per_km(50e3, {"temperature": 4.0, "depth": 100.0, "ph": 7.9})
     assert got == pytest.approx(float(ab.francois_garrison(50e3, 4.0, 35.0, 100.0, 7.9)))
     water = registry.get("water").medium
     assert water.absorption_db_per_km(2e6, {"temperature": 30.0}) == pytest.approx(
-        float(ab.fresh_water(2e6, 30.0)))
+        float(ab.fresh_water(2e6, 30.0))
+    )
     air = registry.get("air").medium
     assert air.absorption_db_per_km(40e3, {"humidity": 30.0}) == pytest.approx(
-        float(ab.air_iso9613(40e3, 20.0, 30.0, 101.325)))
+        float(ab.air_iso9613(40e3, 20.0, 30.0, 101.325))
+    )
     unesco = registry.get("seawater-unesco").medium
     # depth given as pressure: the same absorption within the depth-to-pressure round trip
     by_depth = unesco.absorption_db_per_km(20e3, {"depth": 2000.0})
-    assert by_depth == pytest.approx(float(ab.francois_garrison(20e3, 10.0, 35.0, 2000.0)),
-                                     rel=1e-9)
+    assert by_depth == pytest.approx(
+        float(ab.francois_garrison(20e3, 10.0, 35.0, 2000.0)), rel=1e-9
+    )
 
 
 def test_absorption_conditions_are_checked():
@@ -137,8 +141,14 @@ def test_absorption_conditions_are_checked():
 def test_a_medium_without_absorption_says_none():
     from beamspread import ComputedMedium, Parameter
 
-    medium = ComputedMedium("demo-gel", "liquid", lambda temperature: 1500.0, source="demo",
-                            parameters=(Parameter("temperature", "temperature", "degC", 20.0,
-                                                  (0.0, 40.0), (-10.0, 60.0)),))
+    medium = ComputedMedium(
+        "demo-gel",
+        "liquid",
+        lambda temperature: 1500.0,
+        source="demo",
+        parameters=(
+            Parameter("temperature", "temperature", "degC", 20.0, (0.0, 40.0), (-10.0, 60.0)),
+        ),
+    )
     assert medium.absorption_db_per_km(1e6) is None
     assert medium.evaluate_absorption(1e6) is None

@@ -31,8 +31,9 @@ def kinsler_frey(z, diameter, lam):
 
 def test_disc_axis_matches_kinsler_frey():
     z = np.geomspace(1e-4, 0.5, 2000)
-    assert np.allclose(disc_axial_pressure(z, 0.010, LAM), kinsler_frey(z, 0.010, LAM),
-                       rtol=0, atol=1e-9)
+    assert np.allclose(
+        disc_axial_pressure(z, 0.010, LAM), kinsler_frey(z, 0.010, LAM), rtol=0, atol=1e-9
+    )
 
 
 @pytest.mark.parametrize("m", [0, 1, 2, 3])
@@ -50,8 +51,11 @@ def test_disc_axis_maxima_and_zeros_where_kinsler_frey_put_them(m):
 def test_disc_near_field_is_the_last_maximum():
     # (D^2 - lambda^2)/(4 lambda) is the m = 0 maximum of Kinsler & Frey's closed form.
     found = scipy.optimize.minimize_scalar(
-        lambda z: -kinsler_frey(z, 0.010, LAM), bounds=(0.015, 0.03), method="bounded",
-        options={"xatol": 1e-12})
+        lambda z: -kinsler_frey(z, 0.010, LAM),
+        bounds=(0.015, 0.03),
+        method="bounded",
+        options={"xatol": 1e-12},
+    )
     assert float(disc_near_field(0.010, LAM)) == pytest.approx(found.x, rel=1e-7)
     assert math.isnan(float(disc_near_field(0.001, LAM)))  # D < lambda: no maximum
 
@@ -67,17 +71,30 @@ def rayleigh_brute_force(z, length, width, lam):
     def part(f):
         return scipy.integrate.dblquad(
             lambda y, x: f(k * math.sqrt(x * x + y * y + z * z)) / math.sqrt(x * x + y * y + z * z),
-            0, a, 0, b, epsabs=1e-11, epsrel=1e-11)[0]
+            0,
+            a,
+            0,
+            b,
+            epsabs=1e-11,
+            epsrel=1e-11,
+        )[0]
 
     re = part(math.cos)
     im = part(math.sin)
     return 4 * k / (2 * math.pi) * math.hypot(re, im)
 
 
-@pytest.mark.parametrize(("length", "width", "z"), [
-    (0.010, 0.010, 0.005), (0.010, 0.010, 0.0285), (0.010, 0.010, 0.08),
-    (0.020, 0.005, 0.02), (0.020, 0.005, 0.09), (0.003, 0.002, 0.001),
-])
+@pytest.mark.parametrize(
+    ("length", "width", "z"),
+    [
+        (0.010, 0.010, 0.005),
+        (0.010, 0.010, 0.0285),
+        (0.010, 0.010, 0.08),
+        (0.020, 0.005, 0.02),
+        (0.020, 0.005, 0.09),
+        (0.003, 0.002, 0.001),
+    ],
+)
 def test_rectangle_axis_matches_brute_force_rayleigh(length, width, z):
     ours = float(rectangle_axial_pressure(z, length, width, LAM))
     assert ours == pytest.approx(rayleigh_brute_force(z, length, width, LAM), rel=1e-7)
@@ -103,16 +120,24 @@ def radial_form(z, length, width, lam):
     ends = [z, math.hypot(z, b), math.hypot(z, a), math.hypot(z, math.hypot(a, b))]
     re = im = 0.0
     for lo, hi in itertools.pairwise(ends):
-        re += scipy.integrate.quad(lambda x: theta(x) * math.cos(k * x), lo, hi, limit=400,
-                                   epsabs=1e-13)[0]
-        im += scipy.integrate.quad(lambda x: theta(x) * math.sin(k * x), lo, hi, limit=400,
-                                   epsabs=1e-13)[0]
+        re += scipy.integrate.quad(
+            lambda x: theta(x) * math.cos(k * x), lo, hi, limit=400, epsabs=1e-13
+        )[0]
+        im += scipy.integrate.quad(
+            lambda x: theta(x) * math.sin(k * x), lo, hi, limit=400, epsabs=1e-13
+        )[0]
     return k / (2 * math.pi) * math.hypot(re, im)
 
 
-@pytest.mark.parametrize(("length", "width"), [
-    (0.010, 0.010), (0.020, 0.010), (0.020, 0.004), (0.006, 0.012),
-])
+@pytest.mark.parametrize(
+    ("length", "width"),
+    [
+        (0.010, 0.010),
+        (0.020, 0.010),
+        (0.020, 0.004),
+        (0.006, 0.012),
+    ],
+)
 def test_rectangle_last_maximum_against_brute_force(length, width):
     # Reference: the farthest maximum of the radius form integrated by scipy.integrate.quad,
     # located by scipy.optimize.minimize_scalar around our value (and checked on a coarse
@@ -124,8 +149,10 @@ def test_rectangle_last_maximum_against_brute_force(length, width):
     assert np.all(np.diff(values[peak:]) < 0)  # monotone beyond the maximum
     found = scipy.optimize.minimize_scalar(
         lambda z: -radial_form(z, length, width, LAM),
-        bounds=(zs[max(peak - 1, 0)], zs[min(peak + 1, len(zs) - 1)]), method="bounded",
-        options={"xatol": 1e-9})
+        bounds=(zs[max(peak - 1, 0)], zs[min(peak + 1, len(zs) - 1)]),
+        method="bounded",
+        options={"xatol": 1e-9},
+    )
     assert ours == pytest.approx(found.x, rel=1e-5)
 
 

@@ -31,11 +31,19 @@ def test_acceptance_command_json(run):
     spot = plane["spots"][0]
     # far-field width 2 z tan(theta), by definition
     assert spot["width_m"] == pytest.approx(
-        2 * 0.1 * math.tan(math.radians(plane["half_angle_deg"]["-6"])))
-    assert spot == {"depth_m": 0.1, "level_db": -6.0, "width_m": spot["width_m"],
-                    "far_field_valid": True, "method": "far-field", "leg": 1,
-                    "sound_path_m": 0.1, "surface_distance_m": 0.0,
-                    "footprint_m": spot["width_m"]}
+        2 * 0.1 * math.tan(math.radians(plane["half_angle_deg"]["-6"]))
+    )
+    assert spot == {
+        "depth_m": 0.1,
+        "level_db": -6.0,
+        "width_m": spot["width_m"],
+        "far_field_valid": True,
+        "method": "far-field",
+        "leg": 1,
+        "sound_path_m": 0.1,
+        "surface_distance_m": 0.0,
+        "footprint_m": spot["width_m"],
+    }
     assert data["convention"]["mode"] == "pulse-echo" and data["convention"]["angle"] == "half"
     assert data["medium"]["speed_m_s"] == 5920.0 and data["medium"]["wave"] == "longitudinal"
     assert data["warnings"] == [] and r.stderr == ""
@@ -43,8 +51,16 @@ def test_acceptance_command_json(run):
 
 def test_json_contract_keys(run):
     data = run(*BASE, "--depth", "5mm", "--json").json()
-    assert {"probe", "medium", "convention", "wavelength_m", "near_field_m",
-            "near_field_simple_m", "planes", "warnings"} <= set(data)
+    assert {
+        "probe",
+        "medium",
+        "convention",
+        "wavelength_m",
+        "near_field_m",
+        "near_field_simple_m",
+        "planes",
+        "warnings",
+    } <= set(data)
     assert {"name", "wave", "speed_m_s", "source", "conditions"} <= set(data["medium"])
     assert set(data["planes"][0]) >= {"aperture_m", "half_angle_deg", "spots", "name"}
 
@@ -58,11 +74,22 @@ def test_warnings_go_to_stderr_and_json_never_to_stdout_text(run):
 
 
 def test_rectangle_has_two_planes_and_the_factor(run):
-    data = run("beam", "--length", "20", "--width", "10", "--frequency", "2.25", "--material",
-               "reference-steel", "--json").json()
+    data = run(
+        "beam",
+        "--length",
+        "20",
+        "--width",
+        "10",
+        "--frequency",
+        "2.25",
+        "--material",
+        "reference-steel",
+        "--json",
+    ).json()
     assert [p["name"] for p in data["planes"]] == ["length", "width"]
     assert data["near_field_factor"] == pytest.approx(
-        data["near_field_m"] / data["near_field_simple_m"])
+        data["near_field_m"] / data["near_field_simple_m"]
+    )
     # L^2/(4 lambda) with L the longer side and lambda = 5920 / 2.25e6 (ISO 22232-2 steel)
     assert data["near_field_simple_m"] == pytest.approx(0.02**2 / (4 * 5920 / 2.25e6))
 
@@ -74,8 +101,19 @@ def test_level_spellings_mean_six_db_down(run, spelling):
 
 
 def test_one_way_and_material_with_shear(run):
-    data = run("beam", "--diameter", "0.5in", "--frequency", "2.25MHz", "--material",
-               "reference-steel", "--wave", "shear", "--one-way", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        "0.5in",
+        "--frequency",
+        "2.25MHz",
+        "--material",
+        "reference-steel",
+        "--wave",
+        "shear",
+        "--one-way",
+        "--json",
+    ).json()
     assert data["medium"]["speed_m_s"] == 3255.0  # ISO 22232-2 reference steel, shear
     assert data["convention"]["mode"] == "one-way"
     assert data["probe"]["diameter_m"] == pytest.approx(0.0127)  # 1 in = 25.4 mm exactly
@@ -98,31 +136,100 @@ def test_table_output_states_its_convention(run):
     assert "not a measured beam profile" in r.stdout
 
 
-@pytest.mark.parametrize(("args", "needle"), [
-    (("beam", "--diameter", "-10mm", "--frequency", "5MHz", "--speed", "5920"), "--diameter"),
-    (("beam", "--diameter", "10furlong", "--frequency", "5MHz", "--speed", "5920"), "furlong"),
-    (("beam", "--diameter", "10mm", "--frequency", "0", "--speed", "5920"), "--frequency"),
-    (("beam", "--diameter", "10mm", "--frequency", "5MHz", "--speed", "nan"), "--speed"),
-    (("beam", "--diameter", "10mm", "--frequency", "5MHz"), "--material"),
-    (("beam", "--diameter", "10mm", "--length", "5", "--width", "5", "--frequency", "5",
-      "--speed", "5920"), "not both"),
-    (("beam", "--length", "5", "--frequency", "5", "--speed", "5920"), "--width"),
-    ((*BASE, "--level", "0"), "level"),
-    ((*BASE, "--level", "loud"), "loud"),
-    ((*BASE, "--depth", "0"), "--depth"),
-    ((*BASE, "--temperature", "20"), "--temperature"),
-    (("beam", "--diameter", "10", "--frequency", "5", "--material", "unobtainium"),
-     "unobtainium"),
-    (("beam", "--diameter", "10", "--frequency", "5", "--material", "water", "--wave",
-      "shear"), "shear"),
-    (("beam", "--diameter", "10", "--frequency", "5", "--material", "water",
-      "--temperature", "300K", "--condition", "depth=3"), "depth"),
-    (("beam", "--diameter", "10", "--frequency", "5", "--material", "water",
-      "--temperature", "150"), "150"),
-    (("beam", "--diameter", "10", "--frequency", "5", "--material", "water",
-      "--condition", "salinity"), "NAME=VALUE"),
-    (("bem",), "beam"),
-])
+@pytest.mark.parametrize(
+    ("args", "needle"),
+    [
+        (("beam", "--diameter", "-10mm", "--frequency", "5MHz", "--speed", "5920"), "--diameter"),
+        (("beam", "--diameter", "10furlong", "--frequency", "5MHz", "--speed", "5920"), "furlong"),
+        (("beam", "--diameter", "10mm", "--frequency", "0", "--speed", "5920"), "--frequency"),
+        (("beam", "--diameter", "10mm", "--frequency", "5MHz", "--speed", "nan"), "--speed"),
+        (("beam", "--diameter", "10mm", "--frequency", "5MHz"), "--material"),
+        (
+            (
+                "beam",
+                "--diameter",
+                "10mm",
+                "--length",
+                "5",
+                "--width",
+                "5",
+                "--frequency",
+                "5",
+                "--speed",
+                "5920",
+            ),
+            "not both",
+        ),
+        (("beam", "--length", "5", "--frequency", "5", "--speed", "5920"), "--width"),
+        ((*BASE, "--level", "0"), "level"),
+        ((*BASE, "--level", "loud"), "loud"),
+        ((*BASE, "--depth", "0"), "--depth"),
+        ((*BASE, "--temperature", "20"), "--temperature"),
+        (
+            ("beam", "--diameter", "10", "--frequency", "5", "--material", "unobtainium"),
+            "unobtainium",
+        ),
+        (
+            (
+                "beam",
+                "--diameter",
+                "10",
+                "--frequency",
+                "5",
+                "--material",
+                "water",
+                "--wave",
+                "shear",
+            ),
+            "shear",
+        ),
+        (
+            (
+                "beam",
+                "--diameter",
+                "10",
+                "--frequency",
+                "5",
+                "--material",
+                "water",
+                "--temperature",
+                "300K",
+                "--condition",
+                "depth=3",
+            ),
+            "depth",
+        ),
+        (
+            (
+                "beam",
+                "--diameter",
+                "10",
+                "--frequency",
+                "5",
+                "--material",
+                "water",
+                "--temperature",
+                "150",
+            ),
+            "150",
+        ),
+        (
+            (
+                "beam",
+                "--diameter",
+                "10",
+                "--frequency",
+                "5",
+                "--material",
+                "water",
+                "--condition",
+                "salinity",
+            ),
+            "NAME=VALUE",
+        ),
+        (("bem",), "beam"),
+    ],
+)
 def test_bad_input_is_one_line_and_exit_2(run, args, needle):
     r = run(*args)
     assert r.code == 2, (r.stdout, r.stderr)
@@ -148,7 +255,8 @@ def test_internal_error_is_one_line_unless_debug(run, monkeypatch):
     assert r.code == 1
     assert r.stderr.strip().splitlines() == [
         "beamspread: error: internal error: ZeroDivisionError: synthetic failure "
-        "(set BEAMSPREAD_DEBUG=1 to see the traceback)"]
+        "(set BEAMSPREAD_DEBUG=1 to see the traceback)"
+    ]
     with pytest.raises(ZeroDivisionError):
         run(*BASE, env={"BEAMSPREAD_DEBUG": "1"})
 
@@ -181,8 +289,7 @@ def test_cli_start_up_imports_nothing_heavy():
         "heavy = sorted(m for m in ('matplotlib', 'scipy') if m in sys.modules)\n"
         "sys.stderr.write(repr(heavy))\n"
     )
-    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
-                         check=True)
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stderr.endswith("[]"), out.stderr
 
 
@@ -190,6 +297,7 @@ def test_depth_ranges_and_conflicting_outputs(run):
     data = run(*BASE, "--depth", "20:60:20", "--far-field-only", "--json").json()
     # 20, 40 and 60 mm (bare numbers in mm), each at two levels
     assert sorted({s["depth_m"] for s in data["planes"][0]["spots"]}) == pytest.approx(
-        [0.02, 0.04, 0.06])
+        [0.02, 0.04, 0.06]
+    )
     r = run(*BASE, "--json", "--format", "csv")
     assert r.code == 2 and "--json" in r.stderr

@@ -46,13 +46,11 @@ def test_far_field_only_and_continuous_wave(run):
     cw = run("beam", *DISC, "--depth", "50mm", "--bandwidth", "0", "--json").json()
     assert cw["field"]["spectrum"] == "continuous wave"
     # CW on-axis maximum: the last maximum (D^2 - lambda^2)/(4 lambda) (Kinsler & Frey).
-    assert cw["field"]["axial_maximum_m"] == pytest.approx((0.01**2 - LAM**2) / (4 * LAM),
-                                                           rel=1e-6)
+    assert cw["field"]["axial_maximum_m"] == pytest.approx((0.01**2 - LAM**2) / (4 * LAM), rel=1e-6)
 
 
 def test_axis_continuous_wave_matches_kinsler_frey(run):
-    data = run("axis", *DISC, "--bandwidth", "0", "--one-way", "--points", "300",
-               "--json").json()
+    data = run("axis", *DISC, "--bandwidth", "0", "--one-way", "--points", "300", "--json").json()
     z = np.array(data["profile"]["depth_m"])
     amp = np.array(data["profile"]["amplitude"])
     assert len(z) == 300
@@ -99,8 +97,18 @@ def test_across_plane_choice_and_bad_plane(run):
 
 def test_map_npz_csv_and_json(run, tmp_path):
     out = tmp_path / "beam.npz"
-    r = run("map", *DISC, "--bandwidth", "0", "--depth-points", "20", "--lateral-points", "9",
-            "-o", str(out))
+    r = run(
+        "map",
+        *DISC,
+        "--bandwidth",
+        "0",
+        "--depth-points",
+        "20",
+        "--lateral-points",
+        "9",
+        "-o",
+        str(out),
+    )
     assert r.code == 0, r.stderr
     with np.load(out) as data:
         assert data["amplitude"].shape == (20, 9)
@@ -121,29 +129,32 @@ def test_map_never_overwrites_without_force(run, tmp_path):
     r = run("map", *DISC, "--depth-points", "4", "--lateral-points", "4", "-o", str(out))
     assert r.code == 2 and "--force" in r.stderr
     assert out.read_text() == "precious\n"
-    r = run("map", *DISC, "--depth-points", "4", "--lateral-points", "4", "-o", str(out),
-            "--force")
+    r = run("map", *DISC, "--depth-points", "4", "--lateral-points", "4", "-o", str(out), "--force")
     assert r.code == 0 and out.read_text().startswith("depth_m,lateral_m")
 
 
-@pytest.mark.parametrize(("args", "needle"), [
-    (("map", *DISC, "--from", "30mm", "--to", "20mm"), "--to"),
-    (("map", *DISC, "--span", "0"), "--span"),
-    (("map", *DISC, "--depth-points", "1"), "--depth-points"),
-    (("map", *DISC, "--depth-points", "16384", "--lateral-points", "16384"), "exceed"),
-    (("map", *DISC, "-o", "picture.png"), "suffix"),
-    (("map", *DISC, "-o", "no/such/folder/m.csv"), "does not exist"),
-    (("axis", *DISC, "--from", "-5mm"), "--from"),
-    (("axis", *DISC, "--bandwidth", "-0.1"), "bandwidth"),
-    (("axis", *DISC, "--bandwidth", "2"), "bandwidth"),
-    (("axis", *DISC, "--bandwidth", "2.5"), "bandwidth"),
-    (("across", *DISC, "--depth", "0"), "--depth"),
-    (("across", *DISC), "--depth"),
-    (("beam", *DISC, "--bandwidth", "3"), "bandwidth"),
-    (("beam", *DISC, "--spectrum", "pink"), "--spectrum"),
-])
-def test_field_bad_input_is_one_line_exit_2_and_leaves_nothing(run, tmp_path, monkeypatch,
-                                                               args, needle):
+@pytest.mark.parametrize(
+    ("args", "needle"),
+    [
+        (("map", *DISC, "--from", "30mm", "--to", "20mm"), "--to"),
+        (("map", *DISC, "--span", "0"), "--span"),
+        (("map", *DISC, "--depth-points", "1"), "--depth-points"),
+        (("map", *DISC, "--depth-points", "16384", "--lateral-points", "16384"), "exceed"),
+        (("map", *DISC, "-o", "picture.png"), "suffix"),
+        (("map", *DISC, "-o", "no/such/folder/m.csv"), "does not exist"),
+        (("axis", *DISC, "--from", "-5mm"), "--from"),
+        (("axis", *DISC, "--bandwidth", "-0.1"), "bandwidth"),
+        (("axis", *DISC, "--bandwidth", "2"), "bandwidth"),
+        (("axis", *DISC, "--bandwidth", "2.5"), "bandwidth"),
+        (("across", *DISC, "--depth", "0"), "--depth"),
+        (("across", *DISC), "--depth"),
+        (("beam", *DISC, "--bandwidth", "3"), "bandwidth"),
+        (("beam", *DISC, "--spectrum", "pink"), "--spectrum"),
+    ],
+)
+def test_field_bad_input_is_one_line_exit_2_and_leaves_nothing(
+    run, tmp_path, monkeypatch, args, needle
+):
     monkeypatch.chdir(tmp_path)
     r = run(*args)
     assert r.code == 2, (r.stdout, r.stderr)

@@ -8,9 +8,24 @@ import numpy as np
 import pytest
 
 DISC = ("--diameter", "10mm", "--frequency", "5MHz", "--speed", "5920m/s")
-WELD = ("--diameter", "12.7mm", "--frequency", "2.25MHz", "--material", "reference-steel",
-        "--wedge", "acrylic", "--refracted", "60", "--wedge-path", "12mm", "--thickness",
-        "25mm", "--depth", "15mm")
+WELD = (
+    "--diameter",
+    "12.7mm",
+    "--frequency",
+    "2.25MHz",
+    "--material",
+    "reference-steel",
+    "--wedge",
+    "acrylic",
+    "--refracted",
+    "60",
+    "--wedge-path",
+    "12mm",
+    "--thickness",
+    "25mm",
+    "--depth",
+    "15mm",
+)
 
 
 def _not_blank(path):
@@ -24,15 +39,29 @@ def _not_blank(path):
 
 
 @pytest.mark.parametrize("suffix", [".png", ".svg", ".pdf"])
-@pytest.mark.parametrize("args", [
-    ("beam", *DISC),
-    ("beam", "--diameter", "25mm", "--frequency", "200kHz", "--material", "seawater", "--sonar",
-     "--bottom-depth", "5m:40m:5m", "--far-field-only"),
-    ("axis", *DISC, "--points", "80"),
-    ("across", *DISC, "--depth", "40mm", "--points", "61"),
-    ("map", *DISC, "--depth-points", "40", "--lateral-points", "30"),
-    ("section", *WELD, "--far-field-only"),
-])
+@pytest.mark.parametrize(
+    "args",
+    [
+        ("beam", *DISC),
+        (
+            "beam",
+            "--diameter",
+            "25mm",
+            "--frequency",
+            "200kHz",
+            "--material",
+            "seawater",
+            "--sonar",
+            "--bottom-depth",
+            "5m:40m:5m",
+            "--far-field-only",
+        ),
+        ("axis", *DISC, "--points", "80"),
+        ("across", *DISC, "--depth", "40mm", "--points", "61"),
+        ("map", *DISC, "--depth-points", "40", "--lateral-points", "30"),
+        ("section", *WELD, "--far-field-only"),
+    ],
+)
 def test_plot_is_written_in_each_format(run, tmp_path, args, suffix):
     out = tmp_path / f"picture{suffix}"
     r = run(*args, "--plot", str(out))
@@ -41,8 +70,9 @@ def test_plot_is_written_in_each_format(run, tmp_path, args, suffix):
     assert [p.name for p in tmp_path.iterdir()] == [out.name]  # no temporary file left
 
 
-@pytest.mark.parametrize(("target", "needle"), [("beam.bmp", ".png"),
-                                                ("nowhere/beam.png", "folder")])
+@pytest.mark.parametrize(
+    ("target", "needle"), [("beam.bmp", ".png"), ("nowhere/beam.png", "folder")]
+)
 def test_bad_plot_path_is_refused_before_computing(run, tmp_path, monkeypatch, target, needle):
     monkeypatch.chdir(tmp_path)
     r = run("beam", *DISC, "--plot", target)
@@ -51,8 +81,9 @@ def test_bad_plot_path_is_refused_before_computing(run, tmp_path, monkeypatch, t
 
 
 def test_scan_plan_follows_the_overlap_rule(run):
-    data = run("scan-plan", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "25%",
-               "--json").json()
+    data = run(
+        "scan-plan", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "25%", "--json"
+    ).json()
     # common practice: index step = narrowest width over the depths x (1 - overlap)
     assert data["governing_width_m"] == pytest.approx(min(data["widths_m"]))
     assert data["index_step_m"] == pytest.approx(0.75 * data["governing_width_m"])
@@ -61,8 +92,19 @@ def test_scan_plan_follows_the_overlap_rule(run):
 
 def test_scan_plan_far_field_governs_at_the_shallowest_depth(run):
     # The far-field cone only grows with depth (2 z tan theta): the first depth governs.
-    data = run("scan-plan", *DISC, "--from", "30mm", "--to", "90mm", "--overlap", "0.1",
-               "--method", "far-field", "--json").json()
+    data = run(
+        "scan-plan",
+        *DISC,
+        "--from",
+        "30mm",
+        "--to",
+        "90mm",
+        "--overlap",
+        "0.1",
+        "--method",
+        "far-field",
+        "--json",
+    ).json()
     assert data["governing_depth_m"] == pytest.approx(0.030)
     assert data["index_step_m"] == pytest.approx(0.9 * data["governing_width_m"])
 
@@ -80,8 +122,9 @@ def test_setup_file_round_trip(run, tmp_path):
     assert again.code == 0, again.stderr
     assert again.json() == first.json()
     # a typed option wins over the file's
-    other = run("beam", "--setup", str(saved), "--refracted", "45", "--far-field-only",
-                "--json").json()
+    other = run(
+        "beam", "--setup", str(saved), "--refracted", "45", "--far-field-only", "--json"
+    ).json()
     assert other["refraction"]["refracted_deg"]["shear"] == pytest.approx(45.0)
 
 
@@ -94,8 +137,10 @@ def test_save_never_overwrites(run, tmp_path):
 
 def test_setup_with_unknown_key_is_refused_with_its_line(run, tmp_path):
     bad = tmp_path / "bad.toml"
-    bad.write_text('format = 1\n[probe]\nshape = "disc"\ndiamter = "10 mm"\nfrequency = "5 MHz"\n'
-                   '[medium]\nspeed = "5920 m/s"\n')
+    bad.write_text(
+        'format = 1\n[probe]\nshape = "disc"\ndiamter = "10 mm"\nfrequency = "5 MHz"\n'
+        '[medium]\nspeed = "5920 m/s"\n'
+    )
     r = run("beam", "--setup", str(bad))
     assert r.code == 2
     line = r.stderr.strip()
@@ -104,8 +149,10 @@ def test_setup_with_unknown_key_is_refused_with_its_line(run, tmp_path):
 
 def test_setup_with_wrong_units_is_refused(run, tmp_path):
     bad = tmp_path / "bad.toml"
-    bad.write_text('format = 1\n[probe]\nshape = "disc"\ndiameter = "10 MHz"\n'
-                   'frequency = "5 MHz"\n[medium]\nspeed = "5920 m/s"\n')
+    bad.write_text(
+        'format = 1\n[probe]\nshape = "disc"\ndiameter = "10 MHz"\n'
+        'frequency = "5 MHz"\n[medium]\nspeed = "5920 m/s"\n'
+    )
     r = run("axis", "--setup", str(bad))
     assert r.code == 2 and "diameter" in r.stderr
 
@@ -119,8 +166,9 @@ def test_report_is_one_page_and_never_overwrites(run, tmp_path, suffix):
     assert r.code == 0, r.stderr
     _not_blank(out)
     if suffix == ".pdf":
-        assert out.read_bytes().count(b"/Type /Page\n") + out.read_bytes().count(
-            b"/Type /Page ") == 1
+        assert (
+            out.read_bytes().count(b"/Type /Page\n") + out.read_bytes().count(b"/Type /Page ") == 1
+        )
     before = out.read_bytes()
     r = run("report", str(setup), "--output", str(out))
     assert r.code == 2 and "--force" in r.stderr and out.read_bytes() == before
@@ -155,8 +203,17 @@ def test_plot_never_overwrites_without_force(run, tmp_path):
 
 def test_save_happens_only_after_the_command_works(run, tmp_path):
     saved = tmp_path / "s.toml"
-    r = run("beam", "--diameter", "10", "--frequency", "5", "--material", "unobtanium",
-            "--save", str(saved))
+    r = run(
+        "beam",
+        "--diameter",
+        "10",
+        "--frequency",
+        "5",
+        "--material",
+        "unobtanium",
+        "--save",
+        str(saved),
+    )
     assert r.code == 2 and len(r.stderr.strip().splitlines()) == 1
     assert not saved.exists()
 

@@ -16,12 +16,24 @@ CL, CS, ACRYLIC = 5920.0, 3255.0, 2730.0
 
 @pytest.mark.parametrize("beta", [45, 60, 70])
 def test_wedge_refraction_for_nominal_shear_angles(run, beta):
-    data = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--refracted", str(beta),
-               "--wedge-path", "10mm", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        *PROBE,
+        *STEEL,
+        "--wedge",
+        "acrylic",
+        "--refracted",
+        str(beta),
+        "--wedge-path",
+        "10mm",
+        "--far-field-only",
+        "--json",
+    ).json()
     r = data["refraction"]
     # Snell's law: sin(alpha)/c_wedge = sin(beta)/c_S; critical angles asin(c_w/c_L|S).
     assert math.sin(math.radians(r["incident_deg"])) / ACRYLIC == pytest.approx(
-        math.sin(math.radians(beta)) / CS)
+        math.sin(math.radians(beta)) / CS
+    )
     assert r["refracted_deg"]["shear"] == pytest.approx(beta)
     assert r["refracted_deg"]["longitudinal"] is None
     assert r["critical_deg"]["first"] == pytest.approx(math.degrees(math.asin(ACRYLIC / CL)))
@@ -31,12 +43,26 @@ def test_wedge_refraction_for_nominal_shear_angles(run, beta):
     # the effective aperture and near field (common practice)
     alpha = math.radians(r["incident_deg"])
     assert data["effective_aperture_m"] == pytest.approx(
-        0.0127 * math.cos(math.radians(beta)) / math.cos(alpha))
+        0.0127 * math.cos(math.radians(beta)) / math.cos(alpha)
+    )
 
 
 def test_wedge_legs_sound_paths_and_surface_distances(run):
-    data = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "60",
-               "--thickness", "25mm", "--depth", "15mm", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        *PROBE,
+        *STEEL,
+        "--wedge",
+        "acrylic",
+        "--refracted",
+        "60",
+        "--thickness",
+        "25mm",
+        "--depth",
+        "15mm",
+        "--far-field-only",
+        "--json",
+    ).json()
     spots = data["planes"][0]["spots"]
     beta = math.radians(60)
     by_leg = {s["leg"]: s for s in spots if s["level_db"] == -6}
@@ -46,20 +72,45 @@ def test_wedge_legs_sound_paths_and_surface_distances(run):
     assert by_leg[2]["sound_path_m"] == pytest.approx(0.035 / math.cos(beta))
     theta = math.radians(data["planes"][0]["half_angle_deg"]["-6"])
     assert by_leg[1]["footprint_m"] == pytest.approx(
-        0.015 * (math.tan(beta + theta) - math.tan(beta - theta)))
+        0.015 * (math.tan(beta + theta) - math.tan(beta - theta))
+    )
 
 
 def test_normal_incidence_wedge_is_the_contact_beam(run):
     # The first tool's contact result in the limit of a normal-incidence wedge with no path.
-    common = ("--diameter", "10mm", "--frequency", "5MHz", *STEEL, "--depth", "30mm",
-              "--depth", "80mm")
+    common = (
+        "--diameter",
+        "10mm",
+        "--frequency",
+        "5MHz",
+        *STEEL,
+        "--depth",
+        "30mm",
+        "--depth",
+        "80mm",
+    )
     contact = run("beam", *common, "--json").json()
-    wedged = run("beam", *common, "--wave", "longitudinal", "--wedge-speed", "2730",
-                 "--incident", "0", "--wedge-path", "0", "--json").json()
-    a = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
-         for s in contact["planes"][0]["spots"]}
-    b = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
-         for s in wedged["planes"][0]["spots"]}
+    wedged = run(
+        "beam",
+        *common,
+        "--wave",
+        "longitudinal",
+        "--wedge-speed",
+        "2730",
+        "--incident",
+        "0",
+        "--wedge-path",
+        "0",
+        "--json",
+    ).json()
+    a = {
+        (s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+        for s in contact["planes"][0]["spots"]
+    }
+    b = {
+        (s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+        for s in wedged["planes"][0]["spots"]
+    }
     assert a.keys() == b.keys()
     for key, width in a.items():
         assert b[key] == pytest.approx(width, rel=1e-5), key
@@ -68,21 +119,49 @@ def test_normal_incidence_wedge_is_the_contact_beam(run):
 
 def test_vanishing_water_path_is_the_contact_beam(run):
     # A zero water path in a couplant equal to the part: the first tool's contact result.
-    common = ("--diameter", "10mm", "--frequency", "2MHz", "--material", "water",
-              "--temperature", "20", "--depth", "30mm", "--depth", "90mm")
+    common = (
+        "--diameter",
+        "10mm",
+        "--frequency",
+        "2MHz",
+        "--material",
+        "water",
+        "--temperature",
+        "20",
+        "--depth",
+        "30mm",
+        "--depth",
+        "90mm",
+    )
     contact = run("beam", *common, "--json").json()
     immersed = run("beam", *common, "--water-path", "0", "--json").json()
-    a = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
-         for s in contact["planes"][0]["spots"]}
-    b = {(s["depth_m"], s["level_db"], s["method"]): s["width_m"]
-         for s in immersed["planes"][0]["spots"]}
+    a = {
+        (s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+        for s in contact["planes"][0]["spots"]
+    }
+    b = {
+        (s["depth_m"], s["level_db"], s["method"]): s["width_m"]
+        for s in immersed["planes"][0]["spots"]
+    }
     for key, width in a.items():
         assert b[key] == pytest.approx(width, rel=1e-6), key
 
 
 def test_immersion_near_field_relation_and_transmission(run):
-    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path",
-               "40mm", "--temperature", "20", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        "12.7mm",
+        "--frequency",
+        "5MHz",
+        *STEEL,
+        "--water-path",
+        "40mm",
+        "--temperature",
+        "20",
+        "--far-field-only",
+        "--json",
+    ).json()
     c_w = data["couplant"]["speed_m_s"]
     lam = c_w / 5e6
     n_water = (0.0127**2 - lam**2) / (4 * lam)  # Kinsler & Frey's last maximum
@@ -93,16 +172,30 @@ def test_immersion_near_field_relation_and_transmission(run):
 
 
 def test_focus_spot_and_normalised_length(run):
-    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", "--material", "water",
-               "--temperature", "20", "--focus", "50mm", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        "12.7mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "water",
+        "--temperature",
+        "20",
+        "--focus",
+        "50mm",
+        "--far-field-only",
+        "--json",
+    ).json()
     f = data["focus"]
     lam = data["wavelength_m"]
     n = (0.0127**2 - lam**2) / (4 * lam)
     assert f["normalised_focal_length"] == pytest.approx(0.05 / n)
     # O'Neil (1949): pulse-echo -6 dB spot 2 x F lambda / (pi D), x where (2J1(x)/x)^2 = 1/2
     # (scipy), about 1.03 F lambda / D.
-    x = scipy.optimize.brentq(lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20),
-                              0.1, 3.8)
+    x = scipy.optimize.brentq(
+        lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20), 0.1, 3.8
+    )
     assert f["spot_width_m"] == pytest.approx(2 * x * 0.05 * lam / (math.pi * 0.0127), rel=1e-9)
     # O'Neil: the true on-axis maximum lies short of the geometric focus, inside the zone.
     assert f["axial_maximum_m"] < 0.05
@@ -110,30 +203,74 @@ def test_focus_spot_and_normalised_length(run):
 
 
 def test_focus_after_a_water_path(run):
-    data = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path",
-               "20mm", "--focus", "50mm", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        "12.7mm",
+        "--frequency",
+        "5MHz",
+        *STEEL,
+        "--water-path",
+        "20mm",
+        "--focus",
+        "50mm",
+        "--far-field-only",
+        "--json",
+    ).json()
     c_w = data["couplant"]["speed_m_s"]
     # paraxial focal depth in the part (F - WP) c_water / c_part (common practice)
     assert data["focus"]["focal_depth_in_part_m"] == pytest.approx(0.030 * c_w / CL)
 
 
-@pytest.mark.parametrize(("args", "needle"), [
-    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "95"), "90 degrees"),
-    ((*PROBE, *STEEL, "--wedge", "acrylic", "--incident", "60"), "critical"),
-    ((*PROBE, *STEEL, "--wedge-speed", "7000", "--refracted", "45"), "largest reachable"),
-    ((*PROBE, *STEEL, "--wedge", "acrylic"), "--incident"),
-    ((*PROBE, *STEEL, "--wedge", "unobtainium", "--refracted", "45"), "unobtainium"),
-    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--thickness", "10mm",
-      "--depth", "12mm"), "below the part"),
-    ((*PROBE, *STEEL, "--water-path", "3m"), "water path"),
-    ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "5mm"), "focal length"),
-    ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "-5mm"), "--focus"),
-    (("--length", "10", "--width", "5", "--frequency", "5", *STEEL, "--water-path", "20mm",
-      "--focus", "50mm"), "discs"),
-    ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--water-path", "10mm"),
-     "not both"),
-    ((*PROBE, *STEEL, "--refracted", "45"), "--wedge"),
-])
+@pytest.mark.parametrize(
+    ("args", "needle"),
+    [
+        ((*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "95"), "90 degrees"),
+        ((*PROBE, *STEEL, "--wedge", "acrylic", "--incident", "60"), "critical"),
+        ((*PROBE, *STEEL, "--wedge-speed", "7000", "--refracted", "45"), "largest reachable"),
+        ((*PROBE, *STEEL, "--wedge", "acrylic"), "--incident"),
+        ((*PROBE, *STEEL, "--wedge", "unobtainium", "--refracted", "45"), "unobtainium"),
+        (
+            (
+                *PROBE,
+                *STEEL,
+                "--wedge",
+                "acrylic",
+                "--refracted",
+                "45",
+                "--thickness",
+                "10mm",
+                "--depth",
+                "12mm",
+            ),
+            "below the part",
+        ),
+        ((*PROBE, *STEEL, "--water-path", "3m"), "water path"),
+        ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "5mm"), "focal length"),
+        ((*PROBE, *STEEL, "--water-path", "20mm", "--focus", "-5mm"), "--focus"),
+        (
+            (
+                "--length",
+                "10",
+                "--width",
+                "5",
+                "--frequency",
+                "5",
+                *STEEL,
+                "--water-path",
+                "20mm",
+                "--focus",
+                "50mm",
+            ),
+            "discs",
+        ),
+        (
+            (*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--water-path", "10mm"),
+            "not both",
+        ),
+        ((*PROBE, *STEEL, "--refracted", "45"), "--wedge"),
+    ],
+)
 def test_setup_bad_input(run, args, needle):
     r = run("beam", *args)
     assert r.code == 2, (r.stdout, r.stderr)
@@ -150,14 +287,23 @@ def test_plain_beam_json_gives_both_speeds_of_the_material(run):
 
 
 def test_contradictory_setup_options(run):
-    r = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--incident", "30", "--refracted",
-            "60")
+    r = run("beam", *PROBE, *STEEL, "--wedge", "acrylic", "--incident", "30", "--refracted", "60")
     assert r.code == 2 and "not both" in r.stderr
     r = run("beam", *PROBE, *STEEL, "--couplant", "glycerin")
     assert r.code == 2 and "--water-path" in r.stderr
 
 
 def test_focus_straight_in_the_medium_is_labelled_so(run):
-    r = run("beam", "--diameter", "12.7mm", "--frequency", "5MHz", "--material", "water",
-            "--focus", "50mm", "--far-field-only")
+    r = run(
+        "beam",
+        "--diameter",
+        "12.7mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "water",
+        "--focus",
+        "50mm",
+        "--far-field-only",
+    )
     assert r.code == 0 and "straight in water" in r.stdout and "immersion" not in r.stdout

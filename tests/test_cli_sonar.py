@@ -40,16 +40,18 @@ def test_absorption_of_seawater_against_ainslie_mccolm(run):
     f, t, s, d, ph = 200.0, 12.0, 34.0, 0.0, 8.0
     f1 = 0.78 * math.sqrt(s / 35) * math.exp(t / 26)
     f2 = 42 * math.exp(t / 17)
-    alpha = (0.106 * f1 * f * f / (f1 * f1 + f * f) * math.exp((ph - 8) / 0.56)
-             + 0.52 * (1 + t / 43) * (s / 35) * f2 * f * f / (f2 * f2 + f * f)
-             * math.exp(-d / 6)
-             + 0.00049 * f * f * math.exp(-(t / 27 + d / 17)))
+    alpha = (
+        0.106 * f1 * f * f / (f1 * f1 + f * f) * math.exp((ph - 8) / 0.56)
+        + 0.52 * (1 + t / 43) * (s / 35) * f2 * f * f / (f2 * f2 + f * f) * math.exp(-d / 6)
+        + 0.00049 * f * f * math.exp(-(t / 27 + d / 17))
+    )
     assert data["absorption_db_per_km"] == pytest.approx(alpha, rel=0.10)
 
 
 def test_footprints_over_a_depth_range(run):
-    data = run(*SOUNDER, "--sonar", "--far-field-only", "--bottom-depth", "10m:30m:10m",
-               "--json").json()
+    data = run(
+        *SOUNDER, "--sonar", "--far-field-only", "--bottom-depth", "10m:30m:10m", "--json"
+    ).json()
     half = data["planes"][0]["half_angle_deg"]
     prints = {(p["depth_m"], p["level_db"]): p["width_m"] for p in data["footprints"]}
     assert sorted({d for d, _ in prints}) == [10.0, 20.0, 30.0]
@@ -60,21 +62,39 @@ def test_footprints_over_a_depth_range(run):
 
 
 def test_echo_budget_terms(run):
-    data = run(*SOUNDER, "--sonar", "--far-field-only", "--bottom-depth", "20m", "--power",
-               "100", "--efficiency", "0.4", "--bottom-loss", "12", "--json").json()
+    data = run(
+        *SOUNDER,
+        "--sonar",
+        "--far-field-only",
+        "--bottom-depth",
+        "20m",
+        "--power",
+        "100",
+        "--efficiency",
+        "0.4",
+        "--bottom-loss",
+        "12",
+        "--json",
+    ).json()
     terms = {t["name"]: t["value_db"] for t in data["echo_budget"][0]["terms"]}
     z = data["medium"]["impedance_rayl"]
     # SL = 10 log10(rho c 1e12 / 4 pi) + 10 log10 P + 10 log10 eta + DI (170.8 dB for
     # rho c = 1.5 MRayl: the common sonar-equation form), two-way spreading 40 log10 R,
     # absorption 2 alpha R.
-    sl = (10 * math.log10(z * 1e12 / (4 * math.pi)) + 10 * math.log10(100)
-          + 10 * math.log10(0.4) + data["directivity_index_db"])
+    sl = (
+        10 * math.log10(z * 1e12 / (4 * math.pi))
+        + 10 * math.log10(100)
+        + 10 * math.log10(0.4)
+        + data["directivity_index_db"]
+    )
     assert terms["source level"] == pytest.approx(sl)
     assert terms["two-way spreading loss"] == pytest.approx(40 * math.log10(20))
     assert terms["two-way absorption loss"] == pytest.approx(
-        2 * data["absorption_db_per_km"] * 0.020)
+        2 * data["absorption_db_per_km"] * 0.020
+    )
     assert terms["received echo level"] == pytest.approx(
-        sl - 40 * math.log10(20) - terms["two-way absorption loss"] - 12)
+        sl - 40 * math.log10(20) - terms["two-way absorption loss"] - 12
+    )
 
 
 def test_explicit_pulse_echo_wins_over_sonar_default(run):
@@ -85,35 +105,73 @@ def test_explicit_pulse_echo_wins_over_sonar_default(run):
 def test_size_round_trips_through_beam(run):
     found = run("size", "--frequency", "200kHz", *SEA, "--full-angle", "20", "--json").json()
     d = found["diameter_m"]
-    data = run("beam", "--diameter", f"{d}m", "--frequency", "200kHz", *SEA, "--one-way",
-               "--level", "3", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        f"{d}m",
+        "--frequency",
+        "200kHz",
+        *SEA,
+        "--one-way",
+        "--level",
+        "3",
+        "--far-field-only",
+        "--json",
+    ).json()
     assert data["planes"][0]["full_angle_deg"]["-3"] == pytest.approx(20.0, rel=1e-9)
 
 
 def test_size_spot_round_trips(run):
-    found = run("size", "--frequency", "5MHz", "--material", "reference-steel", "--spot", "6mm",
-                "--at", "40mm", "--json").json()
+    found = run(
+        "size",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "reference-steel",
+        "--spot",
+        "6mm",
+        "--at",
+        "40mm",
+        "--json",
+    ).json()
     assert found["convention"] == {"mode": "pulse-echo", "level_db": -6.0}
-    data = run("beam", "--diameter", f"{found['diameter_m']}m", "--frequency", "5MHz",
-               "--material", "reference-steel", "--depth", "40mm", "--far-field-only",
-               "--level", "6", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        f"{found['diameter_m']}m",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "reference-steel",
+        "--depth",
+        "40mm",
+        "--far-field-only",
+        "--level",
+        "6",
+        "--json",
+    ).json()
     assert data["planes"][0]["spots"][0]["width_m"] == pytest.approx(0.006, rel=1e-9)
 
 
-@pytest.mark.parametrize(("args", "needle"), [
-    (("size", "--frequency", "200kHz", *SEA, "--full-angle", "180"), "180"),
-    (("size", "--frequency", "200kHz", *SEA, "--half-angle", "95"), "90"),
-    (("size", "--frequency", "5MHz", "--speed", "5920", "--spot", "0.5mm", "--at", "40mm"),
-     "smallest"),
-    (("size", "--frequency", "5MHz", "--speed", "5920"), "one target"),
-    (("size", "--frequency", "5MHz", "--speed", "5920", "--spot", "6mm"), "--at"),
-    (("size", "--speed", "5920", "--full-angle", "10"), "--frequency"),
-    ((*SOUNDER, "--bottom-depth", "30m:10m:5m"), "stop"),
-    ((*SOUNDER, "--bottom-depth", "-5m"), "--bottom-depth"),
-    ((*SOUNDER, "--power", "100"), "--bottom-depth"),
-    ((*SOUNDER, "--condition", "salinity=80"), "salinity"),
-    ((*SOUNDER, "--condition", "ph=12"), "ph"),
-])
+@pytest.mark.parametrize(
+    ("args", "needle"),
+    [
+        (("size", "--frequency", "200kHz", *SEA, "--full-angle", "180"), "180"),
+        (("size", "--frequency", "200kHz", *SEA, "--half-angle", "95"), "90"),
+        (
+            ("size", "--frequency", "5MHz", "--speed", "5920", "--spot", "0.5mm", "--at", "40mm"),
+            "smallest",
+        ),
+        (("size", "--frequency", "5MHz", "--speed", "5920"), "one target"),
+        (("size", "--frequency", "5MHz", "--speed", "5920", "--spot", "6mm"), "--at"),
+        (("size", "--speed", "5920", "--full-angle", "10"), "--frequency"),
+        ((*SOUNDER, "--bottom-depth", "30m:10m:5m"), "stop"),
+        ((*SOUNDER, "--bottom-depth", "-5m"), "--bottom-depth"),
+        ((*SOUNDER, "--power", "100"), "--bottom-depth"),
+        ((*SOUNDER, "--condition", "salinity=80"), "salinity"),
+        ((*SOUNDER, "--condition", "ph=12"), "ph"),
+    ],
+)
 def test_sonar_bad_input(run, args, needle):
     r = run(*args)
     assert r.code == 2, (r.stdout, r.stderr)

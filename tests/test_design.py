@@ -12,9 +12,15 @@ from beamspread import Disc, InputError, Rectangle, analyse, design, disc_near_f
 
 @pytest.mark.parametrize("mode", ["one-way", "pulse-echo"])
 @pytest.mark.parametrize("level", [3.0, 6.0, 10.0, 20.0])
-@pytest.mark.parametrize(("frequency", "speed", "full"), [
-    (200e3, 1500.0, 20.0), (50e3, 1480.0, 45.0), (40e3, 343.0, 60.0), (5e6, 5920.0, 8.0),
-])
+@pytest.mark.parametrize(
+    ("frequency", "speed", "full"),
+    [
+        (200e3, 1500.0, 20.0),
+        (50e3, 1480.0, 45.0),
+        (40e3, 343.0, 60.0),
+        (5e6, 5920.0, 8.0),
+    ],
+)
 def test_disc_diameter_round_trips(frequency, speed, full, level, mode):
     # Forward model: beamspread.analyse of the solved disc gives back the target angle.
     solved = design.size_disc(frequency, speed, full_angle_deg=full, level_db=level, mode=mode)
@@ -30,17 +36,20 @@ def test_disc_diameter_round_trips(frequency, speed, full, level, mode):
 
 @pytest.mark.parametrize(("diameter", "half"), [(0.025, 10.0), (0.01, 3.0), (0.05, 30.0)])
 def test_frequency_round_trips(diameter, half):
-    solved = design.size_frequency(diameter, 1500.0, half_angle_deg=half, level_db=6,
-                                   mode="pulse-echo")
+    solved = design.size_frequency(
+        diameter, 1500.0, half_angle_deg=half, level_db=6, mode="pulse-echo"
+    )
     result = analyse(Disc(diameter, solved.frequency), 1500.0, levels=[6], mode="pulse-echo")
     assert result.planes[0].half_angles["-6"] == pytest.approx(half, rel=1e-9)
 
 
 def test_rectangle_side_round_trips():
-    solved = design.size_rectangle_side(2.25e6, 5920.0, 0.01, half_angle_deg=5.0, level_db=6,
-                                        mode="pulse-echo")
-    result = analyse(Rectangle(solved.aperture, 0.01, 2.25e6), 5920.0, levels=[6],
-                     mode="pulse-echo")
+    solved = design.size_rectangle_side(
+        2.25e6, 5920.0, 0.01, half_angle_deg=5.0, level_db=6, mode="pulse-echo"
+    )
+    result = analyse(
+        Rectangle(solved.aperture, 0.01, 2.25e6), 5920.0, levels=[6], mode="pulse-echo"
+    )
     length, width = result.planes
     assert length.half_angles["-6"] == pytest.approx(5.0, rel=1e-9)
     assert width.half_angles["-6"] == pytest.approx(solved.other_half_angle_deg, rel=1e-12)
@@ -49,10 +58,10 @@ def test_rectangle_side_round_trips():
 
 def test_spot_at_depth_round_trips():
     # An inspector's question: a -6 dB pulse-echo spot of 6 mm at 40 mm in water at 5 MHz.
-    solved = design.size_disc(5e6, 1480.0, spot=0.006, depth=0.040, level_db=6,
-                              mode="pulse-echo")
-    result = analyse(Disc(solved.diameter, 5e6), 1480.0, levels=[6], depths=[0.040],
-                     mode="pulse-echo")
+    solved = design.size_disc(5e6, 1480.0, spot=0.006, depth=0.040, level_db=6, mode="pulse-echo")
+    result = analyse(
+        Disc(solved.diameter, 5e6), 1480.0, levels=[6], depths=[0.040], mode="pulse-echo"
+    )
     spot = result.planes[0].spots[0]
     assert spot.width == pytest.approx(0.006, rel=1e-9) and spot.far_field_valid
     assert solved.footprint_width == pytest.approx(0.006, rel=1e-12)
@@ -62,8 +71,7 @@ def test_spot_at_depth_round_trips():
 def test_spot_against_krautkramer_constant():
     # Krautkramer & Krautkramer Table 4.2: echo field -6 dB, sin(theta) = 0.51 lambda / D
     # (two decimals, so within 1 %).
-    solved = design.size_disc(5e6, 1480.0, spot=0.006, depth=0.040, level_db=6,
-                              mode="pulse-echo")
+    solved = design.size_disc(5e6, 1480.0, spot=0.006, depth=0.040, level_db=6, mode="pulse-echo")
     theta = math.atan(0.003 / 0.040)
     assert solved.diameter == pytest.approx(0.51 * (1480.0 / 5e6) / math.sin(theta), rel=0.01)
 
@@ -81,8 +89,15 @@ def test_vectorised_over_targets():
     assert np.allclose(solved.diameter[1] / solved.diameter[0], 0.5, rtol=1e-12)
 
 
-@pytest.mark.parametrize("bad", [dict(full_angle_deg=180.0), dict(full_angle_deg=200.0),
-                                 dict(half_angle_deg=90.0), dict(half_angle_deg=-5.0)])
+@pytest.mark.parametrize(
+    "bad",
+    [
+        dict(full_angle_deg=180.0),
+        dict(full_angle_deg=200.0),
+        dict(half_angle_deg=90.0),
+        dict(half_angle_deg=-5.0),
+    ],
+)
 def test_angles_no_element_gives_are_refused(bad):
     with pytest.raises(InputError) as info:
         design.size_disc(200e3, 1500.0, **bad)
@@ -98,15 +113,21 @@ def test_spot_inside_the_near_field_is_refused_and_the_smallest_is_named():
     # The smallest far-field spot is that of the disc whose near field (the exact last
     # on-axis maximum, (D^2 - lambda^2) / (4 lambda), Kinsler et al.) ends at the depth.
     edge = design.size_disc(5e6, 1480.0, spot=smallest * (1 + 1e-9), depth=0.040, **args)
-    assert float(disc_near_field(edge.diameter, 1480.0 / 5e6)) == pytest.approx(0.040,
-                                                                                 rel=1e-6)
+    assert float(disc_near_field(edge.diameter, 1480.0 / 5e6)) == pytest.approx(0.040, rel=1e-6)
     with pytest.raises(InputError):
         design.size_disc(5e6, 1480.0, spot=smallest * (1 - 1e-6), depth=0.040, **args)
 
 
 def test_impossible_spots_give_nan_when_asked():
-    solved = design.size_disc(5e6, 1480.0, spot=[0.001, 0.006], depth=0.040, level_db=6,
-                              mode="pulse-echo", on_impossible="nan")
+    solved = design.size_disc(
+        5e6,
+        1480.0,
+        spot=[0.001, 0.006],
+        depth=0.040,
+        level_db=6,
+        mode="pulse-echo",
+        on_impossible="nan",
+    )
     assert math.isnan(solved.diameter[0]) and solved.diameter[1] > 0
     assert list(solved.far_field_at_depth) == [False, True]
 
@@ -126,4 +147,5 @@ def test_footprint_and_directivity_of_an_angle_solution():
     solved = design.size_disc(200e3, 1500.0, full_angle_deg=20.0, depth=30.0)
     assert solved.footprint_width == pytest.approx(2 * 30.0 * math.tan(math.radians(10.0)))
     assert solved.directivity_index_db == pytest.approx(
-        directivity_index(Disc(solved.diameter, 200e3), 1500.0 / 200e3), rel=1e-12)
+        directivity_index(Disc(solved.diameter, 200e3), 1500.0 / 200e3), rel=1e-12
+    )

@@ -40,10 +40,19 @@ def test_mackenzie_check_value():
     assert float(eq.seawater_mackenzie(25.0, 35.0, 1000.0)) == pytest.approx(1550.744, abs=5e-4)
 
 
-@pytest.mark.parametrize(("t", "s", "d"), [
-    (0.0, 35.0, 0.0), (10.0, 35.0, 0.0), (25.0, 35.0, 0.0), (10.0, 30.0, 100.0),
-    (4.0, 34.7, 1000.0), (2.0, 34.7, 3000.0), (20.0, 38.0, 50.0), (28.0, 36.0, 0.0),
-])
+@pytest.mark.parametrize(
+    ("t", "s", "d"),
+    [
+        (0.0, 35.0, 0.0),
+        (10.0, 35.0, 0.0),
+        (25.0, 35.0, 0.0),
+        (10.0, 30.0, 100.0),
+        (4.0, 34.7, 1000.0),
+        (2.0, 34.7, 3000.0),
+        (20.0, 38.0, 50.0),
+        (28.0, 36.0, 0.0),
+    ],
+)
 def test_mackenzie_against_teos10(t, s, d):
     # Reference: TEOS-10 through gsw (sound_speed_t_exact, pressure from depth at 45 N,
     # absolute salinity from practical salinity). The published comparisons put Mackenzie
@@ -72,7 +81,8 @@ def test_built_in_media_use_these_equations_and_declare_ranges():
     registry = build_registry()
     water = registry.get("water").medium
     assert water.evaluate("longitudinal", {"temperature": 37.0}).speed == pytest.approx(
-        float(eq.water_marczak(37.0)))
+        float(eq.water_marczak(37.0))
+    )
     sea = registry.get("seawater").medium
     wave = sea.evaluate("longitudinal", {"temperature": 12.0, "salinity": 34.0, "depth": 15.0})
     assert wave.speed == pytest.approx(float(eq.seawater_mackenzie(12.0, 34.0, 15.0)))

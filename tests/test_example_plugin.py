@@ -47,8 +47,9 @@ TABLE_NAMES = sorted(m["name"] for m in TABLE["material"])
 
 def _curve_wedge() -> dict:
     """The first solid of the table whose longitudinal speed is a temperature curve."""
-    return next(m for m in TABLE["material"]
-                if m["state"] == "solid" and "temperature" in m["longitudinal"])
+    return next(
+        m for m in TABLE["material"] if m["state"] == "solid" and "temperature" in m["longitudinal"]
+    )
 
 
 @pytest.fixture
@@ -126,8 +127,9 @@ def test_curve_wedge_is_interpolated(load_fairlead, run):
     curve = wedge["longitudinal"]
     for temperature in (30.0, 27.5):
         expected = float(np.interp(temperature, curve["temperature"], curve["values"]))
-        result = run("beam", *PROBE, "--material", wedge["name"],
-                     "--temperature", str(temperature), "--json")
+        result = run(
+            "beam", *PROBE, "--material", wedge["name"], "--temperature", str(temperature), "--json"
+        )
         assert result.code == 0, result.stderr
         medium = result.json()["medium"]
         assert medium["name"] == wedge["name"]
@@ -166,11 +168,9 @@ def test_computed_gel_refuses_outside_limits(load_fairlead, run):
 def test_computed_gel_warns_outside_valid_range(load_fairlead, run):
     parameter = fairlead.GEL.parameter("temperature")
     temperature = (parameter.valid[1] + parameter.limits[1]) / 2
-    result = run("beam", *PROBE, "--material", GEL, "--temperature", str(temperature),
-                 "--json")
+    result = run("beam", *PROBE, "--material", GEL, "--temperature", str(temperature), "--json")
     assert result.code == 0, result.stderr
     assert "beamspread: warning:" in result.stderr
     assert "outside the range" in result.stderr
     medium = result.json()["medium"]
-    assert medium["speed_m_s"] == pytest.approx(
-        fairlead.gel_longitudinal(temperature=temperature))
+    assert medium["speed_m_s"] == pytest.approx(fairlead.gel_longitudinal(temperature=temperature))

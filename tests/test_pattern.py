@@ -25,8 +25,9 @@ def test_j1_matches_scipy():
 def test_jinc_at_zero_and_small_arguments():
     # Reference: series 2 J1(x)/x = 1 - x^2/8 + ..., and scipy.special.j1.
     x = np.array([0.0, 1e-10, 1e-3, 0.5])
-    expected = np.where(x == 0, 1.0, 2 * scipy.special.j1(np.where(x == 0, 1, x)) / np.where(
-        x == 0, 1, x))
+    expected = np.where(
+        x == 0, 1.0, 2 * scipy.special.j1(np.where(x == 0, 1, x)) / np.where(x == 0, 1, x)
+    )
     assert np.allclose(jinc(x), expected, rtol=1e-15, atol=0)
 
 
@@ -71,7 +72,9 @@ def test_disc_root_matches_scipy_brentq(mode, level):
     # Reference: scipy.optimize.brentq on scipy.special.j1's 2 J1(x)/x.
     target = 10 ** (-level / (40 if mode == "pulse-echo" else 20))
     x_ref = scipy.optimize.brentq(
-        lambda x: 2 * scipy.special.j1(x) / x - target, 1e-9, scipy.special.jn_zeros(1, 1)[0],
+        lambda x: 2 * scipy.special.j1(x) / x - target,
+        1e-9,
+        scipy.special.jn_zeros(1, 1)[0],
         xtol=1e-15,
     )
     assert float(pattern_x(level, "disc", mode)) == pytest.approx(x_ref, rel=1e-12)
@@ -89,8 +92,11 @@ def test_pulse_echo_level_is_half_the_one_way_level():
     # pattern squared, so -N dB
     # pulse-echo equals -N/2 dB one-way.
     levels = np.array([3.0, 6.0, 12.0, 20.0, 40.0])
-    assert np.allclose(pattern_x(levels, "disc", "pulse-echo"),
-                       pattern_x(levels / 2, "disc", "one-way"), rtol=1e-13)
+    assert np.allclose(
+        pattern_x(levels, "disc", "pulse-echo"),
+        pattern_x(levels / 2, "disc", "one-way"),
+        rtol=1e-13,
+    )
 
 
 def test_directivity_at_the_half_angle_is_the_level():
@@ -105,8 +111,12 @@ def test_directivity_at_the_half_angle_is_the_level():
 def _scipy_half_angle_deg(level_db, d, lam):
     """Reference: brentq on scipy.special.j1, pulse-echo (2 J1(x)/x)^2 = 10^(-L/20)."""
     target = 10 ** (-level_db / 40)
-    x = scipy.optimize.brentq(lambda x: 2 * scipy.special.j1(x) / x - target, 1e-9,
-                              scipy.special.jn_zeros(1, 1)[0], xtol=1e-15)
+    x = scipy.optimize.brentq(
+        lambda x: 2 * scipy.special.j1(x) / x - target,
+        1e-9,
+        scipy.special.jn_zeros(1, 1)[0],
+        xtol=1e-15,
+    )
     return math.degrees(math.asin(x * lam / (math.pi * d)))
 
 
@@ -120,10 +130,12 @@ def test_acceptance_figures_for_a_10mm_5mhz_disc_in_steel():
     assert round(r.near_field * 1e3, 2) == 20.82
     assert round(r.near_field_simple * 1e3, 2) == 21.11
     assert round(r.planes[0].half_angles["-6"], 3) == 3.487
-    assert r.planes[0].half_angles["-6"] == pytest.approx(_scipy_half_angle_deg(6, 0.01, lam),
-                                                          rel=1e-10)
+    assert r.planes[0].half_angles["-6"] == pytest.approx(
+        _scipy_half_angle_deg(6, 0.01, lam), rel=1e-10
+    )
     assert r.planes[0].half_angles["-20"] == pytest.approx(
-        _scipy_half_angle_deg(20, 0.01, lam), rel=1e-10)
+        _scipy_half_angle_deg(20, 0.01, lam), rel=1e-10
+    )
 
 
 def test_none_where_the_pattern_never_falls_to_the_level():

@@ -35,38 +35,48 @@ NEAR = float(disc_near_field(DISC.diameter, LAM))
 
 @pytest.fixture(scope="module")
 def beam_map():
-    return field_map(DISC, SPEED, np.linspace(-0.012, 0.012, 128),
-                     np.linspace(0.1 * NEAR, 3 * NEAR, 256))
+    return field_map(
+        DISC, SPEED, np.linspace(-0.012, 0.012, 128), np.linspace(0.1 * NEAR, 3 * NEAR, 256)
+    )
 
 
 def _pictures(beam_map):
     """One call per picture: name -> function(path)."""
     rect = Rectangle(0.02, 0.01, 5e6)
-    profiles = [transverse_profile(rect, SPEED, 0.08, np.linspace(-0.012, 0.012, 121), plane=n)
-                for n in ("length", "width")]
+    profiles = [
+        transverse_profile(rect, SPEED, 0.08, np.linspace(-0.012, 0.012, 121), plane=n)
+        for n in ("length", "width")
+    ]
     widths = {n: beam_widths(rect, SPEED, 0.08, [6, 20], plane=n) for n in ("length", "width")}
     axial = axial_profile(DISC, SPEED, np.linspace(0.05 * NEAR, 3 * NEAR, 300))
-    edges = tuple(plots.BeamEdge.from_half_angle(level, math.radians(angle), 0.1,
-                                                 start_width=0.006)
-                  for level, angle in ((6, 5.0), (20, 9.0)))
+    edges = tuple(
+        plots.BeamEdge.from_half_angle(level, math.radians(angle), 0.1, start_width=0.006)
+        for level, angle in ((6, 5.0), (20, 9.0))
+    )
     section = plots.SectionGeometry(0.025, math.radians(45), 0.0, edges, flaw_depth=0.015)
     caption = "Invented example: disc 10 mm, 5 MHz, 5920 m/s, pulse-echo, continuous wave"
     return {
-        "map": lambda p: plots.plot_map(beam_map, p, near_field=NEAR, depths=[0.04],
-                                        caption=caption),
-        "axis": lambda p: plots.plot_axis(axial, p, near_field=NEAR,
-                                          axial_maximum=last_maximum(DISC, SPEED),
-                                          caption=caption),
-        "across": lambda p: plots.plot_across(profiles, widths, p, caption=caption,
-                                              units="in"),
-        "polar": lambda p: plots.plot_directivity(dict(DISC.planes), LAM, "disc", p,
-                                                  caption=caption),
-        "cartesian": lambda p: plots.plot_directivity(dict(rect.planes), LAM, "rectangle", p,
-                                                      polar=False, levels_db=(6, 20)),
+        "map": lambda p: plots.plot_map(
+            beam_map, p, near_field=NEAR, depths=[0.04], caption=caption
+        ),
+        "axis": lambda p: plots.plot_axis(
+            axial, p, near_field=NEAR, axial_maximum=last_maximum(DISC, SPEED), caption=caption
+        ),
+        "across": lambda p: plots.plot_across(profiles, widths, p, caption=caption, units="in"),
+        "polar": lambda p: plots.plot_directivity(
+            dict(DISC.planes), LAM, "disc", p, caption=caption
+        ),
+        "cartesian": lambda p: plots.plot_directivity(
+            dict(rect.planes), LAM, "rectangle", p, polar=False, levels_db=(6, 20)
+        ),
         "section": lambda p: plots.plot_section(section, p, caption=caption),
         "footprint": lambda p: plots.plot_footprint(
-            [5.0, 10.0, 20.0], {3: [0.8, 1.6, 3.2], "-10 dB, length plane": [1.4, 2.8, 5.6]},
-            p, near_field=2.0, caption="Invented widths"),
+            [5.0, 10.0, 20.0],
+            {3: [0.8, 1.6, 3.2], "-10 dB, length plane": [1.4, 2.8, 5.6]},
+            p,
+            near_field=2.0,
+            caption="Invented widths",
+        ),
     }
 
 
@@ -81,8 +91,7 @@ def _read_png(path) -> np.ndarray:
 
 @pytest.mark.parametrize("name", NAMES)
 @pytest.mark.parametrize("suffix", [".png", ".svg", ".pdf"])
-def test_each_picture_in_each_format_is_written_and_not_blank(tmp_path, beam_map, name,
-                                                              suffix):
+def test_each_picture_in_each_format_is_written_and_not_blank(tmp_path, beam_map, name, suffix):
     target = tmp_path / f"{name}{suffix}"
     written = _pictures(beam_map)[name](target)
     assert written == target and target.is_file()
@@ -91,7 +100,8 @@ def test_each_picture_in_each_format_is_written_and_not_blank(tmp_path, beam_map
     if suffix == ".png":
         image = _read_png(target)
         assert image.shape[:2] == (round(4.5 * plots.DPI), round(7 * plots.DPI)) or (
-            name == "section")
+            name == "section"
+        )
         colours = np.unique((image[..., :3] * 255).astype(np.uint8).reshape(-1, 3), axis=0)
         assert len(colours) > 200
     elif suffix == ".svg":
@@ -119,8 +129,7 @@ def _dark_runs(row: np.ndarray) -> list[float]:
 
 
 @pytest.mark.parametrize("depth_mm", [30.0, 37.0, 43.0, 50.0, 58.0])
-def test_the_map_contour_crosses_each_depth_at_the_computed_width(tmp_path, beam_map,
-                                                                  depth_mm):
+def test_the_map_contour_crosses_each_depth_at_the_computed_width(tmp_path, beam_map, depth_mm):
     fig = plots.map_figure(beam_map, levels_db=(6, 20), near_field=NEAR, depths=[0.04])
     path = plots.save_figure(fig, tmp_path / "map.png")
     image = _read_png(path)
@@ -131,8 +140,7 @@ def test_the_map_contour_crosses_each_depth_at_the_computed_width(tmp_path, beam
     row = round(height - y - 0.5)
     depth = ax.transData.inverted().transform((0.0, height - row - 0.5))[1] * 1e-3
     width = beam_widths(DISC, SPEED, depth, [6.0])[0].width
-    expected = [ax.transData.transform((side * width / 2 * 1e3, 0.0))[0] - 0.5
-                for side in (-1, 1)]
+    expected = [ax.transData.transform((side * width / 2 * 1e3, 0.0))[0] - 0.5 for side in (-1, 1)]
     runs = _dark_runs(image[row])
     for x in expected:
         nearest = min(runs, key=lambda c: abs(c - x))
@@ -157,15 +165,18 @@ def test_section_footprint_is_where_the_edges_cross_the_flaw_depth():
     edge = plots.BeamEdge.from_half_angle(6, theta, 0.2)
     g = plots.SectionGeometry(t, beta, 0.002, (edge,), flaw_depth=d)
     one, two = plots.section_footprints(g)
+
     # Edges leave at beta -+ theta only approximately for a cone of width 2 s tan(theta)
     # measured across the axis; compute the exact crossing of the offset line instead.
     def crossing(depth, side):
         # x = s sin b + o cos b, y = s cos b - o sin b, o = side s tan(theta)
         s = depth / (math.cos(beta) - side * math.tan(theta) * math.sin(beta))
         return 0.002 + s * math.sin(beta) + side * s * math.tan(theta) * math.cos(beta)
+
     assert (one.near, one.far) == pytest.approx((crossing(d, -1), crossing(d, 1)), abs=1e-9)
     assert (two.near, two.far) == pytest.approx(
-        sorted([crossing(2 * t - d, -1), crossing(2 * t - d, 1)]), abs=1e-9)
+        sorted([crossing(2 * t - d, -1), crossing(2 * t - d, 1)]), abs=1e-9
+    )
     assert one.sound_path == pytest.approx(d / math.cos(beta))
     assert two.surface_distance == pytest.approx((2 * t - d) * math.tan(beta))
 
@@ -213,8 +224,11 @@ def test_matplotlib_is_not_imported_by_the_module_alone():
     import subprocess
     import sys
 
-    code = ("import sys, beamspread.report.plots, beamspread.scan, beamspread.setupfile; "
-            "print('matplotlib' in sys.modules)")
-    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
-                         check=True).stdout.strip()
+    code = (
+        "import sys, beamspread.report.plots, beamspread.scan, beamspread.setupfile; "
+        "print('matplotlib' in sys.modules)"
+    )
+    out = subprocess.run(
+        [sys.executable, "-c", code], capture_output=True, text=True, check=True
+    ).stdout.strip()
     assert out == "False"

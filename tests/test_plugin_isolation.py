@@ -49,8 +49,16 @@ def builtins_still_work(registry):
 
 
 def beam_still_works(run):
-    result = run("beam", "--diameter", "10mm", "--frequency", "5MHz", "--material",
-                 "reference-steel", "--json")
+    result = run(
+        "beam",
+        "--diameter",
+        "10mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "reference-steel",
+        "--json",
+    )
     assert result.code == 0, result.stderr
     assert result.json()["medium"]["speed_m_s"] == 5920.0
     return result
@@ -111,8 +119,9 @@ def test_hook_register_media_failure_does_not_affect_the_next_plugin(plugin):
     assert not failures(registry, "synthetic-good")
 
 
-@pytest.mark.parametrize("thing", ["water", 1500.0, None, object()],
-                         ids=["str", "float", "none", "object"])
+@pytest.mark.parametrize(
+    "thing", ["water", 1500.0, None, object()], ids=["str", "float", "none", "object"]
+)
 def test_hook_register_media_non_medium_is_reported(plugin, thing):
     plugin(Media(synthetic_medium("synthetic-before"), thing), "synthetic-confused")
     registry = build_registry()
@@ -182,8 +191,9 @@ def test_hook_register_tables_good_plugin_table(plugin, tmp_path):
 
 def test_hook_register_media_good_plugin(plugin, run):
     plugin(Media(synthetic_medium("synthetic-ok", 3333.0)), "synthetic-media")
-    result = run("beam", "--diameter", "10mm", "--frequency", "1MHz", "--material",
-                 "synthetic-ok", "--json")
+    result = run(
+        "beam", "--diameter", "10mm", "--frequency", "1MHz", "--material", "synthetic-ok", "--json"
+    )
     assert result.code == 0, result.stderr
     assert result.json()["wavelength_m"] == pytest.approx(3333.0 / 1e6, rel=1e-12)
     assert result.stderr == ""
@@ -255,8 +265,12 @@ def test_hook_register_media_misspelled_hook_name_is_caught(entry_points, run):
     def register_mediums(register):  # one letter too many: no such hook
         register(synthetic_medium("synthetic-misspelled"))
 
-    entry_points(FakeEntryPoint("synthetic-typo", lambda: module_with(
-        "synthetic_typo", register_mediums=register_mediums)))
+    entry_points(
+        FakeEntryPoint(
+            "synthetic-typo",
+            lambda: module_with("synthetic_typo", register_mediums=register_mediums),
+        )
+    )
     failed = plugins.plugin_failures()
     assert len(failed) == 1
     assert failed[0].startswith("plug-in synthetic-typo failed to load")
@@ -278,24 +292,37 @@ def test_hook_register_tables_misspelled_argument_is_caught(entry_points):
     def register_tables(registrar):  # the hook passes `register`
         raise AssertionError("must never be called")
 
-    entry_points(FakeEntryPoint("synthetic-badarg", lambda: module_with(
-        "synthetic_badarg", register_tables=register_tables)))
+    entry_points(
+        FakeEntryPoint(
+            "synthetic-badarg",
+            lambda: module_with("synthetic_badarg", register_tables=register_tables),
+        )
+    )
     [line] = plugins.plugin_failures()
     assert line.startswith("plug-in synthetic-badarg failed to load")
     builtins_still_work(build_registry())
 
 
-@pytest.mark.parametrize("error", [ImportError("No module named 'synthetic_missing'"),
-                                   SyntaxError("invalid syntax"),
-                                   RuntimeError("synthetic import-time failure")],
-                         ids=["import", "syntax", "runtime"])
+@pytest.mark.parametrize(
+    "error",
+    [
+        ImportError("No module named 'synthetic_missing'"),
+        SyntaxError("invalid syntax"),
+        RuntimeError("synthetic import-time failure"),
+    ],
+    ids=["import", "syntax", "runtime"],
+)
 def test_entry_point_failing_on_import(entry_points, run, error):
     def load():
         raise error
 
-    entry_points(FakeEntryPoint("synthetic-broken", load),
-                 FakeEntryPoint("synthetic-fine", lambda: media_module(
-                     "synthetic_fine", synthetic_medium("synthetic-fine", 4321.0))))
+    entry_points(
+        FakeEntryPoint("synthetic-broken", load),
+        FakeEntryPoint(
+            "synthetic-fine",
+            lambda: media_module("synthetic_fine", synthetic_medium("synthetic-fine", 4321.0)),
+        ),
+    )
     expected = f"plug-in synthetic-broken failed to load: {type(error).__name__}: {error}"
     assert plugins.plugin_failures() == [expected]
     result = run("materials", "list", "--json")
@@ -306,9 +333,13 @@ def test_entry_point_failing_on_import(entry_points, run, error):
 
 
 def test_entry_point_plugin_is_listed_with_its_distribution(entry_points, run):
-    entry_points(FakeEntryPoint("synthetic-dist", lambda: media_module(
-        "synthetic_dist", synthetic_medium("synthetic-dist-medium")),
-        dist=FakeDistribution("synthetic-package", "1.2.3")))
+    entry_points(
+        FakeEntryPoint(
+            "synthetic-dist",
+            lambda: media_module("synthetic_dist", synthetic_medium("synthetic-dist-medium")),
+            dist=FakeDistribution("synthetic-package", "1.2.3"),
+        )
+    )
     registry = build_registry()
     entry = registry.get("synthetic-dist-medium")
     assert entry.origin == "plug-in synthetic-dist (synthetic-package 1.2.3)"
@@ -324,18 +355,24 @@ def test_entry_point_plugin_is_listed_with_its_distribution(entry_points, run):
 
 @pytest.mark.parametrize(
     ("selected", "loaded"),
-    [(None, {"synthetic-a", "synthetic-b"}), ("", set()), ("synthetic-a", {"synthetic-a"}),
-     (" synthetic-b , ", {"synthetic-b"}), ("synthetic-a,synthetic-b", {"synthetic-a",
-                                                                        "synthetic-b"}),
-     ("synthetic-c", set())],
+    [
+        (None, {"synthetic-a", "synthetic-b"}),
+        ("", set()),
+        ("synthetic-a", {"synthetic-a"}),
+        (" synthetic-b , ", {"synthetic-b"}),
+        ("synthetic-a,synthetic-b", {"synthetic-a", "synthetic-b"}),
+        ("synthetic-c", set()),
+    ],
     ids=["unset", "empty", "one", "spaces", "both", "unknown-name"],
 )
 def test_load_plugins_env_restricts_loading(entry_points, selected, loaded):
     eps = entry_points(
-        FakeEntryPoint("synthetic-a", lambda: media_module("synthetic_a",
-                                                           synthetic_medium("synthetic-ma"))),
-        FakeEntryPoint("synthetic-b", lambda: media_module("synthetic_b",
-                                                           synthetic_medium("synthetic-mb"))),
+        FakeEntryPoint(
+            "synthetic-a", lambda: media_module("synthetic_a", synthetic_medium("synthetic-ma"))
+        ),
+        FakeEntryPoint(
+            "synthetic-b", lambda: media_module("synthetic_b", synthetic_medium("synthetic-mb"))
+        ),
         selected=selected,
     )
     registry = build_registry()
@@ -365,14 +402,18 @@ def test_trace_plugins_reports_hook_calls(run, monkeypatch):
 
 def hook_specs():
     marker = f"{hookspecs.PROJECT}_spec"
-    return sorted(name for name, fn in vars(hookspecs).items()
-                  if callable(fn) and getattr(fn, marker, None) is not None)
+    return sorted(
+        name
+        for name, fn in vars(hookspecs).items()
+        if callable(fn) and getattr(fn, marker, None) is not None
+    )
 
 
 def test_hook_specs_found():
     pm = plugins.get_plugin_manager()
-    on_manager = sorted(name for name, caller in vars(pm.hook).items()
-                        if getattr(caller, "spec", None) is not None)
+    on_manager = sorted(
+        name for name, caller in vars(pm.hook).items() if getattr(caller, "spec", None) is not None
+    )
     assert hook_specs() == on_manager
     assert hook_specs()
 
@@ -388,8 +429,9 @@ def test_every_hook_is_documented_and_tested(name):
     assert "register" in (hookspecs.__doc__ or "")
     # Exercised here: a test named after the hook, that registers a plug-in with it.
     module = sys.modules[__name__]
-    tests = [fn for n, fn in vars(module).items()
-             if n.startswith(f"test_hook_{name}_") and callable(fn)]
+    tests = [
+        fn for n, fn in vars(module).items() if n.startswith(f"test_hook_{name}_") and callable(fn)
+    ]
     assert len(tests) >= 2, f"hook {name} needs tests named test_hook_{name}_..."
     # ...and some test plug-in in this file implements it with the documented signature.
     source = inspect.getsource(module)

@@ -32,9 +32,24 @@ def test_readme_console_blocks_match_the_tool(run, args, expected):
 def test_readme_sonar_footprint_follows_the_cone(run):
     # The footprint the README shows at 30 m is 2 D tan(half-angle) of the -3 dB cone
     # (geometry), as the JSON of the same command gives it.
-    data = run("beam", "--diameter", "25mm", "--frequency", "200kHz", "--material", "seawater",
-               "--temperature", "12", "--condition", "salinity=34", "--sonar", "--bottom-depth",
-               "30m", "--far-field-only", "--json").json()
+    data = run(
+        "beam",
+        "--diameter",
+        "25mm",
+        "--frequency",
+        "200kHz",
+        "--material",
+        "seawater",
+        "--temperature",
+        "12",
+        "--condition",
+        "salinity=34",
+        "--sonar",
+        "--bottom-depth",
+        "30m",
+        "--far-field-only",
+        "--json",
+    ).json()
     half = data["planes"][0]["half_angle_deg"]["-3"]
     width = 2 * 30.0 * math.tan(math.radians(half))
     assert data["footprints"][0]["width_m"] == pytest.approx(width)

@@ -159,8 +159,9 @@ def test_last_materials_dir_wins(tmp_path):
     assert speed(build_registry([second, first]), "synthetic-x") == 1000.0
 
 
-def test_materials_paths_lists_highest_precedence_first(run, monkeypatch, tmp_path,
-                                                        config_materials):
+def test_materials_paths_lists_highest_precedence_first(
+    run, monkeypatch, tmp_path, config_materials
+):
     d = user_dir(tmp_path / "dir", "synthetic-d", 1000)
     e = user_dir(tmp_path / "env", "synthetic-e", 1000)
     monkeypatch.setenv(ENV_VAR, str(e))
@@ -182,8 +183,10 @@ def test_plugin_overrides_builtin_and_user_overrides_plugin(run, plugin, tmp_pat
     assert entry.level_name == "plug-in"
     assert entry.plugin == "synthetic-plugin"
     assert speed(registry, "reference-steel") == 4444.0
-    assert any("plug-in synthetic-plugin" in w and "built-in table metals.toml" in w
-               for w in registry.warnings)
+    assert any(
+        "plug-in synthetic-plugin" in w and "built-in table metals.toml" in w
+        for w in registry.warnings
+    )
 
     mine = user_dir(tmp_path / "mine", "reference-steel", 5555)
     result = run("materials", "show", "reference-steel", "--materials-dir", str(mine), "--json")
@@ -226,8 +229,11 @@ def test_show_of_an_unshadowed_builtin(run):
 
 @pytest.mark.parametrize(
     ("typo", "suggested"),
-    [("stainles-steel-304", "stainless-steel-304"), ("refrence-steel", "reference-steel"),
-     ("see-water", "sea-water")],
+    [
+        ("stainles-steel-304", "stainless-steel-304"),
+        ("refrence-steel", "reference-steel"),
+        ("see-water", "sea-water"),
+    ],
 )
 def test_unknown_material_suggests_close_names(run, typo, suggested):
     with pytest.raises(MaterialError, match=f"'{suggested}'"):
@@ -241,10 +247,16 @@ def test_unknown_material_suggests_close_names(run, typo, suggested):
 
 @pytest.mark.parametrize(
     ("label", "name"),
-    [("Mild Steel", "carbon-steel"), ("  mild   steel ", "carbon-steel"),
-     ("MILD_STEEL", "carbon-steel"), ("Carbon-Steel", "carbon-steel"),
-     ("ISO 22232-2 Reference Steel", "reference-steel"), ("Stainless Steel", "stainless-steel-304"),
-     ("SeaWater", "seawater-mackenzie"), ("Sea Water", "seawater-mackenzie")],
+    [
+        ("Mild Steel", "carbon-steel"),
+        ("  mild   steel ", "carbon-steel"),
+        ("MILD_STEEL", "carbon-steel"),
+        ("Carbon-Steel", "carbon-steel"),
+        ("ISO 22232-2 Reference Steel", "reference-steel"),
+        ("Stainless Steel", "stainless-steel-304"),
+        ("SeaWater", "seawater-mackenzie"),
+        ("Sea Water", "seawater-mackenzie"),
+    ],
 )
 def test_alias_lookup_ignores_case_and_spacing(label, name):
     assert build_registry().get(label).name == name
@@ -252,9 +264,10 @@ def test_alias_lookup_ignores_case_and_spacing(label, name):
 
 def test_nonexistent_materials_dir_exits_2(run, tmp_path):
     missing = tmp_path / "nowhere"
-    for args in (("materials", "list"),
-                 ("beam", "--diameter", "10mm", "--frequency", "5MHz",
-                  "--material", "reference-steel")):
+    for args in (
+        ("materials", "list"),
+        ("beam", "--diameter", "10mm", "--frequency", "5MHz", "--material", "reference-steel"),
+    ):
         result = run(*args, "--materials-dir", str(missing))
         assert result.code == 2
         lines = result.stderr.strip().splitlines()
@@ -265,12 +278,21 @@ def test_nonexistent_materials_dir_exits_2(run, tmp_path):
 # ------------------------------------------------------------------ beam with user tables
 
 
-@pytest.mark.parametrize(("frequency", "hz"), [("5MHz", 5e6), ("2.25MHz", 2.25e6),
-                                                ("500kHz", 5e5)])
+@pytest.mark.parametrize(("frequency", "hz"), [("5MHz", 5e6), ("2.25MHz", 2.25e6), ("500kHz", 5e5)])
 def test_beam_uses_the_user_speed(run, tmp_path, frequency, hz):
     mine = user_dir(tmp_path / "mine", "synthetic-block", 3210)
-    result = run("beam", "--diameter", "10mm", "--frequency", frequency, "--material",
-                 "synthetic-block", "--materials-dir", str(mine), "--json")
+    result = run(
+        "beam",
+        "--diameter",
+        "10mm",
+        "--frequency",
+        frequency,
+        "--material",
+        "synthetic-block",
+        "--materials-dir",
+        str(mine),
+        "--json",
+    )
     assert result.code == 0, result.stderr
     data = result.json()
     assert data["medium"]["name"] == "synthetic-block"
@@ -280,8 +302,18 @@ def test_beam_uses_the_user_speed(run, tmp_path, frequency, hz):
 
 def test_beam_json_carries_registry_warnings_and_stays_pure(run, tmp_path):
     mine = user_dir(tmp_path / "mine", "reference-steel", 5000)
-    result = run("beam", "--diameter", "10mm", "--frequency", "5MHz", "--material",
-                 "reference-steel", "--materials-dir", str(mine), "--json")
+    result = run(
+        "beam",
+        "--diameter",
+        "10mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "reference-steel",
+        "--materials-dir",
+        str(mine),
+        "--json",
+    )
     assert result.code == 0
     data = result.json()
     assert data["medium"]["speed_m_s"] == 5000.0
@@ -292,10 +324,16 @@ def test_beam_json_carries_registry_warnings_and_stays_pure(run, tmp_path):
 @pytest.mark.parametrize(
     ("text", "marker"),
     [
-        ('format = 1\n\n[[material]]\nname = "synthetic-broken"\nstate = "liquid"\n'
-         "longitudinal = { value = 1400 unit }\n", "longitudinal"),
-        ('format = 1\n\n[[material]]\nname = "synthetic-broken"\nstate = "liquid"\n'
-         'longitudinal = { value = -1, unit = "m/s", source = "s" }\n', "longitudinal"),
+        (
+            'format = 1\n\n[[material]]\nname = "synthetic-broken"\nstate = "liquid"\n'
+            "longitudinal = { value = 1400 unit }\n",
+            "longitudinal",
+        ),
+        (
+            'format = 1\n\n[[material]]\nname = "synthetic-broken"\nstate = "liquid"\n'
+            'longitudinal = { value = -1, unit = "m/s", source = "s" }\n',
+            "longitudinal",
+        ),
     ],
     ids=["syntax", "negative"],
 )
@@ -305,8 +343,17 @@ def test_broken_user_table_stops_beam(run, tmp_path, text, marker):
     path = mine / "broken.toml"
     path.write_text(text, encoding="utf-8")
     line = next(i for i, s in enumerate(text.splitlines(), 1) if marker in s)
-    result = run("beam", "--diameter", "10mm", "--frequency", "5MHz", "--material",
-                 "reference-steel", "--materials-dir", str(mine))
+    result = run(
+        "beam",
+        "--diameter",
+        "10mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "reference-steel",
+        "--materials-dir",
+        str(mine),
+    )
     assert result.code == 2
     assert result.stdout == ""
     lines = result.stderr.strip().splitlines()
@@ -336,8 +383,17 @@ def test_non_toml_files_are_ignored(tmp_path):
 
 def mackenzie(t, s, d):
     """Mackenzie (1981), J. Acoust. Soc. Am. 70, 807, nine-term equation (m/s)."""
-    return (1448.96 + 4.591 * t - 5.304e-2 * t**2 + 2.374e-4 * t**3 + 1.340 * (s - 35)
-            + 1.630e-2 * d + 1.675e-7 * d**2 - 1.025e-2 * t * (s - 35) - 7.139e-13 * t * d**3)
+    return (
+        1448.96
+        + 4.591 * t
+        - 5.304e-2 * t**2
+        + 2.374e-4 * t**3
+        + 1.340 * (s - 35)
+        + 1.630e-2 * d
+        + 1.675e-7 * d**2
+        - 1.025e-2 * t * (s - 35)
+        - 7.139e-13 * t * d**3
+    )
 
 
 def beam_json(run, *args):
@@ -371,8 +427,7 @@ def test_seawater_depth_in_km(run):
     # Sonar depths are naturally given in km; the brief's example is depth=1km.
     result = beam_json(run, "--material", "seawater", "--condition", "depth=1km")
     assert result.code == 0, result.stderr
-    assert result.json()["medium"]["speed_m_s"] == pytest.approx(mackenzie(10, 35, 1000),
-                                                                 rel=1e-12)
+    assert result.json()["medium"]["speed_m_s"] == pytest.approx(mackenzie(10, 35, 1000), rel=1e-12)
 
 
 def test_unknown_condition_names_the_declared_ones(run):
@@ -404,8 +459,9 @@ def test_condition_outside_valid_range_warns(run, condition):
     assert "warning" in result.stderr
 
 
-@pytest.mark.parametrize("condition", ["salinity=60", "depth=12000m", "temperature=-10",
-                                       "temperature=50"])
+@pytest.mark.parametrize(
+    "condition", ["salinity=60", "depth=12000m", "temperature=-10", "temperature=50"]
+)
 def test_condition_outside_limits_is_refused(run, condition):
     result = beam_json(run, "--material", "seawater", "--condition", condition)
     assert result.code == 2
@@ -431,14 +487,24 @@ def test_temperature_with_a_curve_table_material(run, tmp_path):
     (mine / "curve.toml").write_text(
         'format = 1\n[[material]]\nname = "synthetic-curve"\nstate = "liquid"\n'
         'longitudinal = { temperature = [10, 30], values = [1000, 1200], unit = "m/s", '
-        f'source = "{SOURCE}" }}\n', encoding="utf-8")
-    result = beam_json(run, "--material", "synthetic-curve", "--materials-dir", str(mine),
-                       "--temperature", "68degF")
+        f'source = "{SOURCE}" }}\n',
+        encoding="utf-8",
+    )
+    result = beam_json(
+        run,
+        "--material",
+        "synthetic-curve",
+        "--materials-dir",
+        str(mine),
+        "--temperature",
+        "68degF",
+    )
     assert result.code == 0, result.stderr
     # 68 degF = 20 degC, the middle of the synthetic line from 1000 to 1200 m/s.
     assert result.json()["medium"]["speed_m_s"] == pytest.approx(1100.0, rel=1e-12)
-    outside = beam_json(run, "--material", "synthetic-curve", "--materials-dir", str(mine),
-                        "--temperature", "40")
+    outside = beam_json(
+        run, "--material", "synthetic-curve", "--materials-dir", str(mine), "--temperature", "40"
+    )
     assert outside.code == 2
     assert "10 to 30 degC" in outside.stderr
 
@@ -468,14 +534,18 @@ def test_plugin_condition_in_its_declared_unit(run, plugin):
         return 1000.0 + pressure
 
     medium = ComputedMedium(
-        "synthetic-pressurised", "liquid", law, source="synthetic law",
+        "synthetic-pressurised",
+        "liquid",
+        law,
+        source="synthetic law",
         parameters=(Parameter("pressure", "pressure", "bar", 1.0, (0.0, 50.0), (0.0, 100.0)),),
     )
     plugin(Media(medium), "synthetic-pressure")
     for text in ("10", "10bar", "1MPa"):
         seen.clear()
-        result = beam_json(run, "--material", "synthetic-pressurised", "--condition",
-                           f"pressure={text}")
+        result = beam_json(
+            run, "--material", "synthetic-pressurised", "--condition", f"pressure={text}"
+        )
         assert result.code == 0, result.stderr
         assert seen == [pytest.approx(10.0, rel=1e-12)], text
         assert result.json()["medium"]["speed_m_s"] == pytest.approx(1010.0, rel=1e-12)

@@ -46,13 +46,16 @@ def test_percentages_and_fractions():
             parse_overlap(bad)
 
 
-@pytest.mark.parametrize("widths, message", [
-    ({}, "at least one depth"),
-    ({0.02: None}, "no beam width at depth 20 mm"),
-    ({0.02: float("nan")}, "no beam width at depth 20 mm"),
-    ({0.02: -1.0}, "beam width at depth 20 mm"),
-    ({-0.02: 0.005}, "scan depth"),
-])
+@pytest.mark.parametrize(
+    "widths, message",
+    [
+        ({}, "at least one depth"),
+        ({0.02: None}, "no beam width at depth 20 mm"),
+        ({0.02: float("nan")}, "no beam width at depth 20 mm"),
+        ({0.02: -1.0}, "beam width at depth 20 mm"),
+        ({-0.02: 0.005}, "scan depth"),
+    ],
+)
 def test_bad_widths_are_refused(widths, message):
     with pytest.raises(InputError, match=message):
         plan_scan(widths, 0.1)
@@ -95,8 +98,7 @@ def test_far_field_widths_follow_the_cone_and_the_first_depth_governs():
 
 def test_rectangle_plane_and_bad_inputs():
     probe = Rectangle(0.02, 0.01, 5e6)
-    plan = plan_scan_for(probe, 5920.0, 0.08, 0.1, 0.1, count=2, plane="width",
-                         refine=False)
+    plan = plan_scan_for(probe, 5920.0, 0.08, 0.1, 0.1, count=2, plane="width", refine=False)
     assert plan.plane == "width"
     want = beam_widths(probe, 5920.0, 0.08, [6.0], plane="width")[0].width
     assert plan.governing_width <= want

@@ -18,7 +18,8 @@ def test_unesco_check_value():
     # the sound-speed algorithm: 1731.995 m/s at S = 40, T68 = 40 degC, 10000 dbar. Our
     # function takes ITS-90, so T90 = 40 / 1.00024.
     assert float(eq.seawater_unesco(40.0 / 1.00024, 40.0, 10000.0)) == pytest.approx(
-        1731.995, abs=5e-4)
+        1731.995, abs=5e-4
+    )
 
 
 def test_t68_conversion():
@@ -56,7 +57,8 @@ def test_saunders_pressure_against_gsw(z, lat):
     # Reference: gsw.p_from_z (TEOS-10, with its own gravity and standard ocean). Saunders
     # (1981) assumes a standard ocean of salinity 35 at 0 degC; the two agree within 0.1 %.
     assert float(eq.pressure_from_depth_saunders(z, lat)) == pytest.approx(
-        float(gsw.p_from_z(-z, lat)), rel=1e-3)
+        float(gsw.p_from_z(-z, lat)), rel=1e-3
+    )
 
 
 def test_saunders_published_example():
@@ -75,8 +77,9 @@ def test_saunders_inverse_round_trips():
 
 def test_unesco_medium_takes_pressure_or_depth_not_both():
     medium = build_registry().get("seawater-unesco").medium
-    by_depth = medium.evaluate("longitudinal", {"temperature": 4.0, "depth": 1000.0,
-                                                "latitude": 45.0})
+    by_depth = medium.evaluate(
+        "longitudinal", {"temperature": 4.0, "depth": 1000.0, "latitude": 45.0}
+    )
     # The same point given as pressure, converted with gsw (TEOS-10) instead of Saunders:
     p = float(gsw.p_from_z(-1000.0, 45.0))
     by_pressure = medium.evaluate("longitudinal", {"temperature": 4.0, "pressure": p})
@@ -86,7 +89,8 @@ def test_unesco_medium_takes_pressure_or_depth_not_both():
         medium.evaluate("longitudinal", {"depth": 10.0, "pressure": 10.0})
     # 0 counts as not given.
     assert medium.evaluate("longitudinal", {"depth": 0.0, "pressure": 100.0}).speed == (
-        pytest.approx(float(eq.seawater_unesco(10.0, 35.0, 100.0))))
+        pytest.approx(float(eq.seawater_unesco(10.0, 35.0, 100.0)))
+    )
 
 
 def test_seawater_default_is_mackenzie_and_unesco_refuses_outside_limits():
@@ -102,9 +106,11 @@ def test_seawater_default_is_mackenzie_and_unesco_refuses_outside_limits():
 # ----------------------------------------------------------------- Del Grosso
 
 # The ocean's own conditions: warm water only near the surface, cold water at depth.
-_OCEAN = [(p, t) for p in (0.0, 200.0) for t in (0.0, 10.0, 20.0, 30.0)] + [
-    (1000.0, t) for t in (2.0, 5.0, 8.0, 12.0)] + [
-    (p, t) for p in (2000.0, 5000.0, 9000.0) for t in (0.0, 2.0, 4.0)]
+_OCEAN = (
+    [(p, t) for p in (0.0, 200.0) for t in (0.0, 10.0, 20.0, 30.0)]
+    + [(1000.0, t) for t in (2.0, 5.0, 8.0, 12.0)]
+    + [(p, t) for p in (2000.0, 5000.0, 9000.0) for t in (0.0, 2.0, 4.0)]
+)
 
 
 @pytest.mark.parametrize(("p", "t"), _OCEAN)
@@ -136,8 +142,9 @@ def test_cramer_reference_value():
 
 def test_air_medium_at_cramer_conditions():
     air = build_registry().get("air").medium
-    wave = air.evaluate("longitudinal", {"temperature": 0.0, "humidity": 0.0,
-                                         "pressure": 101.325, "co2": 0.0314})
+    wave = air.evaluate(
+        "longitudinal", {"temperature": 0.0, "humidity": 0.0, "pressure": 101.325, "co2": 0.0314}
+    )
     assert wave.speed == pytest.approx(331.45, abs=5e-3)  # Cramer (1993), as above
 
 

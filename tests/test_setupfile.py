@@ -16,14 +16,35 @@ else:  # Python 3.10
     import tomli as tomllib
 
 FULL = Setup(  # an invented technique
-    frequency="5 MHz", diameter="10 mm", focus="60 mm", material="reference-steel",
-    wave="shear", temperature="20 degC", conditions=(("pressure", "1 bar"),),
-    wedge="acrylic", refracted="45 deg", wedge_path="12.5 mm", thickness="25 mm",
-    depths=("20 mm", "40 mm"), levels=("-6 dB", "20"), mode="one-way", bandwidth=0.5,
-    spectrum="flat", frequencies=24, title='Plate "A", 45°', description="line 1\nline 2",
+    frequency="5 MHz",
+    diameter="10 mm",
+    focus="60 mm",
+    material="reference-steel",
+    wave="shear",
+    temperature="20 degC",
+    conditions=(("pressure", "1 bar"),),
+    wedge="acrylic",
+    refracted="45 deg",
+    wedge_path="12.5 mm",
+    thickness="25 mm",
+    depths=("20 mm", "40 mm"),
+    levels=("-6 dB", "20"),
+    mode="one-way",
+    bandwidth=0.5,
+    spectrum="flat",
+    frequencies=24,
+    title='Plate "A", 45°',
+    description="line 1\nline 2",
 )
-SMALL = Setup(frequency="200 kHz", shape="rectangle", length="40 mm", width="20 mm",
-              speed="1480 m/s", water_path="30 mm", couplant="water")
+SMALL = Setup(
+    frequency="200 kHz",
+    shape="rectangle",
+    length="40 mm",
+    width="20 mm",
+    speed="1480 m/s",
+    water_path="30 mm",
+    couplant="water",
+)
 
 
 @pytest.mark.parametrize("setup", [FULL, SMALL], ids=["full", "small"])
@@ -62,8 +83,15 @@ def test_options_name_the_command_line():
 
 
 def test_si_numbers_from_a_command_line_keep_their_value():
-    setup = Setup.from_options({"--diameter": 0.0127, "--frequency": 2.25e6,
-                                "--speed": 5920.0, "--depth": (0.05,), "--bandwidth": "0.4"})
+    setup = Setup.from_options(
+        {
+            "--diameter": 0.0127,
+            "--frequency": 2.25e6,
+            "--speed": 5920.0,
+            "--depth": (0.05,),
+            "--bandwidth": "0.4",
+        }
+    )
     assert parse_quantity(setup.diameter, "length") == pytest.approx(0.0127, rel=1e-12)
     assert parse_quantity(setup.frequency, "frequency") == pytest.approx(2.25e6, rel=1e-12)
     assert setup.bandwidth == 0.4
@@ -96,24 +124,26 @@ def test_unknown_section_and_top_level_key():
         parse_setup('format = 1\ncolour = "red"\n' + dumps_setup(SMALL).split("\n", 1)[1])
 
 
-@pytest.mark.parametrize("old, new, message", [
-    ('"10 mm"', '"10 MHz"', "probe.diameter.*unknown length unit 'MHz'"),
-    ('"5 MHz"', "5", "probe.frequency.*has no unit"),
-    ('"5 MHz"', '"5"', "probe.frequency.*has no unit"),
-    ('"45 deg"', '"45 mm"', "wedge.refracted.*unknown angle unit"),
-    ('"20 degC"', '"20 m/s"', "medium.temperature.*unknown temperature unit"),
-    ('mode = "one-way"', 'mode = "both"', "conventions.mode.*one-way"),
-    ("bandwidth = 0.5", "bandwidth = 7.0", "conventions.bandwidth"),
-    ('"-6 dB"', '"-6 dBm"', "inspection.levels"),
-])
+@pytest.mark.parametrize(
+    "old, new, message",
+    [
+        ('"10 mm"', '"10 MHz"', "probe.diameter.*unknown length unit 'MHz'"),
+        ('"5 MHz"', "5", "probe.frequency.*has no unit"),
+        ('"5 MHz"', '"5"', "probe.frequency.*has no unit"),
+        ('"45 deg"', '"45 mm"', "wedge.refracted.*unknown angle unit"),
+        ('"20 degC"', '"20 m/s"', "medium.temperature.*unknown temperature unit"),
+        ('mode = "one-way"', 'mode = "both"', "conventions.mode.*one-way"),
+        ("bandwidth = 0.5", "bandwidth = 7.0", "conventions.bandwidth"),
+        ('"-6 dB"', '"-6 dBm"', "inspection.levels"),
+    ],
+)
 def test_wrong_units_and_values_are_named(old, new, message):
     text = dumps_setup(FULL)
     assert old in text
     bad = text.replace(old, new, 1)
     with pytest.raises(InputError, match=message) as info:
         parse_setup(bad, "t.toml")
-    line = next(i for i, s in enumerate(bad.splitlines(), 1)
-                if s.endswith(new) or f"[{new}," in s)
+    line = next(i for i, s in enumerate(bad.splitlines(), 1) if s.endswith(new) or f"[{new}," in s)
     assert str(info.value).startswith(f"t.toml:{line}:")
 
 
@@ -125,8 +155,11 @@ def test_format_syntax_and_combinations():
     with pytest.raises(InputError, match="not valid TOML"):
         parse_setup("format = 1\n[probe\n")
     with pytest.raises(InputError, match="either a material or a speed"):
-        parse_setup(dumps_setup(SMALL).replace('speed = "1480 m/s"', 'material = "water"\n'
-                                               'speed = "1480 m/s"'))
+        parse_setup(
+            dumps_setup(SMALL).replace(
+                'speed = "1480 m/s"', 'material = "water"\nspeed = "1480 m/s"'
+            )
+        )
     with pytest.raises(InputError, match="rectangle takes a length and a width"):
         Setup(frequency="1 MHz", shape="rectangle", length="10 mm", speed="1480 m/s")
     with pytest.raises(InputError, match="disc takes a diameter"):

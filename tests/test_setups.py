@@ -79,7 +79,8 @@ def test_effective_aperture_and_wedge_near_field():
     # Common practice: aperture x cos(beta)/cos(alpha); N_part - wedge path x c_w / c_part.
     r = refract(ACRYLIC, CL, CS, refracted=math.radians(60))
     assert effective_aperture(0.010, r.incident, r.shear) == pytest.approx(
-        0.010 * math.cos(math.radians(60)) / math.cos(r.incident))
+        0.010 * math.cos(math.radians(60)) / math.cos(r.incident)
+    )
     expected = 0.030 - 0.012 * ACRYLIC / CS
     assert wedge_near_field(0.030, 0.012, ACRYLIC, CS) == pytest.approx(expected)
 
@@ -110,8 +111,9 @@ def test_focal_spot_about_1_03_f_lambda_over_d():
     # O'Neil (1949) focal-plane pattern 2 J1(x)/x; pulse-echo -6 dB where (2J1(x)/x)^2 = 1/2
     # (x from scipy brentq on scipy.special.j1): width = 2 x F lambda / (pi D), the "1.02"
     # of common practice is 1.027 pulse-echo (computed here).
-    x = scipy.optimize.brentq(lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20),
-                              0.1, 3.8)
+    x = scipy.optimize.brentq(
+        lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-6 / 20), 0.1, 3.8
+    )
     width = focal_spot_width(0.05, 0.0003, 0.0127, float(pattern_x(6, "disc", "pulse-echo")))
     assert width == pytest.approx(2 * x * 0.05 * 0.0003 / (math.pi * 0.0127), rel=1e-10)
     assert round(width / (0.05 * 0.0003 / 0.0127), 2) == 1.03
@@ -129,7 +131,11 @@ def cap_brute_force(z, diameter, focal, lam):
     def part(f):
         return scipy.integrate.quad(
             lambda psi: 2 * math.pi * f(k * dist(psi)) / dist(psi) * focal**2 * math.sin(psi),
-            0, psi0, limit=500, epsabs=1e-13)[0]
+            0,
+            psi0,
+            limit=500,
+            epsabs=1e-13,
+        )[0]
 
     return k / (2 * math.pi) * math.hypot(part(math.cos), part(math.sin))
 
@@ -148,4 +154,5 @@ def test_focused_axial_maximum_lies_short_of_the_focus():
     p = focused_disc_axial_pressure(z, d, f, lam)
     assert z[np.argmax(p)] < f
     assert float(focused_disc_axial_pressure(f, d, f, lam)) == pytest.approx(
-        2 * math.pi / lam * (f - math.sqrt(f * f - (d / 2) ** 2)))
+        2 * math.pi / lam * (f - math.sqrt(f * f - (d / 2) ** 2))
+    )

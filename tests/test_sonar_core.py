@@ -44,7 +44,8 @@ def test_disc_directivity_factor_against_scipy(ka):
     wavelength = 1e-3
     diameter = 2.0 * ka * wavelength / (2.0 * np.pi)
     assert float(sonar.disc_directivity_factor(diameter, wavelength)) == pytest.approx(
-        _exact_disc_q(ka), rel=1e-10)
+        _exact_disc_q(ka), rel=1e-10
+    )
 
 
 @pytest.mark.parametrize("ka", [50.0, 120.0, 400.0])
@@ -54,7 +55,8 @@ def test_disc_directivity_index_large_ka_limit(ka):
     wavelength = 1e-3
     probe = Disc(ka * wavelength / np.pi, 1.0)
     assert sonar.directivity_index(probe, wavelength) == pytest.approx(
-        20.0 * math.log10(ka), abs=0.01)
+        20.0 * math.log10(ka), abs=0.01
+    )
 
 
 def test_small_pistons_fill_the_half_space():
@@ -71,16 +73,23 @@ def test_rectangle_large_aperture_limit(length, width):
     # wavelength (here at least 20 wavelengths a side): within 0.01 dB.
     wavelength = 1e-3
     di = sonar.directivity_index(Rectangle(length, width, 1.0), wavelength)
-    assert di == pytest.approx(10.0 * math.log10(4.0 * math.pi * length * width
-                                                 / wavelength**2), abs=0.01)
+    assert di == pytest.approx(
+        10.0 * math.log10(4.0 * math.pi * length * width / wavelength**2), abs=0.01
+    )
 
 
 def _q_by_pattern_integral(pattern_sq):
     # The definition: Q = 4 pi / (integral over the front half space of D^2 dOmega), D = 1 on
     # the axis, integrated by scipy over the polar angle and azimuth.
-    value, _ = integrate.dblquad(lambda theta, phi: pattern_sq(theta, phi) * np.sin(theta),
-                                 0.0, 2.0 * np.pi, 0.0, np.pi / 2.0, epsabs=1e-12,
-                                 epsrel=1e-10)
+    value, _ = integrate.dblquad(
+        lambda theta, phi: pattern_sq(theta, phi) * np.sin(theta),
+        0.0,
+        2.0 * np.pi,
+        0.0,
+        np.pi / 2.0,
+        epsabs=1e-12,
+        epsrel=1e-10,
+    )
     return 4.0 * np.pi / value
 
 
@@ -96,7 +105,8 @@ def test_rectangle_directivity_against_the_pattern_integral(length, width):
         return (np.sinc(k * length * u / (2 * np.pi)) * np.sinc(k * width * v / (2 * np.pi))) ** 2
 
     assert sonar.rectangle_directivity_factor(length, width, wavelength) == pytest.approx(
-        _q_by_pattern_integral(pattern_sq), rel=1e-7)
+        _q_by_pattern_integral(pattern_sq), rel=1e-7
+    )
 
 
 @pytest.mark.parametrize("ka", [0.5, 2.0, 6.0])
@@ -115,7 +125,8 @@ def test_rayleigh_distance_of_a_disc():
     # pi times the near-field length D^2 / (4 lambda).
     probe, wavelength = Disc(0.025, 200e3), 1500.0 / 200e3
     assert sonar.rayleigh_distance(probe, wavelength) == pytest.approx(
-        math.pi * 0.0125**2 / wavelength, rel=1e-14)
+        math.pi * 0.0125**2 / wavelength, rel=1e-14
+    )
 
 
 # ----------------------------------------------------------------- side lobes
@@ -170,14 +181,16 @@ def test_equivalent_beam_angle_of_a_disc_against_scipy(ka):
     wavelength = 1e-3
     probe = Disc(ka * wavelength / np.pi, 1.0)
     assert sonar.equivalent_beam_angle(probe, wavelength) == pytest.approx(
-        _psi_disc_scipy(ka), rel=1e-7)
+        _psi_disc_scipy(ka), rel=1e-7
+    )
 
 
 def test_equivalent_beam_angle_large_disc_constant():
     # For ka >> 1, psi (ka)^2 -> 2 pi * integral_0^inf (2 J1(x)/x)^4 x dx, quoted as 5.78
     # (Urick's table; from memory). The integral by scipy, and our psi at ka = 300.
-    value, _ = integrate.quad(lambda x: (2.0 * special.j1(x) / x) ** 4 * x, 1e-12, np.inf,
-                              limit=5000)
+    value, _ = integrate.quad(
+        lambda x: (2.0 * special.j1(x) / x) ** 4 * x, 1e-12, np.inf, limit=5000
+    )
     constant = 2.0 * np.pi * value
     assert constant == pytest.approx(5.78, abs=0.005)
     ka = 300.0
@@ -202,7 +215,8 @@ def test_footprint_is_the_cone_on_a_flat_bottom():
     # diameter 2 D tan(theta): 45 degrees at 10 m gives 20 m; 30 degrees gives 20/sqrt(3) m.
     assert float(sonar.footprint_width(10.0, math.radians(45.0))) == pytest.approx(20.0)
     assert float(sonar.footprint_width(10.0, math.radians(30.0))) == pytest.approx(
-        20.0 / math.sqrt(3.0))
+        20.0 / math.sqrt(3.0)
+    )
 
 
 def test_sonar_figures_of_an_analysed_beam():
@@ -219,7 +233,8 @@ def test_sonar_figures_of_an_analysed_beam():
     assert deep[0].width == pytest.approx(2 * 30.0 * math.tan(half), rel=1e-9)
     assert len(figures.footprints) == 4 and not deep[0].inside_near_field
     assert figures.directivity_index_db == pytest.approx(
-        10 * math.log10(_exact_disc_q(math.pi * 0.025 / wavelength)))
+        10 * math.log10(_exact_disc_q(math.pi * 0.025 / wavelength))
+    )
     assert figures.side_lobes[0].level_db == pytest.approx(-17.57, abs=0.005)
     with pytest.raises(InputError):
         sonar.sonar_figures(result, bottom_depths=[-1.0])
@@ -246,22 +261,41 @@ def test_source_level_constant():
 def test_echo_budget_terms():
     # The sonar equation term by term (common sonar-equation form): SL = 170.8 + 10 log P +
     # 10 log eta + DI; two-way spreading 40 log R; two-way absorption 2 alpha R.
-    budget = sonar.echo_budget(power=250.0, efficiency=0.4, directivity_index_db=18.0,
-                               range_m=60.0, absorption_db_per_km=40.0, bottom_loss_db=12.0)
+    budget = sonar.echo_budget(
+        power=250.0,
+        efficiency=0.4,
+        directivity_index_db=18.0,
+        range_m=60.0,
+        absorption_db_per_km=40.0,
+        bottom_loss_db=12.0,
+    )
     sl = 170.8 + 10 * math.log10(250.0) + 10 * math.log10(0.4) + 18.0
     assert budget.source_level.value_db == pytest.approx(sl)
     assert budget.spreading_loss.value_db == pytest.approx(40 * math.log10(60.0))
     assert budget.absorption_loss.value_db == pytest.approx(2 * 40.0 * 0.060)
     assert budget.received_level.value_db == pytest.approx(
-        sl - 40 * math.log10(60.0) - 2 * 40.0 * 0.060 - 12.0)
+        sl - 40 * math.log10(60.0) - 2 * 40.0 * 0.060 - 12.0
+    )
     assert [t.name for t in budget.terms] == [
-        "source level", "two-way spreading loss", "two-way absorption loss",
-        "bottom reflection loss", "received echo level"]
+        "source level",
+        "two-way spreading loss",
+        "two-way absorption loss",
+        "bottom reflection loss",
+        "received echo level",
+    ]
     assert "1 uPa at 1 m" in budget.source_level.reference
 
 
-@pytest.mark.parametrize("bad", [dict(efficiency=1.5), dict(efficiency=0.0), dict(power=0.0),
-                                 dict(range_m=0.5), dict(bottom_loss_db=-1.0)])
+@pytest.mark.parametrize(
+    "bad",
+    [
+        dict(efficiency=1.5),
+        dict(efficiency=0.0),
+        dict(power=0.0),
+        dict(range_m=0.5),
+        dict(bottom_loss_db=-1.0),
+    ],
+)
 def test_echo_budget_refuses_nonsense(bad):
     kwargs = dict(power=100.0, efficiency=0.5, directivity_index_db=20.0, range_m=50.0)
     kwargs.update(bad)

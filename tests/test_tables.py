@@ -41,11 +41,7 @@ def liquid(name="test-liquid", longitudinal=None, extra=""):
     """One synthetic [[material]] entry of a liquid, as TOML text."""
     longitudinal = longitudinal or f'{{ value = 1400, unit = "m/s", source = "{SOURCE}" }}'
     return (
-        "[[material]]\n"
-        f'name = "{name}"\n'
-        'state = "liquid"\n'
-        f"{extra}"
-        f"longitudinal = {longitudinal}\n"
+        f'[[material]]\nname = "{name}"\nstate = "liquid"\n{extra}longitudinal = {longitudinal}\n'
     )
 
 
@@ -71,8 +67,12 @@ def value(number, unit="m/s", **more):
 
 
 def curve(temps, values, unit="m/s", temperature_unit=None):
-    parts = [f"temperature = {list(temps)}", f"values = {list(values)}", f'unit = "{unit}"',
-             f'source = "{SOURCE}"']
+    parts = [
+        f"temperature = {list(temps)}",
+        f"values = {list(values)}",
+        f'unit = "{unit}"',
+        f'source = "{SOURCE}"',
+    ]
     if temperature_unit:
         parts.append(f'temperature_unit = "{temperature_unit}"')
     return "{ " + ", ".join(parts) + " }"
@@ -83,8 +83,11 @@ def curve(temps, values, unit="m/s", temperature_unit=None):
 
 def test_good_table_parses_with_every_field():
     text = table(
-        solid("synthetic-alpha", extra='aliases = ["Synthetic A", "alpha"]\ncategory = "metal"\n'
-              'description = "invented"\nnote = "a note"\n'),
+        solid(
+            "synthetic-alpha",
+            extra='aliases = ["Synthetic A", "alpha"]\ncategory = "metal"\n'
+            'description = "invented"\nnote = "a note"\n',
+        ),
         liquid("synthetic-beta"),
     )
     parsed = parse_table(text, "synthetic.toml")
@@ -119,8 +122,9 @@ def test_speed_units_convert(number, unit, expected_m_s):
     assert speed == pytest.approx(expected_m_s, rel=1e-12)
 
 
-@pytest.mark.parametrize(("number", "unit", "expected"), [(7.85, "g/cm3", 7850.0),
-                                                          (7850, "kg/m3", 7850.0)])
+@pytest.mark.parametrize(
+    ("number", "unit", "expected"), [(7.85, "g/cm3", 7850.0), (7850, "kg/m3", 7850.0)]
+)
 def test_density_units_convert(number, unit, expected):
     text = table(solid(density=value(number, unit)))
     assert parse_table(text).materials[0].density.value == pytest.approx(expected, rel=1e-12)
@@ -131,8 +135,9 @@ CURVE_V = (2.76, 2.73, 2.67)  # km/s, synthetic
 
 
 def curve_material(temperature_unit=None, temps=CURVE_T):
-    text = table(liquid("synthetic-curve",
-                        longitudinal=curve(temps, CURVE_V, "km/s", temperature_unit)))
+    text = table(
+        liquid("synthetic-curve", longitudinal=curve(temps, CURVE_V, "km/s", temperature_unit))
+    )
     return parse_table(text, "curve.toml").materials[0]
 
 
@@ -203,9 +208,12 @@ def check_error(text, path="bad.toml", line=None, entry=None, key=None, words=()
     ("text", "marker"),
     [
         ('format = 1\n\n[[material]]\nname = "unterminated\nstate = "solid"\n', "unterminated"),
-        ("format = 1\n[[material]]\n"
-         'name = "synthetic-x"\nstate = "liquid"\n'
-         'longitudinal = { value = 1400 unit = "m/s" }\n', "value = 1400 unit"),
+        (
+            "format = 1\n[[material]]\n"
+            'name = "synthetic-x"\nstate = "liquid"\n'
+            'longitudinal = { value = 1400 unit = "m/s" }\n',
+            "value = 1400 unit",
+        ),
         ("format = 1\ntitle = \n", "title ="),
         ("format = 1\n\n\n\n[[material]\n", "[[material]"),
         ("format = 1\nformat = 1\n", "format = 1"),
@@ -223,29 +231,47 @@ def test_unknown_top_level_key():
     check_error(text, key="titel", words=("did you mean 'title'", "allowed"))
 
 
-@pytest.mark.parametrize(("bad", "closest"), [("aliasses", "aliases"), ("densty", "density"),
-                                              ("longitudnal", "longitudinal")])
+@pytest.mark.parametrize(
+    ("bad", "closest"),
+    [("aliasses", "aliases"), ("densty", "density"), ("longitudnal", "longitudinal")],
+)
 def test_unknown_entry_key_names_entry_key_and_closest(bad, closest):
     assert closest in ENTRY_KEYS
     text = table(liquid("synthetic-entry", extra=f'{bad} = "x"\n'))
-    check_error(text, entry="synthetic-entry", key=bad, line=line_no(text, f"{bad} ="),
-                words=(f"did you mean '{closest}'",))
+    check_error(
+        text,
+        entry="synthetic-entry",
+        key=bad,
+        line=line_no(text, f"{bad} ="),
+        words=(f"did you mean '{closest}'",),
+    )
 
 
-@pytest.mark.parametrize(("bad", "closest"), [("sorce", "source"), ("unti", "unit"),
-                                              ("vaule", "value")])
+@pytest.mark.parametrize(
+    ("bad", "closest"), [("sorce", "source"), ("unti", "unit"), ("vaule", "value")]
+)
 def test_unknown_value_key(bad, closest):
     assert closest in VALUE_KEYS
     longitudinal = f'{{ value = 1400, unit = "m/s", source = "s", {bad} = 1 }}'
     text = table(liquid("synthetic-value", longitudinal=longitudinal))
-    check_error(text, entry="synthetic-value", key="longitudinal",
-                line=line_no(text, "longitudinal ="), words=(bad, f"did you mean '{closest}'"))
+    check_error(
+        text,
+        entry="synthetic-value",
+        key="longitudinal",
+        line=line_no(text, "longitudinal ="),
+        words=(bad, f"did you mean '{closest}'"),
+    )
 
 
 def test_missing_longitudinal():
     text = table('[[material]]\nname = "synthetic-none"\nstate = "liquid"\n')
-    check_error(text, entry="synthetic-none", key="longitudinal",
-                line=line_no(text, 'name = "synthetic-none"'), words=("missing",))
+    check_error(
+        text,
+        entry="synthetic-none",
+        key="longitudinal",
+        line=line_no(text, 'name = "synthetic-none"'),
+        words=("missing",),
+    )
 
 
 @pytest.mark.parametrize(
@@ -254,8 +280,10 @@ def test_missing_longitudinal():
         ('{ value = 1400, source = "s" }', ("needs a unit", "m/s")),
         ('{ value = 1400, unit = "m/s" }', ("needs a source",)),
         ('{ value = 1400, unit = "m/s", source = "  " }', ("needs a source",)),
-        ('{ value = 1400, unit = "furlong/s", source = "s" }', ("unknown unit", "furlong/s",
-                                                                "km/s")),
+        (
+            '{ value = 1400, unit = "furlong/s", source = "s" }',
+            ("unknown unit", "furlong/s", "km/s"),
+        ),
         ('{ value = 1400, unit = "kg/m3", source = "s" }', ("unknown unit",)),
         ('{ value = 1400, unit = 5, source = "s" }', ("needs a unit",)),
         ('{ value = 0, unit = "m/s", source = "s" }', ("above 0",)),
@@ -266,41 +294,79 @@ def test_missing_longitudinal():
         ('{ value = "1400", unit = "m/s", source = "s" }', ("not a number",)),
         ('{ value = true, unit = "m/s", source = "s" }', ("not a number",)),
         ('{ unit = "m/s", source = "s" }', ("either 'value'",)),
-        ('{ value = 1, temperature = [1, 2], values = [1, 2], unit = "m/s", source = "s" }',
-         ("either 'value'",)),
+        (
+            '{ value = 1, temperature = [1, 2], values = [1, 2], unit = "m/s", source = "s" }',
+            ("either 'value'",),
+        ),
         ("1400", ("inline table",)),
-        ('{ temperature = [10, 20, 30], values = [1400, 1410], unit = "m/s", source = "s" }',
-         ("same length",)),
-        ('{ temperature = [10], values = [1400], unit = "m/s", source = "s" }',
-         ("at least 2",)),
-        ('{ temperature = [10, 30, 20], values = [1400, 1410, 1420], unit = "m/s", '
-         'source = "s" }', ("must increase",)),
-        ('{ temperature = [10, 10], values = [1400, 1410], unit = "m/s", source = "s" }',
-         ("must increase",)),
-        ('{ temperature = [10, 20], values = [1400, -1], unit = "m/s", source = "s" }',
-         ("above 0",)),
-        ('{ temperature = [10, 20], values = [1400, 1410], unit = "m/s", source = "s", '
-         'temperature_unit = "degR" }', ("temperature unit",)),
-        ('{ temperature = 10, values = [1400, 1410], unit = "m/s", source = "s" }',
-         ("lists",)),
+        (
+            '{ temperature = [10, 20, 30], values = [1400, 1410], unit = "m/s", source = "s" }',
+            ("same length",),
+        ),
+        ('{ temperature = [10], values = [1400], unit = "m/s", source = "s" }', ("at least 2",)),
+        (
+            '{ temperature = [10, 30, 20], values = [1400, 1410, 1420], unit = "m/s", '
+            'source = "s" }',
+            ("must increase",),
+        ),
+        (
+            '{ temperature = [10, 10], values = [1400, 1410], unit = "m/s", source = "s" }',
+            ("must increase",),
+        ),
+        (
+            '{ temperature = [10, 20], values = [1400, -1], unit = "m/s", source = "s" }',
+            ("above 0",),
+        ),
+        (
+            '{ temperature = [10, 20], values = [1400, 1410], unit = "m/s", source = "s", '
+            'temperature_unit = "degR" }',
+            ("temperature unit",),
+        ),
+        ('{ temperature = 10, values = [1400, 1410], unit = "m/s", source = "s" }', ("lists",)),
     ],
-    ids=["no-unit", "no-source", "blank-source", "unknown-unit", "wrong-kind-unit",
-         "unit-not-string", "zero", "negative", "nan", "inf", "minus-inf", "string-number",
-         "bool-number", "neither", "both", "not-a-table", "curve-length", "curve-one-point",
-         "curve-decreasing", "curve-repeated", "curve-negative", "curve-bad-t-unit",
-         "curve-not-list"],
+    ids=[
+        "no-unit",
+        "no-source",
+        "blank-source",
+        "unknown-unit",
+        "wrong-kind-unit",
+        "unit-not-string",
+        "zero",
+        "negative",
+        "nan",
+        "inf",
+        "minus-inf",
+        "string-number",
+        "bool-number",
+        "neither",
+        "both",
+        "not-a-table",
+        "curve-length",
+        "curve-one-point",
+        "curve-decreasing",
+        "curve-repeated",
+        "curve-negative",
+        "curve-bad-t-unit",
+        "curve-not-list",
+    ],
 )
 def test_bad_value(longitudinal, words):
     text = table(liquid("synthetic-bad", longitudinal=longitudinal))
-    check_error(text, entry="synthetic-bad", key="longitudinal",
-                line=line_no(text, "longitudinal ="), words=words)
+    check_error(
+        text,
+        entry="synthetic-bad",
+        key="longitudinal",
+        line=line_no(text, "longitudinal ="),
+        words=words,
+    )
 
 
 def test_empty_unit_is_refused():
     # The format says every value carries a unit. An empty string is no unit, yet
     # it falls through to the bare-number default (m/s) instead of being refused.
-    text = table(liquid("synthetic-empty-unit", longitudinal='{ value = 1400, unit = "", '
-                                                            'source = "s" }'))
+    text = table(
+        liquid("synthetic-empty-unit", longitudinal='{ value = 1400, unit = "", source = "s" }')
+    )
     check_error(text, entry="synthetic-empty-unit", key="longitudinal", words=("unit",))
 
 
@@ -314,30 +380,51 @@ def test_value_overflowing_on_conversion_is_not_called_an_unknown_unit():
 
 @pytest.mark.parametrize(
     ("shear", "longitudinal"),
-    [(value(5000), value(5000)), (value(6000), value(5000)),
-     (curve((10, 20), (3000, 5100)), curve((10, 20), (5200, 5050)))],
+    [
+        (value(5000), value(5000)),
+        (value(6000), value(5000)),
+        (curve((10, 20), (3000, 5100)), curve((10, 20), (5200, 5050))),
+    ],
     ids=["equal", "above", "curves-overlap"],
 )
 def test_shear_must_be_below_longitudinal(shear, longitudinal):
     text = table(solid("synthetic-shear", longitudinal=longitudinal, shear=shear))
-    check_error(text, entry="synthetic-shear", key="shear", line=line_no(text, "shear ="),
-                words=("below the longitudinal",))
+    check_error(
+        text,
+        entry="synthetic-shear",
+        key="shear",
+        line=line_no(text, "shear ="),
+        words=("below the longitudinal",),
+    )
 
 
 @pytest.mark.parametrize("state", ["liquid", "gas"])
 def test_shear_on_a_fluid(state):
-    text = table(f'[[material]]\nname = "synthetic-fluid"\nstate = "{state}"\n'
-                 f"longitudinal = {value(1400)}\nshear = {value(700)}\n")
-    check_error(text, entry="synthetic-fluid", key="shear", line=line_no(text, "shear ="),
-                words=("no shear",))
+    text = table(
+        f'[[material]]\nname = "synthetic-fluid"\nstate = "{state}"\n'
+        f"longitudinal = {value(1400)}\nshear = {value(700)}\n"
+    )
+    check_error(
+        text,
+        entry="synthetic-fluid",
+        key="shear",
+        line=line_no(text, "shear ="),
+        words=("no shear",),
+    )
 
 
 @pytest.mark.parametrize("state", ['"plasma"', '"Solid"', "1"])
 def test_bad_state(state):
-    text = table(f'[[material]]\nname = "synthetic-state"\nstate = {state}\n'
-                 f"longitudinal = {value(1400)}\n")
-    check_error(text, entry="synthetic-state", key="state", line=line_no(text, "state ="),
-                words=("solid, liquid, gas",))
+    text = table(
+        f'[[material]]\nname = "synthetic-state"\nstate = {state}\nlongitudinal = {value(1400)}\n'
+    )
+    check_error(
+        text,
+        entry="synthetic-state",
+        key="state",
+        line=line_no(text, "state ="),
+        words=("solid, liquid, gas",),
+    )
 
 
 def test_missing_state():
@@ -345,8 +432,19 @@ def test_missing_state():
     check_error(text, entry="synthetic-state", key="state", words=("None",))
 
 
-@pytest.mark.parametrize("name", ["Upper-Case", "has space", "double--hyphen", "-leading",
-                                  "trailing-", "9starts-with-digit", "under_score", ""])
+@pytest.mark.parametrize(
+    "name",
+    [
+        "Upper-Case",
+        "has space",
+        "double--hyphen",
+        "-leading",
+        "trailing-",
+        "9starts-with-digit",
+        "under_score",
+        "",
+    ],
+)
 def test_bad_name_pattern(name):
     text = table(liquid(name))
     check_error(text, entry=name, key="name", words=("lower-case",))
@@ -361,23 +459,28 @@ def test_duplicate_name_in_one_file_points_at_the_second_entry():
     text = table(liquid("synthetic-twice"), liquid("synthetic-twice"))
     second = line_no(text, 'name = "synthetic-twice"', occurrence=2)
     # The error is about the second entry, so its line must be given, not the first's.
-    check_error(text, entry="synthetic-twice", key="name", line=second,
-                words=("already used",))
+    check_error(text, entry="synthetic-twice", key="name", line=second, words=("already used",))
 
 
 def test_duplicate_name_differing_only_in_spelling_of_alias():
-    text = table(liquid("synthetic-one", extra='aliases = ["Synthetic Two"]\n'),
-                 liquid("synthetic-two"))
-    check_error(text, entry="synthetic-two", key="name", words=("already used",
-                                                               "synthetic-one"))
+    text = table(
+        liquid("synthetic-one", extra='aliases = ["Synthetic Two"]\n'), liquid("synthetic-two")
+    )
+    check_error(text, entry="synthetic-two", key="name", words=("already used", "synthetic-one"))
 
 
 def test_duplicate_alias_in_one_file():
-    text = table(liquid("synthetic-one", extra='aliases = ["shared name"]\n'),
-                 liquid("synthetic-two", extra='aliases = ["Shared  Name"]\n'))
-    check_error(text, entry="synthetic-two", key="aliases",
-                line=line_no(text, "aliases =", occurrence=2),
-                words=("Shared  Name", "already used by entry 'synthetic-one'"))
+    text = table(
+        liquid("synthetic-one", extra='aliases = ["shared name"]\n'),
+        liquid("synthetic-two", extra='aliases = ["Shared  Name"]\n'),
+    )
+    check_error(
+        text,
+        entry="synthetic-two",
+        key="aliases",
+        line=line_no(text, "aliases =", occurrence=2),
+        words=("Shared  Name", "already used by entry 'synthetic-one'"),
+    )
 
 
 @pytest.mark.parametrize("aliases", ['"not-a-list"', '[""]', "[1]"])
@@ -388,8 +491,13 @@ def test_bad_aliases(aliases):
 
 @pytest.mark.parametrize(
     ("header", "line"),
-    [("format = 2\n", None), ('format = "1"\n', None), ("format = 0\n", None),
-     ("format = true\n", None), ('title = "no format"\n', 1)],
+    [
+        ("format = 2\n", None),
+        ('format = "1"\n', None),
+        ("format = 0\n", None),
+        ("format = true\n", None),
+        ('title = "no format"\n', 1),
+    ],
     ids=["two", "string", "zero", "bool", "missing"],
 )
 def test_wrong_or_missing_format(header, line):
@@ -435,14 +543,25 @@ def test_check_command_good_table(run, tmp_path):
     ("text", "marker", "parts"),
     [
         ('format = 1\n\n[[material]]\nname = "oops\n', "oops", ()),
-        (table(liquid("synthetic-k", extra='colour = "red"\n')), "colour",
-         ("entry 'synthetic-k'", "key 'colour'")),
-        (table(liquid("synthetic-u", longitudinal='{ value = 1, unit = "parsec/s", '
-                                                  'source = "s" }')), "longitudinal =",
-         ("entry 'synthetic-u'", "key 'longitudinal'", "parsec/s")),
-        (table(liquid("synthetic-n", longitudinal='{ value = nan, unit = "m/s", '
-                                                  'source = "s" }')), "longitudinal =",
-         ("entry 'synthetic-n'", "finite")),
+        (
+            table(liquid("synthetic-k", extra='colour = "red"\n')),
+            "colour",
+            ("entry 'synthetic-k'", "key 'colour'"),
+        ),
+        (
+            table(
+                liquid("synthetic-u", longitudinal='{ value = 1, unit = "parsec/s", source = "s" }')
+            ),
+            "longitudinal =",
+            ("entry 'synthetic-u'", "key 'longitudinal'", "parsec/s"),
+        ),
+        (
+            table(
+                liquid("synthetic-n", longitudinal='{ value = nan, unit = "m/s", source = "s" }')
+            ),
+            "longitudinal =",
+            ("entry 'synthetic-n'", "finite"),
+        ),
     ],
     ids=["toml-syntax", "unknown-key", "unknown-unit", "nan"],
 )
@@ -505,8 +624,11 @@ def test_builtin_every_value_has_a_source():
 
 
 def test_builtin_solids_have_shear_and_density_and_shear_below_longitudinal():
-    solids = [e.medium for e in builtin_entries()
-              if isinstance(e.medium, Material) and e.medium.state == "solid"]
+    solids = [
+        e.medium
+        for e in builtin_entries()
+        if isinstance(e.medium, Material) and e.medium.state == "solid"
+    ]
     assert solids
     for m in solids:
         assert m.shear is not None, m.name

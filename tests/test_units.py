@@ -32,10 +32,22 @@ INCH = 25.4e-3  # m, exact
 @pytest.mark.parametrize(
     ("text", "metres"),
     [
-        ("1m", 1.0), ("0.5 m", 0.5), ("10mm", 10e-3), ("10 mm", 10e-3), ("250um", 250e-6),
-        ("250 µm", 250e-6), ("1in", INCH), ("0.5 in", 0.5 * INCH), ("2.5cm", 25e-3),
-        ("1ft", 12 * INCH), ("10", 10e-3), ("1e1mm", 10e-3), (".5in", 0.5 * INCH),
-        ("  12.7mm  ", 12.7e-3), ("10MM", 10e-3), ("3IN", 3 * INCH),
+        ("1m", 1.0),
+        ("0.5 m", 0.5),
+        ("10mm", 10e-3),
+        ("10 mm", 10e-3),
+        ("250um", 250e-6),
+        ("250 µm", 250e-6),
+        ("1in", INCH),
+        ("0.5 in", 0.5 * INCH),
+        ("2.5cm", 25e-3),
+        ("1ft", 12 * INCH),
+        ("10", 10e-3),
+        ("1e1mm", 10e-3),
+        (".5in", 0.5 * INCH),
+        ("  12.7mm  ", 12.7e-3),
+        ("10MM", 10e-3),
+        ("3IN", 3 * INCH),
     ],
 )
 def test_lengths(text, metres):
@@ -49,8 +61,18 @@ def test_inch_is_exactly_25_4_mm():
 
 @pytest.mark.parametrize(
     ("text", "hz"),
-    [("1Hz", 1.0), ("500 Hz", 500.0), ("200kHz", 200e3), ("200 kHz", 200e3), ("5MHz", 5e6),
-     ("2.25 MHz", 2.25e6), ("5", 5e6), ("0.5", 5e5), ("5mhz", 5e6), ("1GHz", 1e9)],
+    [
+        ("1Hz", 1.0),
+        ("500 Hz", 500.0),
+        ("200kHz", 200e3),
+        ("200 kHz", 200e3),
+        ("5MHz", 5e6),
+        ("2.25 MHz", 2.25e6),
+        ("5", 5e6),
+        ("0.5", 5e5),
+        ("5mhz", 5e6),
+        ("1GHz", 1e9),
+    ],
 )
 def test_frequencies(text, hz):
     assert parse_frequency(text) == pytest.approx(hz, rel=1e-15)
@@ -58,9 +80,17 @@ def test_frequencies(text, hz):
 
 @pytest.mark.parametrize(
     ("text", "m_s"),
-    [("5920m/s", 5920.0), ("5920 m/s", 5920.0), ("5.92km/s", 5920.0), ("5.92 mm/us", 5920.0),
-     ("5.92mm/µs", 5920.0), ("0.2331in/us", 0.2331 * INCH * 1e6), ("1in/µs", INCH * 1e6),
-     ("1500", 1500.0), ("1000ft/s", 1000 * 12 * INCH)],
+    [
+        ("5920m/s", 5920.0),
+        ("5920 m/s", 5920.0),
+        ("5.92km/s", 5920.0),
+        ("5.92 mm/us", 5920.0),
+        ("5.92mm/µs", 5920.0),
+        ("0.2331in/us", 0.2331 * INCH * 1e6),
+        ("1in/µs", INCH * 1e6),
+        ("1500", 1500.0),
+        ("1000ft/s", 1000 * 12 * INCH),
+    ],
 )
 def test_speeds(text, m_s):
     assert parse_speed(text) == pytest.approx(m_s, rel=1e-14)
@@ -68,23 +98,44 @@ def test_speeds(text, m_s):
 
 @pytest.mark.parametrize(
     ("text", "deg_c"),
-    [("20degC", 20.0), ("20 °C", 20.0), ("20", 20.0), ("-5", -5.0), ("68degF", 20.0),
-     ("32 degF", 0.0), ("-40degF", -40.0), ("212°F", 100.0), ("273.15K", 0.0),
-     ("293.15 K", 20.0), ("0K", -273.15), ("20C", 20.0), ("50F", 10.0)],
+    [
+        ("20degC", 20.0),
+        ("20 °C", 20.0),
+        ("20", 20.0),
+        ("-5", -5.0),
+        ("68degF", 20.0),
+        ("32 degF", 0.0),
+        ("-40degF", -40.0),
+        ("212°F", 100.0),
+        ("273.15K", 0.0),
+        ("293.15 K", 20.0),
+        ("0K", -273.15),
+        ("20C", 20.0),
+        ("50F", 10.0),
+    ],
 )
 def test_temperatures(text, deg_c):
     assert parse_temperature(text) == pytest.approx(deg_c, abs=1e-12)
 
 
-@pytest.mark.parametrize(("text", "kg_m3"), [("7850", 7850.0), ("7.85 g/cm3", 7850.0),
-                                             ("1000kg/m3", 1000.0), ("1 g/cm^3", 1000.0)])
+@pytest.mark.parametrize(
+    ("text", "kg_m3"),
+    [("7850", 7850.0), ("7.85 g/cm3", 7850.0), ("1000kg/m3", 1000.0), ("1 g/cm^3", 1000.0)],
+)
 def test_densities(text, kg_m3):
     assert parse_density(text) == pytest.approx(kg_m3, rel=1e-14)
 
 
-@pytest.mark.parametrize(("kind", "default"), [("length", "mm"), ("frequency", "MHz"),
-                                               ("speed", "m/s"), ("temperature", "degC"),
-                                               ("density", "kg/m3")])
+@pytest.mark.parametrize(
+    ("kind", "default"),
+    [
+        ("length", "mm"),
+        ("frequency", "MHz"),
+        ("speed", "m/s"),
+        ("temperature", "degC"),
+        ("density", "kg/m3"),
+    ],
+)
 def test_bare_numbers_take_the_documented_default(kind, default):
     assert KINDS[kind].default == default
     assert parse_quantity("7", kind) == parse_quantity(f"7{default}", kind)
@@ -153,15 +204,35 @@ def test_input_error_is_a_value_error():
 # ------------------------------------------------------------------ levels
 
 
-@pytest.mark.parametrize("text", ["-6", "6", "6dB", "-6 dB", "6 db", " -6dB ", "+6", "6.0",
-                                  -6, 6, 6.0, -6.0])
+@pytest.mark.parametrize(
+    "text", ["-6", "6", "6dB", "-6 dB", "6 db", " -6dB ", "+6", "6.0", -6, 6, 6.0, -6.0]
+)
 def test_levels_mean_dB_down(text):
     assert parse_level(text) == 6.0
 
 
-@pytest.mark.parametrize("text", ["0", "-0", "0dB", 0, 0.0, "abc", "6 dBm", "dB", "",
-                                  float("nan"), "nan", float("inf"), "-inf", "200.001",
-                                  201, "-250dB", "1e3"])
+@pytest.mark.parametrize(
+    "text",
+    [
+        "0",
+        "-0",
+        "0dB",
+        0,
+        0.0,
+        "abc",
+        "6 dBm",
+        "dB",
+        "",
+        float("nan"),
+        "nan",
+        float("inf"),
+        "-inf",
+        "200.001",
+        201,
+        "-250dB",
+        "1e3",
+    ],
+)
 def test_bad_levels_refused(text):
     with pytest.raises(InputError):
         parse_level(text)
@@ -194,14 +265,16 @@ positive = st.floats(min_value=1e-6, max_value=1e6, allow_nan=False, allow_infin
 
 @given(positive)
 def test_mm_and_m_agree(value):
-    assert parse_length(f"{value * 1000!r}mm") == pytest.approx(parse_length(f"{value!r}m"),
-                                                                rel=1e-12)
+    assert parse_length(f"{value * 1000!r}mm") == pytest.approx(
+        parse_length(f"{value!r}m"), rel=1e-12
+    )
 
 
 @given(positive)
 def test_inches_are_25_4_mm(value):
     assert parse_length(f"{value!r} in") == pytest.approx(
-        parse_length(f"{value * 25.4!r} mm"), rel=1e-12)
+        parse_length(f"{value * 25.4!r} mm"), rel=1e-12
+    )
 
 
 @given(positive)

@@ -22,8 +22,9 @@ README = Path(__file__).resolve().parent.parent / "README.md"
 def render(command: str) -> str:
     result = CliRunner().invoke(cli, shlex.split(command)[1:])
     lines = result.stdout.rstrip("\n").split("\n")
-    while lines and (lines[-1].startswith(("Estimates from", "qualified procedure")) or
-                     not lines[-1].strip()):
+    while lines and (
+        lines[-1].startswith(("Estimates from", "qualified procedure")) or not lines[-1].strip()
+    ):
         lines.pop()
     return "\n".join(lines)
 
@@ -35,8 +36,9 @@ def main() -> None:
         command = match.group(1)
         return f"```console\n$ {command}\n{render(command)}\n```"
 
-    README.write_text(re.sub(r"```console\n\$ (.*?)\n.*?```", replace, text, flags=re.S),
-                      encoding="utf-8")
+    README.write_text(
+        re.sub(r"```console\n\$ (.*?)\n.*?```", replace, text, flags=re.S), encoding="utf-8"
+    )
 
 
 if __name__ == "__main__":

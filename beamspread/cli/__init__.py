@@ -69,14 +69,18 @@ class _Group(click.Group):
         try:
             args = list(sys.argv[1:] if args is None else args)
             save = None
-            if args and args[0] in _COMMANDS and any(
-                    a.startswith(("--setup", "--save")) for a in args[1:]):
+            if (
+                args
+                and args[0] in _COMMANDS
+                and any(a.startswith(("--setup", "--save")) for a in args[1:])
+            ):
                 from .setupargs import expand
 
                 rest, save = expand(self.get_command(None, args[0]), args[0], args[1:])
                 args = [args[0], *rest]
-            rv = super().main(args, prog_name or "beamspread", complete_var,
-                              standalone_mode=False, **extra)
+            rv = super().main(
+                args, prog_name or "beamspread", complete_var, standalone_mode=False, **extra
+            )
             if save is not None and not (isinstance(rv, int) and rv):
                 save()
         except click.UsageError as exc:
@@ -97,16 +101,20 @@ class _Group(click.Group):
         except Exception as exc:
             if debug:
                 raise
-            _fail(f"internal error: {type(exc).__name__}: {exc} "
-                  "(set BEAMSPREAD_DEBUG=1 to see the traceback)", 1)
+            _fail(
+                f"internal error: {type(exc).__name__}: {exc} "
+                "(set BEAMSPREAD_DEBUG=1 to see the traceback)",
+                1,
+            )
         code = rv if isinstance(rv, int) else 0
         if standalone_mode:
             sys.exit(code)
         return code
 
 
-@click.group(cls=_Group, context_settings={"help_option_names": ["-h", "--help"],
-                                           "max_content_width": 100})
+@click.group(
+    cls=_Group, context_settings={"help_option_names": ["-h", "--help"], "max_content_width": 100}
+)
 @click.version_option(package_name="beamspread", prog_name="beamspread")
 def cli() -> None:
     """How wide an ultrasonic or sonar transducer's beam is where it matters.

@@ -23,21 +23,44 @@ from .setupargs import setup_file_options
 
 def wedge_options(f):
     """An angle-beam wedge on the part, and the part's thickness."""
-    for decorator in reversed((
-        click.option("--wedge", default=None, metavar="NAME",
-                     help="Angle-beam wedge material by name (its longitudinal speed)."),
-        click.option("--wedge-speed", type=SPEED, default=None,
-                     help="Angle-beam wedge: a measured longitudinal speed instead of --wedge."),
-        click.option("--incident", type=ANGLE, default=None,
-                     help="Incident angle in the wedge, degrees."),
-        click.option("--refracted", type=ANGLE, default=None,
-                     help="Nominal refracted angle in the part for --wave, degrees (the "
-                     "incident angle is solved)."),
-        click.option("--wedge-path", type=PATH_LENGTH, default=None,
-                     help="Mean sound path in the wedge along the beam axis."),
-        click.option("--thickness", type=LENGTH, default=None,
-                     help="Part thickness: each depth then gets the second leg too."),
-    )):
+    for decorator in reversed(
+        (
+            click.option(
+                "--wedge",
+                default=None,
+                metavar="NAME",
+                help="Angle-beam wedge material by name (its longitudinal speed).",
+            ),
+            click.option(
+                "--wedge-speed",
+                type=SPEED,
+                default=None,
+                help="Angle-beam wedge: a measured longitudinal speed instead of --wedge.",
+            ),
+            click.option(
+                "--incident", type=ANGLE, default=None, help="Incident angle in the wedge, degrees."
+            ),
+            click.option(
+                "--refracted",
+                type=ANGLE,
+                default=None,
+                help="Nominal refracted angle in the part for --wave, degrees (the "
+                "incident angle is solved).",
+            ),
+            click.option(
+                "--wedge-path",
+                type=PATH_LENGTH,
+                default=None,
+                help="Mean sound path in the wedge along the beam axis.",
+            ),
+            click.option(
+                "--thickness",
+                type=LENGTH,
+                default=None,
+                help="Part thickness: each depth then gets the second leg too.",
+            ),
+        )
+    ):
         f = decorator(f)
     return f
 
@@ -45,14 +68,29 @@ def wedge_options(f):
 def setup_options(f):
     """The inspection setup: a wedge, or a water path, and a focus."""
     f = wedge_options(f)
-    for decorator in reversed((
-        click.option("--water-path", type=PATH_LENGTH, default=None,
-                     help="Immersion: couplant path from the probe to the part surface."),
-        click.option("--couplant", default="water", show_default=True, metavar="NAME",
-                     help="Immersion couplant (at --temperature)."),
-        click.option("--focus", type=LENGTH, default=None,
-                     help="Focal length of a spherically focused disc, in the couplant."),
-    )):
+    for decorator in reversed(
+        (
+            click.option(
+                "--water-path",
+                type=PATH_LENGTH,
+                default=None,
+                help="Immersion: couplant path from the probe to the part surface.",
+            ),
+            click.option(
+                "--couplant",
+                default="water",
+                show_default=True,
+                metavar="NAME",
+                help="Immersion couplant (at --temperature).",
+            ),
+            click.option(
+                "--focus",
+                type=LENGTH,
+                default=None,
+                help="Focal length of a spherically focused disc, in the couplant.",
+            ),
+        )
+    ):
         f = decorator(f)
     return f
 
@@ -60,39 +98,111 @@ def setup_options(f):
 @click.command()
 @probe_options
 @medium_options
-@click.option("--depth", "depth_groups", type=RANGE_DEPTHS, multiple=True,
-              help="Depth (range from the face) for a spot size, or a range START:STOP:STEP "
-              "(bare numbers in mm); repeatable.")
-@click.option("--level", "levels", type=LEVEL, multiple=True,
-              help="Level in dB below the peak (-6, 6 and 6dB all mean 6 dB down); "
-              "repeatable; default 6 and 20.")
+@click.option(
+    "--depth",
+    "depth_groups",
+    type=RANGE_DEPTHS,
+    multiple=True,
+    help="Depth (range from the face) for a spot size, or a range START:STOP:STEP "
+    "(bare numbers in mm); repeatable.",
+)
+@click.option(
+    "--level",
+    "levels",
+    type=LEVEL,
+    multiple=True,
+    help="Level in dB below the peak (-6, 6 and 6dB all mean 6 dB down); "
+    "repeatable; default 6 and 20.",
+)
 @field_options(sonar=True)
-@click.option("--far-field-only", is_flag=True,
-              help="Only the far-field widths, without the computed field.")
+@click.option(
+    "--far-field-only", is_flag=True, help="Only the far-field widths, without the computed field."
+)
 @setup_options
-@click.option("--sonar", is_flag=True,
-              help="The sonar trade's conventions: one-way, -3 and -10 dB, full angles; adds "
-              "the directivity index, side lobes, the equivalent beam angle and absorption.")
-@click.option("--bottom-depth", "bottom_depths", type=DEPTHS, multiple=True,
-              help="Water depth for the footprint on a flat bottom, or a range "
-              "START:STOP:STEP (bare numbers in m); repeatable.")
-@click.option("--power", type=float, default=None, metavar="WATTS",
-              help="Electrical power for an echo budget at each --bottom-depth.")
-@click.option("--efficiency", type=float, default=0.5, show_default=True, metavar="FRACTION",
-              help="Electro-acoustic efficiency for the echo budget.")
-@click.option("--bottom-loss", type=float, default=10.0, show_default=True, metavar="DB",
-              help="Reflection loss of the bottom for the echo budget.")
-@plot_option("Draw to FILE (.png, .svg, .pdf): the far-field directivity; with "
-             "--bottom-depth the footprint on the bottom; with a wedge and --thickness the "
-             "section.")
+@click.option(
+    "--sonar",
+    is_flag=True,
+    help="The sonar trade's conventions: one-way, -3 and -10 dB, full angles; adds "
+    "the directivity index, side lobes, the equivalent beam angle and absorption.",
+)
+@click.option(
+    "--bottom-depth",
+    "bottom_depths",
+    type=DEPTHS,
+    multiple=True,
+    help="Water depth for the footprint on a flat bottom, or a range "
+    "START:STOP:STEP (bare numbers in m); repeatable.",
+)
+@click.option(
+    "--power",
+    type=float,
+    default=None,
+    metavar="WATTS",
+    help="Electrical power for an echo budget at each --bottom-depth.",
+)
+@click.option(
+    "--efficiency",
+    type=float,
+    default=0.5,
+    show_default=True,
+    metavar="FRACTION",
+    help="Electro-acoustic efficiency for the echo budget.",
+)
+@click.option(
+    "--bottom-loss",
+    type=float,
+    default=10.0,
+    show_default=True,
+    metavar="DB",
+    help="Reflection loss of the bottom for the echo budget.",
+)
+@plot_option(
+    "Draw to FILE (.png, .svg, .pdf): the far-field directivity; with "
+    "--bottom-depth the footprint on the bottom; with a wedge and --thickness the "
+    "section."
+)
 @setup_file_options
 @output_options
 @pass_output
-def beam(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-         materials_dirs, depth_groups, levels, pulse_echo, bandwidth, spectrum, frequency_count,
-         far_field_only, wedge, wedge_speed, incident, refracted, wedge_path, thickness,
-         water_path, couplant, focus, sonar, bottom_depths, power, efficiency, bottom_loss,
-         plot_path, force_plot, setup_path, save_path, fmt, units):
+def beam(
+    diameter,
+    length,
+    width,
+    frequency,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    depth_groups,
+    levels,
+    pulse_echo,
+    bandwidth,
+    spectrum,
+    frequency_count,
+    far_field_only,
+    wedge,
+    wedge_speed,
+    incident,
+    refracted,
+    wedge_path,
+    thickness,
+    water_path,
+    couplant,
+    focus,
+    sonar,
+    bottom_depths,
+    power,
+    efficiency,
+    bottom_loss,
+    plot_path,
+    force_plot,
+    setup_path,
+    save_path,
+    fmt,
+    units,
+):
     """Near-field length, half-angles and spot sizes of one probe.
 
     Give a disc (--diameter) or a rectangle (--length and --width), a
@@ -116,30 +226,56 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
     on_wedge = wedge is not None or wedge_speed is not None
     immersed = water_path is not None or focus is not None
     if on_wedge and immersed:
-        raise click.UsageError("give a wedge (--wedge/--wedge-speed) or a water path "
-                               "(--water-path/--focus), not both")
+        raise click.UsageError(
+            "give a wedge (--wedge/--wedge-speed) or a water path (--water-path/--focus), not both"
+        )
     if (on_wedge or immersed) and (sonar or bottom_depths or power is not None):
-        raise click.UsageError("--sonar, --bottom-depth and --power describe a bare transducer "
-                               "in water, not an inspection setup")
+        raise click.UsageError(
+            "--sonar, --bottom-depth and --power describe a bare transducer "
+            "in water, not an inspection setup"
+        )
     if water_path is None and focus is None and _given("couplant"):
         raise click.UsageError("--couplant describes the water path: give --water-path too")
     if not on_wedge and any(v is not None for v in (incident, refracted, wedge_path)):
-        raise click.UsageError("--incident, --refracted and --wedge-path need --wedge or "
-                               "--wedge-speed")
+        raise click.UsageError(
+            "--incident, --refracted and --wedge-path need --wedge or --wedge-speed"
+        )
     if thickness is not None and not on_wedge:
         raise click.UsageError("--thickness (for the second leg) needs a wedge")
-    resolved = resolve_wave(material, wave or ("shear" if on_wedge else None), speed,
-                            temperature, conditions, materials_dirs,
-                            temperature_elsewhere=water_path is not None or on_wedge)
+    resolved = resolve_wave(
+        material,
+        wave or ("shear" if on_wedge else None),
+        speed,
+        temperature,
+        conditions,
+        materials_dirs,
+        temperature_elsewhere=water_path is not None or on_wedge,
+    )
     if on_wedge or immersed:
         from .setup import run_setup
 
-        return run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
-                         plot_path=plot_path,
-                         wedge=wedge, wedge_speed=wedge_speed, incident=incident,
-                         refracted=refracted, wedge_path=wedge_path, thickness=thickness,
-                         water_path=water_path, couplant=couplant, focus=focus,
-                         temperature=temperature, materials_dirs=materials_dirs)
+        return run_setup(
+            probe,
+            resolved,
+            settings,
+            depths,
+            levels,
+            pulse_echo,
+            fmt,
+            units,
+            plot_path=plot_path,
+            wedge=wedge,
+            wedge_speed=wedge_speed,
+            incident=incident,
+            refracted=refracted,
+            wedge_path=wedge_path,
+            thickness=thickness,
+            water_path=water_path,
+            couplant=couplant,
+            focus=focus,
+            temperature=temperature,
+            materials_dirs=materials_dirs,
+        )
     if pulse_echo is None:
         mode = SONAR_MODE if sonar else "pulse-echo"
     else:
@@ -147,18 +283,24 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
     bottoms = sorted({d for group in bottom_depths for d in group})
     if power is not None and not bottoms:
         raise click.UsageError("--power gives an echo budget at each --bottom-depth; give one")
-    result = analyse(probe, resolved.wave, depths=depths, mode=mode, field=settings,
-                     levels=levels or (SONAR_LEVELS_SHOWN if sonar else DEFAULT_LEVELS))
+    result = analyse(
+        probe,
+        resolved.wave,
+        depths=depths,
+        mode=mode,
+        field=settings,
+        levels=levels or (SONAR_LEVELS_SHOWN if sonar else DEFAULT_LEVELS),
+    )
     warnings = [*(resolved.registry.warnings if resolved.registry else []), *result.warnings]
     absorption = resolved.absorption(probe.frequency)
     if absorption is not None:
         warnings.extend(absorption.warnings)
     figures = budgets = None
     if sonar or bottoms or power is not None:
-        figures, budgets = _sonar(result, resolved, bottoms, absorption, power, efficiency,
-                                  bottom_loss, warnings)
-    di = figures.directivity_index_db if figures else directivity_index(probe,
-                                                                         result.wavelength)
+        figures, budgets = _sonar(
+            result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings
+        )
+    di = figures.directivity_index_db if figures else directivity_index(probe, result.wavelength)
     if plot_path is not None:
         _plot(plot_path, result, figures, units)
     emit_warnings(warnings)
@@ -169,8 +311,7 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
         from .setup import _part_speeds
 
         if resolved.medium is not None:
-            data["medium"]["longitudinal_m_s"], data["medium"]["shear_m_s"] = (
-                _part_speeds(resolved))
+            data["medium"]["longitudinal_m_s"], data["medium"]["shear_m_s"] = _part_speeds(resolved)
         data["warnings"] = warnings
         data.update(sonar_to_dict(result, di, absorption, figures, budgets, sonar))
         click.echo(dumps(data))
@@ -182,9 +323,17 @@ def beam(diameter, length, width, frequency, material, wave, speed, temperature,
         from ..report.text import beam_table
 
         shown = figures is not None  # the sonar figures belong to sonar work
-        click.echo(beam_table(result, units, di=di if shown else None,
-                              absorption=absorption if shown else None, figures=figures,
-                              budgets=budgets, sonar=sonar))
+        click.echo(
+            beam_table(
+                result,
+                units,
+                di=di if shown else None,
+                absorption=absorption if shown else None,
+                figures=figures,
+                budgets=budgets,
+                sonar=sonar,
+            )
+        )
 
 
 def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
@@ -194,27 +343,38 @@ def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss
     alpha = None if absorption is None else absorption.db_per_km
     figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)
     if any(f.inside_near_field for f in figures.footprints):
-        warnings.append("a bottom depth lies inside the near field: the far-field cone does "
-                        "not hold there")
+        warnings.append(
+            "a bottom depth lies inside the near field: the far-field cone does not hold there"
+        )
     budgets = None
     if power is not None:
         wave = resolved.wave
         if wave.state == "gas":
-            raise click.UsageError("the echo budget (dB re 1 uPa) is for water; "
-                                   f"{wave.medium} is a gas")
+            raise click.UsageError(
+                f"the echo budget (dB re 1 uPa) is for water; {wave.medium} is a gas"
+            )
         if wave.density is None:
             constant = 170.8
-            warnings.append("echo budget: no density for this medium; the seawater "
-                            "source-level constant 170.8 dB is used")
+            warnings.append(
+                "echo budget: no density for this medium; the seawater "
+                "source-level constant 170.8 dB is used"
+            )
         else:
             constant = source_level_constant(wave.density * wave.speed)
         if alpha is None:
             warnings.append("echo budget: this medium has no absorption; taken as 0")
-        budgets = [echo_budget(power=power, efficiency=efficiency,
-                               directivity_index_db=figures.directivity_index_db,
-                               range_m=depth, absorption_db_per_km=alpha or 0.0,
-                               bottom_loss_db=bottom_loss, constant=constant)
-                   for depth in bottoms]
+        budgets = [
+            echo_budget(
+                power=power,
+                efficiency=efficiency,
+                directivity_index_db=figures.directivity_index_db,
+                range_m=depth,
+                absorption_db_per_km=alpha or 0.0,
+                bottom_loss_db=bottom_loss,
+                constant=constant,
+            )
+            for depth in bottoms
+        ]
     return figures, budgets
 
 
@@ -229,11 +389,16 @@ def caption_of(result) -> str:
     from ..probes import Disc
 
     p, w = result.probe, result.wave
-    size = (f"disc {p.diameter * 1e3:g} mm" if isinstance(p, Disc)
-            else f"rectangle {p.length * 1e3:g} x {p.width * 1e3:g} mm")
+    size = (
+        f"disc {p.diameter * 1e3:g} mm"
+        if isinstance(p, Disc)
+        else f"rectangle {p.length * 1e3:g} x {p.width * 1e3:g} mm"
+    )
     where = "given speed" if w.medium == "given" else w.medium
-    return (f"{size}, {frequency_text(p.frequency)}; {where}, {w.wave} {w.speed:.1f} m/s; "
-            f"{result.convention.mode}; beamspread model estimate")
+    return (
+        f"{size}, {frequency_text(p.frequency)}; {where}, {w.wave} {w.speed:.1f} m/s; "
+        f"{result.convention.mode}; beamspread model estimate"
+    )
 
 
 def frequency_text(hertz: float) -> str:
@@ -250,11 +415,23 @@ def _plot(path, result, figures, units):
         for f in figures.footprints:
             if f.plane == first:
                 by_level.setdefault(-f.level_db, []).append(f.width)
-        plots.plot_footprint(depths, by_level, path, near_field=result.near_field,
-                             mode=result.convention.mode, caption=caption_of(result),
-                             units="m" if units == "mm" else "ft")
+        plots.plot_footprint(
+            depths,
+            by_level,
+            path,
+            near_field=result.near_field,
+            mode=result.convention.mode,
+            caption=caption_of(result),
+            units="m" if units == "mm" else "ft",
+        )
     else:
         shape = "disc" if result.probe.shape == "disc" else "rectangle"
-        plots.plot_directivity(dict(result.probe.planes), result.wavelength, shape, path,
-                               levels_db=result.levels, caption=caption_of(result))
+        plots.plot_directivity(
+            dict(result.probe.planes),
+            result.wavelength,
+            shape,
+            path,
+            levels_db=result.levels,
+            caption=caption_of(result),
+        )
     click.echo(f"beamspread: drew {path}", err=True)

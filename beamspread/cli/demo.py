@@ -18,23 +18,29 @@ Cautions
 
 # Invented scenarios: the yard, the boat and the workshop do not exist.
 SCENARIOS = (
-    ("Kittiwake Ferry Yard: a lamination check in a 40 mm carbon-steel deck plate",
-     "An inspector scans a deck plate with a 10 mm, 5 MHz straight-beam contact probe and wants "
-     "the beam width at the suspect depths of 12 and 30 mm, from the far-field formula and from "
-     "the computed field of the broadband pulse.",
-     "beamspread beam --diameter 10mm --frequency 5MHz --material carbon-steel --depth 12mm "
-     "--depth 30mm"),
-    ("Kittiwake Ferry Yard: a 60 degree shear-wave check of a 25 mm butt weld",
-     "The same inspector puts a 12.7 mm, 2.25 MHz element on an acrylic wedge for 60 degree "
-     "shear waves, and needs the beam at 15 mm depth on both legs, with the surface distance "
-     "from the exit point.",
-     "beamspread beam --diameter 12.7mm --frequency 2.25MHz --material reference-steel "
-     "--wedge acrylic --refracted 60 --wedge-path 12mm --thickness 25mm --depth 15mm"),
-    ("The sloop Marram: a 200 kHz echo-sounder disc over a cold sea",
-     "Her owner wants the one-way cone of a 25 mm transducer disc and its footprint on the "
-     "bottom from 10 to 40 m, in 12 degC water of salinity 34.",
-     "beamspread beam --diameter 25mm --frequency 200kHz --material seawater --temperature 12 "
-     "--condition salinity=34 --sonar --bottom-depth 10m:40m:10m --far-field-only"),
+    (
+        "Kittiwake Ferry Yard: a lamination check in a 40 mm carbon-steel deck plate",
+        "An inspector scans a deck plate with a 10 mm, 5 MHz straight-beam contact probe and wants "
+        "the beam width at the suspect depths of 12 and 30 mm, from the far-field formula and from "
+        "the computed field of the broadband pulse.",
+        "beamspread beam --diameter 10mm --frequency 5MHz --material carbon-steel --depth 12mm "
+        "--depth 30mm",
+    ),
+    (
+        "Kittiwake Ferry Yard: a 60 degree shear-wave check of a 25 mm butt weld",
+        "The same inspector puts a 12.7 mm, 2.25 MHz element on an acrylic wedge for 60 degree "
+        "shear waves, and needs the beam at 15 mm depth on both legs, with the surface distance "
+        "from the exit point.",
+        "beamspread beam --diameter 12.7mm --frequency 2.25MHz --material reference-steel "
+        "--wedge acrylic --refracted 60 --wedge-path 12mm --thickness 25mm --depth 15mm",
+    ),
+    (
+        "The sloop Marram: a 200 kHz echo-sounder disc over a cold sea",
+        "Her owner wants the one-way cone of a 25 mm transducer disc and its footprint on the "
+        "bottom from 10 to 40 m, in 12 degC water of salinity 34.",
+        "beamspread beam --diameter 25mm --frequency 200kHz --material seawater --temperature 12 "
+        "--condition salinity=34 --sonar --bottom-depth 10m:40m:10m --far-field-only",
+    ),
 )
 
 
@@ -47,8 +53,9 @@ def demo(units):
     for number, (title, story, command) in enumerate(SCENARIOS, 1):
         click.echo(f"{'=' * 100}\n{number}. {title}")
         click.echo(textwrap.fill(story, 100, initial_indent="   ", subsequent_indent="   "))
-        lines = textwrap.wrap(command + ("" if units == "mm" else " --units in"), 90,
-                              break_on_hyphens=False)
+        lines = textwrap.wrap(
+            command + ("" if units == "mm" else " --units in"), 90, break_on_hyphens=False
+        )
         click.echo("   $ " + " \\\n       ".join(lines) + "\n")
         args = shlex.split(command)[2:] + ([] if units == "mm" else ["--units", "in"])
         beam.main(args=args, prog_name="beamspread beam", standalone_mode=False)

@@ -28,21 +28,41 @@ from .setupargs import setup_file_options
 def _caption(probe, wave, settings, mode):
     from ..report.text import field_description
 
-    size = (f"disc {probe.diameter * 1e3:g} mm" if probe.shape == "disc"
-            else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm")
+    size = (
+        f"disc {probe.diameter * 1e3:g} mm"
+        if probe.shape == "disc"
+        else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm"
+    )
     where = "given speed" if wave.medium == "given" else wave.medium
     from .beam import frequency_text
 
-    return (f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
-            f"{wave.speed:.1f} m/s; "
-            f"{field_description(settings, mode)}; beamspread model estimate")
+    return (
+        f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
+        f"{wave.speed:.1f} m/s; "
+        f"{field_description(settings, mode)}; beamspread model estimate"
+    )
+
 
 MAX_PROFILE_POINTS = 100_000
 MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in bounded blocks
 
 
-def _setup(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-           materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo):
+def _setup(
+    diameter,
+    length,
+    width,
+    frequency,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    bandwidth,
+    spectrum,
+    frequency_count,
+    pulse_echo,
+):
     probe = make_probe(diameter, length, width, frequency)
     settings = field_settings(bandwidth, spectrum, frequency_count)
     resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
@@ -66,15 +86,22 @@ def _near_fields(probe, wavelength):
 
 def _check_range(start, stop, points, what):
     if stop <= start:
-        raise click.UsageError(f"{what}: the range {start * 1e3:g} to {stop * 1e3:g} mm is "
-                               "empty; --to must lie beyond --from")
+        raise click.UsageError(
+            f"{what}: the range {start * 1e3:g} to {stop * 1e3:g} mm is "
+            "empty; --to must lie beyond --from"
+        )
     if points < 2:
         raise click.UsageError(f"{what}: at least 2 points are needed")
 
 
 def _points_option(default, maximum, name="--points", help_text="Number of points."):
-    return click.option(name, type=click.IntRange(2, maximum), default=default,
-                        show_default=True, help=f"{help_text} (2 to {maximum}).")
+    return click.option(
+        name,
+        type=click.IntRange(2, maximum),
+        default=default,
+        show_default=True,
+        help=f"{help_text} (2 to {maximum}).",
+    )
 
 
 def _check_validity(warnings, start, near_simple):
@@ -82,14 +109,20 @@ def _check_validity(warnings, start, near_simple):
         warnings.append(
             f"depths from {start * 1e3:.4g} mm lie closer than 0.05 N "
             f"({0.05 * near_simple * 1e3:.4g} mm) to the face, where the computed field is "
-            "not validated")
+            "not validated"
+        )
 
 
 @click.command()
 @probe_options
 @medium_options
-@click.option("--from", "start", type=LENGTH, default=None,
-              help="First depth (default 0.05 N, N = D²/4λ or L²/4λ).")
+@click.option(
+    "--from",
+    "start",
+    type=LENGTH,
+    default=None,
+    help="First depth (default 0.05 N, N = D²/4λ or L²/4λ).",
+)
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
 @field_options
@@ -97,9 +130,31 @@ def _check_validity(warnings, start, near_simple):
 @setup_file_options
 @output_options
 @pass_output
-def axis(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-         materials_dirs, start, stop, points, bandwidth, spectrum, frequency_count, pulse_echo,
-         plot_path, force_plot, setup_path, save_path, fmt, units):
+def axis(
+    diameter,
+    length,
+    width,
+    frequency,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    start,
+    stop,
+    points,
+    bandwidth,
+    spectrum,
+    frequency_count,
+    pulse_echo,
+    plot_path,
+    force_plot,
+    setup_path,
+    save_path,
+    fmt,
+    units,
+):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -112,30 +167,56 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
 
     check_plot(plot_path, force_plot)
     probe, settings, medium, mode, warnings = _setup(
-        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+        diameter,
+        length,
+        width,
+        frequency,
+        material,
+        wave,
+        speed,
+        temperature,
+        conditions,
+        materials_dirs,
+        bandwidth,
+        spectrum,
+        frequency_count,
+        pulse_echo,
+    )
     near, simple = _near_fields(probe, medium.speed / probe.frequency)
     start = 0.05 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
     _check_range(start, stop, points, "axis")
     _check_validity(warnings, start, simple)
-    kwargs = {"bandwidth": settings.bandwidth, "mode": mode,
-              "frequencies": settings.frequencies, "spectrum": settings.spectrum}
+    kwargs = {
+        "bandwidth": settings.bandwidth,
+        "mode": mode,
+        "frequencies": settings.frequencies,
+        "spectrum": settings.spectrum,
+    }
     profile = axial_profile(probe, medium.speed, np.linspace(start, stop, points), **kwargs)
     axial = last_maximum(probe, medium.speed, **kwargs)
     axial = None if np.isnan(axial) else axial
     if plot_path is not None:
         from ..report.plots import plot_axis
 
-        plot_axis(profile, plot_path, near_field=near, axial_maximum=axial,
-                  caption=_caption(probe, medium, settings, mode), units=units)
+        plot_axis(
+            profile,
+            plot_path,
+            near_field=near,
+            axial_maximum=axial,
+            caption=_caption(probe, medium, settings, mode),
+            units=units,
+        )
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import axial_to_dict, dumps
 
-        click.echo(dumps(axial_to_dict(probe, medium, settings, mode, profile, near, simple,
-                                       axial, warnings)))
+        click.echo(
+            dumps(
+                axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
+            )
+        )
     elif fmt == "csv":
         from ..report.serialize import axial_to_csv
 
@@ -143,32 +224,66 @@ def axis(diameter, length, width, frequency, material, wave, speed, temperature,
     else:
         from ..report.text import axial_table
 
-        click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial,
-                               units))
+        click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial, units))
 
 
 @click.command()
 @probe_options
 @medium_options
 @click.option("--depth", type=LENGTH, required=True, help="Depth of the profile.")
-@click.option("--plane", default=None, metavar="NAME",
-              help="diameter (disc), length or width (rectangle); default every plane.")
-@click.option("--span", type=LENGTH, default=None,
-              help="Half-extent either side of the axis (default: the larger of the aperture "
-              "and 4 λ z / aperture).")
+@click.option(
+    "--plane",
+    default=None,
+    metavar="NAME",
+    help="diameter (disc), length or width (rectangle); default every plane.",
+)
+@click.option(
+    "--span",
+    type=LENGTH,
+    default=None,
+    help="Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture).",
+)
 @_points_option(201, MAX_PROFILE_POINTS, help_text="Number of offsets across the beam")
-@click.option("--level", "levels", type=LEVEL, multiple=True,
-              help="Levels for the widths (dB below the maximum at this depth); default 6 "
-              "and 20.")
+@click.option(
+    "--level",
+    "levels",
+    type=LEVEL,
+    multiple=True,
+    help="Levels for the widths (dB below the maximum at this depth); default 6 and 20.",
+)
 @field_options
 @plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
-def across(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-           materials_dirs, depth, plane, span, points, levels, bandwidth, spectrum,
-           frequency_count, pulse_echo, plot_path, force_plot, setup_path, save_path, fmt,
-           units):
+def across(
+    diameter,
+    length,
+    width,
+    frequency,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    depth,
+    plane,
+    span,
+    points,
+    levels,
+    bandwidth,
+    spectrum,
+    frequency_count,
+    pulse_echo,
+    plot_path,
+    force_plot,
+    setup_path,
+    save_path,
+    fmt,
+    units,
+):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
@@ -177,39 +292,66 @@ def across(diameter, length, width, frequency, material, wave, speed, temperatur
 
     check_plot(plot_path, force_plot)
     probe, settings, medium, mode, warnings = _setup(
-        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+        diameter,
+        length,
+        width,
+        frequency,
+        material,
+        wave,
+        speed,
+        temperature,
+        conditions,
+        materials_dirs,
+        bandwidth,
+        spectrum,
+        frequency_count,
+        pulse_echo,
+    )
     names = [name for name, _ in probe.planes]
     if plane is not None and plane not in names:
-        raise click.BadParameter(f"{plane!r} is not a plane of this probe; use "
-                                 f"{' or '.join(names)}", param_hint="--plane")
+        raise click.BadParameter(
+            f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
+            param_hint="--plane",
+        )
     chosen = [plane] if plane else names
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     _check_validity(warnings, depth, simple)
     wavelength = medium.speed / probe.frequency
-    kwargs = {"bandwidth": settings.bandwidth, "mode": mode,
-              "frequencies": settings.frequencies, "spectrum": settings.spectrum}
+    kwargs = {
+        "bandwidth": settings.bandwidth,
+        "mode": mode,
+        "frequencies": settings.frequencies,
+        "spectrum": settings.spectrum,
+    }
     profiles, widths = [], {}
     for name in chosen:
         aperture = dict(probe.planes)[name]
         half = span if span is not None else max(aperture, 4 * wavelength * depth / aperture)
         offsets = np.linspace(-half, half, points)
-        profiles.append(transverse_profile(probe, medium.speed, depth, offsets, plane=name,
-                                           **kwargs))
-        widths[name] = beam_widths(probe, medium.speed, depth, levels or DEFAULT_LEVELS,
-                                   plane=name, **kwargs)
+        profiles.append(
+            transverse_profile(probe, medium.speed, depth, offsets, plane=name, **kwargs)
+        )
+        widths[name] = beam_widths(
+            probe, medium.speed, depth, levels or DEFAULT_LEVELS, plane=name, **kwargs
+        )
     if plot_path is not None:
         from ..report.plots import plot_across
 
-        plot_across(profiles, widths, plot_path, caption=_caption(probe, medium, settings, mode),
-                    units=units)
+        plot_across(
+            profiles,
+            widths,
+            plot_path,
+            caption=_caption(probe, medium, settings, mode),
+            units=units,
+        )
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import across_to_dict, dumps
 
-        click.echo(dumps(across_to_dict(probe, medium, settings, mode, depth, profiles, widths,
-                                        warnings)))
+        click.echo(
+            dumps(across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings))
+        )
     elif fmt == "csv":
         from ..report.serialize import across_to_csv
 
@@ -238,29 +380,73 @@ def _write_atomically(path: Path, write) -> None:
 @click.command("map")
 @probe_options
 @medium_options
-@click.option("--plane", default=None, metavar="NAME",
-              help="diameter (disc), length or width (rectangle); default the first.")
+@click.option(
+    "--plane",
+    default=None,
+    metavar="NAME",
+    help="diameter (disc), length or width (rectangle); default the first.",
+)
 @click.option("--from", "start", type=LENGTH, default=None, help="First depth (default 0.1 N).")
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
-@click.option("--span", type=LENGTH, default=None,
-              help="Half-extent either side of the axis (default: the larger of the aperture "
-              "and 4 λ z / aperture at the last depth).")
+@click.option(
+    "--span",
+    type=LENGTH,
+    default=None,
+    help="Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture at the last depth).",
+)
 @_points_option(256, 16384, "--depth-points", "Number of depths")
 @_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
 @field_options
-@click.option("--output", "-o", type=click.Path(dir_okay=False), default=None,
-              help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).")
+@click.option(
+    "--output",
+    "-o",
+    type=click.Path(dir_okay=False),
+    default=None,
+    help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+)
 @click.option("--force", is_flag=True, help="Overwrite an existing --output or --plot file.")
 @click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
-@plot_option("Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.",
-             force=False)
-@click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True,
-              help="Lengths on the picture.")
+@plot_option(
+    "Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.", force=False
+)
+@click.option(
+    "--units",
+    type=click.Choice(["mm", "in"]),
+    default="mm",
+    show_default=True,
+    help="Lengths on the picture.",
+)
 @setup_file_options
-def map_(diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-         materials_dirs, plane, start, stop, span, depth_points, lateral_points, bandwidth,
-         spectrum, frequency_count, pulse_echo, output, force, as_json, plot_path, units,
-         setup_path, save_path):
+def map_(
+    diameter,
+    length,
+    width,
+    frequency,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    plane,
+    start,
+    stop,
+    span,
+    depth_points,
+    lateral_points,
+    bandwidth,
+    spectrum,
+    frequency_count,
+    pulse_echo,
+    output,
+    force,
+    as_json,
+    plot_path,
+    units,
+    setup_path,
+    save_path,
+):
     """A 2-D map of the computed amplitude in a plane through the axis.
 
     \b
@@ -278,27 +464,47 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
     if output is not None:
         target = Path(output)
         if target.suffix.lower() not in (".csv", ".json", ".npz"):
-            raise click.BadParameter(f"{output!r}: the suffix must be .csv, .json or .npz",
-                                     param_hint="--output")
+            raise click.BadParameter(
+                f"{output!r}: the suffix must be .csv, .json or .npz", param_hint="--output"
+            )
         if not target.parent.is_dir():
-            raise click.BadParameter(f"{output!r}: the folder {str(target.parent)!r} does not "
-                                     "exist", param_hint="--output")
+            raise click.BadParameter(
+                f"{output!r}: the folder {str(target.parent)!r} does not exist",
+                param_hint="--output",
+            )
         if target.exists() and not force:
-            raise click.BadParameter(f"{output!r} exists; add --force to overwrite it",
-                                     param_hint="--output")
+            raise click.BadParameter(
+                f"{output!r} exists; add --force to overwrite it", param_hint="--output"
+            )
     if depth_points * lateral_points > MAX_MAP_POINTS:
         raise click.UsageError(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
-            f"would exceed the {MAX_MAP_POINTS} a map may hold in memory")
+            f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
+        )
     check_plot(plot_path, force)
     probe, settings, medium, mode, warnings = _setup(
-        diameter, length, width, frequency, material, wave, speed, temperature, conditions,
-        materials_dirs, bandwidth, spectrum, frequency_count, pulse_echo)
+        diameter,
+        length,
+        width,
+        frequency,
+        material,
+        wave,
+        speed,
+        temperature,
+        conditions,
+        materials_dirs,
+        bandwidth,
+        spectrum,
+        frequency_count,
+        pulse_echo,
+    )
     names = [name for name, _ in probe.planes]
     plane = plane or names[0]
     if plane not in names:
-        raise click.BadParameter(f"{plane!r} is not a plane of this probe; use "
-                                 f"{' or '.join(names)}", param_hint="--plane")
+        raise click.BadParameter(
+            f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
+            param_hint="--plane",
+        )
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     start = 0.1 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
@@ -307,16 +513,28 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
     aperture = dict(probe.planes)[plane]
     wavelength = medium.speed / probe.frequency
     half = span if span is not None else max(aperture, 4 * wavelength * stop / aperture)
-    result = field_map(probe, medium.speed, np.linspace(-half, half, lateral_points),
-                       np.linspace(start, stop, depth_points), plane=plane,
-                       bandwidth=settings.bandwidth, mode=mode,
-                       frequencies=settings.frequencies, spectrum=settings.spectrum)
+    result = field_map(
+        probe,
+        medium.speed,
+        np.linspace(-half, half, lateral_points),
+        np.linspace(start, stop, depth_points),
+        plane=plane,
+        bandwidth=settings.bandwidth,
+        mode=mode,
+        frequencies=settings.frequencies,
+        spectrum=settings.spectrum,
+    )
     if plot_path is not None:
         from ..report.plots import plot_map
 
         near, _ = _near_fields(probe, wavelength)
-        plot_map(result, plot_path, near_field=near if settings.bandwidth == 0 else None,
-                 caption=_caption(probe, medium, settings, mode), units=units)
+        plot_map(
+            result,
+            plot_path,
+            near_field=near if settings.bandwidth == 0 else None,
+            caption=_caption(probe, medium, settings, mode),
+            units=units,
+        )
         click.echo(f"beamspread: drew {plot_path}", err=True)
         if target is None:  # the picture was what was asked for
             emit_warnings(warnings)
@@ -326,8 +544,9 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
 
     def text(kind):
         if kind == ".json":
-            return serialize.dumps(serialize.map_to_dict(probe, medium, settings, mode, result,
-                                                         warnings))
+            return serialize.dumps(
+                serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
+            )
         return serialize.map_to_csv(result)
 
     if target is None:
@@ -335,12 +554,17 @@ def map_(diameter, length, width, frequency, material, wave, speed, temperature,
         return
     suffix = target.suffix.lower()
     if suffix == ".npz":
+
         def write(path):
             with open(path, "wb") as handle:
                 serialize.map_to_npz(handle, probe, medium, settings, mode, result)
     else:
+
         def write(path):
             Path(path).write_text(text(suffix), encoding="utf-8")
+
     _write_atomically(target, write)
-    click.echo(f"wrote {target} ({depth_points} depths x {lateral_points} offsets, "
-               f"plane {plane})", err=True)
+    click.echo(
+        f"wrote {target} ({depth_points} depths x {lateral_points} offsets, plane {plane})",
+        err=True,
+    )

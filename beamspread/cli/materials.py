@@ -33,9 +33,11 @@ Where tables are read, highest precedence first:
   plug-ins, then the built-in tables. A clash warns, naming both sources."""
 
 
-@click.group(help=f"""List, show and check material tables.
+@click.group(
+    help=f"""List, show and check material tables.
 
-{_SCHEMA}""")
+{_SCHEMA}"""
+)
 def materials() -> None:
     pass
 
@@ -46,9 +48,11 @@ def _reference(medium) -> dict:
     from ..media.model import Material
 
     if isinstance(medium, Material):
-        return {"longitudinal": medium.longitudinal.reference,
-                "shear": medium.shear.reference if medium.shear else None,
-                "density": medium.density.reference if medium.density else None}
+        return {
+            "longitudinal": medium.longitudinal.reference,
+            "shear": medium.shear.reference if medium.shear else None,
+            "density": medium.density.reference if medium.density else None,
+        }
     state = medium.evaluate("longitudinal")
     return {"longitudinal": state.speed, "shear": None, "density": state.density}
 
@@ -71,6 +75,7 @@ def _describe(entry) -> dict:
         "precedence": entry.level_name,
     }
     if isinstance(m, Material):
+
         def value(v):
             if v is None:
                 return None
@@ -94,23 +99,32 @@ def _describe(entry) -> dict:
         out["source"] = m.source
         out["density_source"] = m.density_source
         out["parameters"] = [
-            {"name": p.name, "unit": p.unit, "default": p.default, "valid": list(p.valid),
-             "limits": list(p.limits), "description": p.description,
-             "for": "speed" if p in m.parameters else "absorption"}
+            {
+                "name": p.name,
+                "unit": p.unit,
+                "default": p.default,
+                "valid": list(p.valid),
+                "limits": list(p.limits),
+                "description": p.description,
+                "for": "speed" if p in m.parameters else "absorption",
+            }
             for p in (*m.parameters, *m.absorption_parameters)
         ]
         if m.absorption is not None:
             out["absorption_source"] = m.absorption_source
         out["at_defaults"] = {
-            "conditions": {"_".join(filter(None, (k, unit_suffix(state.condition_units[k]))))
-                           : v for k, v in state.conditions.items()},
+            "conditions": {
+                "_".join(filter(None, (k, unit_suffix(state.condition_units[k])))): v
+                for k, v in state.conditions.items()
+            },
             "longitudinal_m_s": state.speed,
             "density_kg_m3": state.density,
         }
         out["note"] = m.note
     reference = _reference(m)
-    out["impedance_rayl"] = (reference["density"] * reference["longitudinal"]
-                             if reference["density"] else None)
+    out["impedance_rayl"] = (
+        reference["density"] * reference["longitudinal"] if reference["density"] else None
+    )
     return out
 
 
@@ -139,12 +153,22 @@ def list_(materials_dirs, as_json):
         speed = _fmt(ref["longitudinal"])
         if row["kind"] == "computed":
             speed += " *"
-        table.append([row["name"], row["state"], speed, _fmt(ref["shear"]),
-                      _fmt(ref["density"]), _fmt(row["impedance_rayl"], 1e-6, 2),
-                      row["origin"]])
+        table.append(
+            [
+                row["name"],
+                row["state"],
+                speed,
+                _fmt(ref["shear"]),
+                _fmt(ref["density"]),
+                _fmt(row["impedance_rayl"], 1e-6, 2),
+                row["origin"],
+            ]
+        )
     click.echo(columns(table, indent=0))
-    click.echo(f"\n{len(rows)} entries. * computed from conditions, shown at their defaults "
-               "(beamspread materials show NAME).")
+    click.echo(
+        f"\n{len(rows)} entries. * computed from conditions, shown at their defaults "
+        "(beamspread materials show NAME)."
+    )
 
 
 @materials.command()
@@ -175,17 +199,21 @@ def show(name, materials_dirs, as_json):
         lines.append(f"  {data['description']}")
     lines.append(f"  from: {data['origin']}")
     if data["kind"] == "table":
-        for key, label, unit in (("longitudinal_m_s", "longitudinal", "m/s"),
-                                 ("shear_m_s", "shear", "m/s"),
-                                 ("density_kg_m3", "density", "kg/m3")):
+        for key, label, unit in (
+            ("longitudinal_m_s", "longitudinal", "m/s"),
+            ("shear_m_s", "shear", "m/s"),
+            ("density_kg_m3", "density", "kg/m3"),
+        ):
             v = data[key]
             if v is None:
                 continue
             if "value" in v:
                 shown = f"{v['value']:g} {unit}"
             else:
-                pairs = ", ".join(f"{t:g} degC: {x:g}" for t, x in
-                                  zip(v["temperature_c"], v["values"], strict=True))
+                pairs = ", ".join(
+                    f"{t:g} degC: {x:g}"
+                    for t, x in zip(v["temperature_c"], v["values"], strict=True)
+                )
                 shown = f"{unit} by temperature ({pairs})"
             lines.append(f"  {label}: {shown}")
             lines.append(f"      source: {v['source']}")
@@ -207,9 +235,10 @@ def show(name, materials_dirs, as_json):
                 f"{p['limits'][0]:g} to {p['limits'][1]:g}"
             )
         at = data["at_defaults"]
-        lines.append(f"  at the defaults: longitudinal {at['longitudinal_m_s']:.2f} m/s"
-                     + (f", density {at['density_kg_m3']:.1f} kg/m3"
-                        if at["density_kg_m3"] else ""))
+        lines.append(
+            f"  at the defaults: longitudinal {at['longitudinal_m_s']:.2f} m/s"
+            + (f", density {at['density_kg_m3']:.1f} kg/m3" if at["density_kg_m3"] else "")
+        )
     if data["impedance_rayl"]:
         z = data["impedance_rayl"]
         shown = f"{z / 1e6:.3f} MRayl" if z >= 1e4 else f"{z:.0f} Rayl"
@@ -239,8 +268,10 @@ def paths(materials_dirs, as_json):
     """Where tables are read from, highest precedence first."""
     registry = load_registry(materials_dirs)
     emit_warnings(registry.warnings)
-    rows = [{"source": what, "path": path, "exists": exists}
-            for what, path, exists in reversed(registry.locations)]
+    rows = [
+        {"source": what, "path": path, "exists": exists}
+        for what, path, exists in reversed(registry.locations)
+    ]
     if as_json:
         from ..report.serialize import dumps
 

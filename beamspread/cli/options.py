@@ -12,19 +12,33 @@ from ..errors import InputError
 from ..units import from_si, parse_quantity
 from .params import CONDITION, FREQUENCY, LENGTH, SPEED, TEMPERATURE
 
-__all__ = ["emit_warnings", "field_options", "load_registry", "make_probe",
-           "materials_dir_option", "medium_options", "output_options", "probe_options",
-           "resolve_wave"]
+__all__ = [
+    "emit_warnings",
+    "field_options",
+    "load_registry",
+    "make_probe",
+    "materials_dir_option",
+    "medium_options",
+    "output_options",
+    "probe_options",
+    "resolve_wave",
+]
 
 
 def probe_options(f):
-    f = click.option("--frequency", type=FREQUENCY, required=True,
-                     help="Centre frequency: Hz, kHz, MHz (bare number: MHz).")(f)
+    f = click.option(
+        "--frequency",
+        type=FREQUENCY,
+        required=True,
+        help="Centre frequency: Hz, kHz, MHz (bare number: MHz).",
+    )(f)
     f = click.option("--width", type=LENGTH, help="Rectangular element: the other side.")(f)
-    f = click.option("--length", type=LENGTH,
-                     help="Rectangular element: the side in the plotted plane.")(f)
-    f = click.option("--diameter", type=LENGTH,
-                     help="Disc element diameter: m, mm, um, in (bare number: mm).")(f)
+    f = click.option(
+        "--length", type=LENGTH, help="Rectangular element: the side in the plotted plane."
+    )(f)
+    f = click.option(
+        "--diameter", type=LENGTH, help="Disc element diameter: m, mm, um, in (bare number: mm)."
+    )(f)
     return f
 
 
@@ -33,11 +47,13 @@ def make_probe(diameter, length, width, frequency):
     from ..probes import Disc, Rectangle
 
     if diameter is not None and (length is not None or width is not None):
-        raise click.UsageError("give --diameter for a disc, or --length and --width for a "
-                               "rectangle, not both")
+        raise click.UsageError(
+            "give --diameter for a disc, or --length and --width for a rectangle, not both"
+        )
     if diameter is None and (length is None or width is None):
-        raise click.UsageError("give --diameter for a disc, or both --length and --width for "
-                               "a rectangle")
+        raise click.UsageError(
+            "give --diameter for a disc, or both --length and --width for a rectangle"
+        )
     if diameter is not None:
         return Disc(diameter, frequency)
     return Rectangle(length, width, frequency)
@@ -50,20 +66,38 @@ def field_options(f=None, *, sonar: bool = False):
     from ..beam import DEFAULT_BANDWIDTH
 
     default = "the default; with --sonar, one-way" if sonar else "the default"
-    f = click.option("--pulse-echo/--one-way", "pulse_echo", default=None,
-                     help=f"Pulse-echo ({default}) squares the one-way pattern: transmit x "
-                     "receive.")(f)
-    f = click.option("--frequencies", "frequency_count", type=click.IntRange(1, 256),
-                     default=32, show_default=True,
-                     help="How many frequencies sample a broadband spectrum.")(f)
-    f = click.option("--spectrum", type=click.Choice(["gaussian", "flat"]), default="gaussian",
-                     show_default=True, help="Shape of the pulse's spectrum.")(f)
-    f = click.option("--bandwidth", type=float, default=DEFAULT_BANDWIDTH, show_default=True,
-                     metavar="FRACTION",
-                     help="-6 dB fractional bandwidth of the pulse-echo spectrum, as measured "
-                     "on a small reflector in the far field; 0 is a continuous wave. The "
-                     "default 0.5 is a typical broadband contact probe (such probes lie near "
-                     "0.4-0.8; sonar transducers are narrow, about 0.1).")(f)
+    f = click.option(
+        "--pulse-echo/--one-way",
+        "pulse_echo",
+        default=None,
+        help=f"Pulse-echo ({default}) squares the one-way pattern: transmit x receive.",
+    )(f)
+    f = click.option(
+        "--frequencies",
+        "frequency_count",
+        type=click.IntRange(1, 256),
+        default=32,
+        show_default=True,
+        help="How many frequencies sample a broadband spectrum.",
+    )(f)
+    f = click.option(
+        "--spectrum",
+        type=click.Choice(["gaussian", "flat"]),
+        default="gaussian",
+        show_default=True,
+        help="Shape of the pulse's spectrum.",
+    )(f)
+    f = click.option(
+        "--bandwidth",
+        type=float,
+        default=DEFAULT_BANDWIDTH,
+        show_default=True,
+        metavar="FRACTION",
+        help="-6 dB fractional bandwidth of the pulse-echo spectrum, as measured "
+        "on a small reflector in the far field; 0 is a continuous wave. The "
+        "default 0.5 is a typical broadband contact probe (such probes lie near "
+        "0.4-0.8; sonar transducers are narrow, about 0.1).",
+    )(f)
     return f
 
 
@@ -76,35 +110,71 @@ def field_settings(bandwidth, spectrum, frequency_count):
 
 def materials_dir_option(f):
     return click.option(
-        "--materials-dir", "materials_dirs", multiple=True, metavar="DIR",
-        type=click.Path(file_okay=False), help="Also read the material tables (*.toml) in DIR; "
+        "--materials-dir",
+        "materials_dirs",
+        multiple=True,
+        metavar="DIR",
+        type=click.Path(file_okay=False),
+        help="Also read the material tables (*.toml) in DIR; "
         "repeatable; wins over plug-ins and built-ins.",
     )(f)
 
 
 def output_options(f):
-    f = click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True,
-                     help="Lengths in tables (JSON and CSV are always SI).")(f)
+    f = click.option(
+        "--units",
+        type=click.Choice(["mm", "in"]),
+        default="mm",
+        show_default=True,
+        help="Lengths in tables (JSON and CSV are always SI).",
+    )(f)
     f = click.option("--json", "as_json", is_flag=True, help="Shorthand for --format json.")(f)
-    f = click.option("--format", "fmt", type=click.Choice(["table", "json", "csv"]),
-                     default="table", show_default=True, help="Output format.")(f)
+    f = click.option(
+        "--format",
+        "fmt",
+        type=click.Choice(["table", "json", "csv"]),
+        default="table",
+        show_default=True,
+        help="Output format.",
+    )(f)
     return f
 
 
 def medium_options(f):
     f = materials_dir_option(f)
-    f = click.option("--condition", "conditions", multiple=True, type=CONDITION,
-                     help="A condition the medium declares, NAME=VALUE (salinity=35, depth=100m); "
-                     "repeatable. A bare value takes the unit the medium declares "
-                     "(beamspread materials show NAME).")(f)
-    f = click.option("--temperature", type=TEMPERATURE, default=None,
-                     help="Temperature of the medium: degC, degF or K (bare number: degC).")(f)
-    f = click.option("--speed", type=SPEED, default=None,
-                     help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).")(f)
-    f = click.option("--wave", type=click.Choice(["longitudinal", "shear"]), default=None,
-                     help="Wave mode in the medium (default longitudinal; shear on a wedge).")(f)
-    f = click.option("--material", default=None, metavar="NAME",
-                     help="Material or medium by name or alias (beamspread materials list).")(f)
+    f = click.option(
+        "--condition",
+        "conditions",
+        multiple=True,
+        type=CONDITION,
+        help="A condition the medium declares, NAME=VALUE (salinity=35, depth=100m); "
+        "repeatable. A bare value takes the unit the medium declares "
+        "(beamspread materials show NAME).",
+    )(f)
+    f = click.option(
+        "--temperature",
+        type=TEMPERATURE,
+        default=None,
+        help="Temperature of the medium: degC, degF or K (bare number: degC).",
+    )(f)
+    f = click.option(
+        "--speed",
+        type=SPEED,
+        default=None,
+        help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).",
+    )(f)
+    f = click.option(
+        "--wave",
+        type=click.Choice(["longitudinal", "shear"]),
+        default=None,
+        help="Wave mode in the medium (default longitudinal; shear on a wedge).",
+    )(f)
+    f = click.option(
+        "--material",
+        default=None,
+        metavar="NAME",
+        help="Material or medium by name or alias (beamspread materials list).",
+    )(f)
     return f
 
 
@@ -134,8 +204,16 @@ class Resolved:
         return self.medium.evaluate_absorption(frequency, self.conditions)
 
 
-def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs, *,
-                 temperature_elsewhere: bool = False) -> Resolved:
+def resolve_wave(
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    *,
+    temperature_elsewhere: bool = False,
+) -> Resolved:
     """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources.
 
     ``temperature_elsewhere``: --temperature also sets another medium (a
@@ -159,8 +237,12 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs,
     entry = registry.get(material)
     medium = entry.medium
     values: dict[str, float] = {}
-    if temperature is not None and temperature_elsewhere and medium.parameter(
-            "temperature") is None and not getattr(medium, "depends_on_temperature", False):
+    if (
+        temperature is not None
+        and temperature_elsewhere
+        and medium.parameter("temperature") is None
+        and not getattr(medium, "depends_on_temperature", False)
+    ):
         temperature = None  # it is the couplant's
     if temperature is not None:
         declared = medium.parameter("temperature")
@@ -179,8 +261,9 @@ def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs,
                 f"--condition {name}: {medium.name} does not depend on {name}; "
                 f"it declares: {declared}"
             )
-        si = parse_quantity(text, parameter.kind, what=f"--condition {name}",
-                            default=parameter.unit)
+        si = parse_quantity(
+            text, parameter.kind, what=f"--condition {name}", default=parameter.unit
+        )
         values[name] = from_si(si, parameter.kind, parameter.unit)
     return Resolved(medium.evaluate(wave, values), registry, medium, values)
 
@@ -211,10 +294,12 @@ def plot_option(help_text: str, *, force: bool = True):
 
     def decorate(f):
         if force:
-            f = click.option("--force", "force_plot", is_flag=True,
-                             help="Overwrite an existing --plot file.")(f)
-        return click.option("--plot", "plot_path", type=click.Path(dir_okay=False),
-                            default=None, help=help_text)(f)
+            f = click.option(
+                "--force", "force_plot", is_flag=True, help="Overwrite an existing --plot file."
+            )(f)
+        return click.option(
+            "--plot", "plot_path", type=click.Path(dir_okay=False), default=None, help=help_text
+        )(f)
 
     return decorate
 
@@ -226,5 +311,6 @@ def check_plot(path, force: bool) -> None:
     from ..report.plots import check_target
 
     if check_target(path).exists() and not force:
-        raise click.BadParameter(f"{path!r} exists; add --force to overwrite it",
-                                 param_hint="--plot")
+        raise click.BadParameter(
+            f"{path!r} exists; add --force to overwrite it", param_hint="--plot"
+        )

@@ -100,8 +100,7 @@ class DepthList(click.ParamType):
                 return depth_range(*numbers)
         except InputError as exc:
             self.fail(str(exc).removeprefix("length: "), param, ctx)
-        self.fail(f"{value!r} is neither a depth nor START:STOP:STEP (e.g. 5m:50m:5m)",
-                  param, ctx)
+        self.fail(f"{value!r} is neither a depth nor START:STOP:STEP (e.g. 5m:50m:5m)", param, ctx)
 
 
 class Angle(click.ParamType):
@@ -123,8 +122,11 @@ class Angle(click.ParamType):
         except ValueError:
             self.fail(f"{value!r} is not an angle in degrees", param, ctx)
         if not (math.isfinite(degrees) and 0.0 <= degrees < 90.0):
-            self.fail(f"{value!r} is not allowed; give an angle from 0 up to (not at) 90 "
-                      "degrees", param, ctx)
+            self.fail(
+                f"{value!r} is not allowed; give an angle from 0 up to (not at) 90 degrees",
+                param,
+                ctx,
+            )
         return math.radians(degrees)
 
 

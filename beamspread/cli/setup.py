@@ -12,8 +12,10 @@ def _named_speed(registry, name, temperature):
     """The longitudinal wave of a named wedge or couplant (at --temperature where it varies)."""
     medium = registry.get(name).medium
     conditions = {}
-    if temperature is not None and (medium.parameter("temperature") is not None
-                                    or getattr(medium, "depends_on_temperature", False)):
+    if temperature is not None and (
+        medium.parameter("temperature") is not None
+        or getattr(medium, "depends_on_temperature", False)
+    ):
         conditions["temperature"] = temperature
     return medium.evaluate("longitudinal", conditions)
 
@@ -22,7 +24,7 @@ def _part_speeds(resolved):
     """Both speeds of the part: from the material, or the one --speed gives."""
     wave = resolved.wave
     if resolved.medium is None:
-        return ((wave.speed, None) if wave.wave == "longitudinal" else (None, wave.speed))
+        return (wave.speed, None) if wave.wave == "longitudinal" else (None, wave.speed)
     speeds = []
     for mode in ("longitudinal", "shear"):
         if mode == wave.wave:  # already evaluated
@@ -35,10 +37,29 @@ def _part_speeds(resolved):
     return tuple(speeds)
 
 
-def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units, *, plot_path,
-              wedge,
-              wedge_speed, incident, refracted, wedge_path, thickness, water_path, couplant,
-              focus, temperature, materials_dirs):
+def run_setup(
+    probe,
+    resolved,
+    settings,
+    depths,
+    levels,
+    pulse_echo,
+    fmt,
+    units,
+    *,
+    plot_path,
+    wedge,
+    wedge_speed,
+    incident,
+    refracted,
+    wedge_path,
+    thickness,
+    water_path,
+    couplant,
+    focus,
+    temperature,
+    materials_dirs,
+):
     from ..beam import DEFAULT_LEVELS
     from ..inspection import Focus, WaterPath, Wedge, analyse_immersion, analyse_wedge
 
@@ -51,11 +72,13 @@ def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
         if wedge is not None and wedge_speed is not None:
             raise click.UsageError("give --wedge NAME or --wedge-speed SPEED, not both")
         if incident is not None and refracted is not None:
-            raise click.UsageError("give the wedge's --incident angle or the --refracted angle "
-                                   "in the part, not both")
+            raise click.UsageError(
+                "give the wedge's --incident angle or the --refracted angle in the part, not both"
+            )
         if incident is None and refracted is None:
-            raise click.UsageError("give the wedge's --incident angle or the --refracted angle "
-                                   "in the part")
+            raise click.UsageError(
+                "give the wedge's --incident angle or the --refracted angle in the part"
+            )
         if wedge is not None:
             wave = _named_speed(registry, wedge, temperature)
             warnings.extend(wave.warnings)
@@ -63,24 +86,43 @@ def run_setup(probe, resolved, settings, depths, levels, pulse_echo, fmt, units,
         else:
             speed, name = wedge_speed, "given"
         if wedge_path is None:
-            warnings.append("no --wedge-path: the near field in the part is not shortened by "
-                            "the wedge")
+            warnings.append(
+                "no --wedge-path: the near field in the part is not shortened by the wedge"
+            )
         result = analyse_wedge(
-            probe, resolved.wave, c_long, c_shear,
+            probe,
+            resolved.wave,
+            c_long,
+            c_shear,
             Wedge(speed, wedge_path or 0.0, incident, refracted, name),
-            thickness=thickness, depths=depths, levels=levels, mode=mode, field=settings)
+            thickness=thickness,
+            depths=depths,
+            levels=levels,
+            mode=mode,
+            field=settings,
+        )
         extra = {"wedge": {"name": name, "speed_m_s": speed, "path_m": wedge_path or 0.0}}
     else:
-        couplant_wave = (resolved.wave if water_path is None and focus is not None
-                         else _named_speed(registry, couplant, temperature))
+        couplant_wave = (
+            resolved.wave
+            if water_path is None and focus is not None
+            else _named_speed(registry, couplant, temperature)
+        )
         warnings.extend(couplant_wave.warnings if couplant_wave is not resolved.wave else [])
-        water = WaterPath(couplant_wave.speed, water_path or 0.0, couplant_wave.density,
-                          couplant_wave.medium)
-        result = analyse_immersion(probe, resolved.wave, water,
-                                   focus=None if focus is None else Focus(focus),
-                                   depths=depths, levels=levels, mode=mode, field=settings)
-        extra = {"couplant": {"name": water.name, "speed_m_s": water.speed,
-                              "path_m": water.path}}
+        water = WaterPath(
+            couplant_wave.speed, water_path or 0.0, couplant_wave.density, couplant_wave.medium
+        )
+        result = analyse_immersion(
+            probe,
+            resolved.wave,
+            water,
+            focus=None if focus is None else Focus(focus),
+            depths=depths,
+            levels=levels,
+            mode=mode,
+            field=settings,
+        )
+        extra = {"couplant": {"name": water.name, "speed_m_s": water.speed, "path_m": water.path}}
     warnings.extend(result.warnings)
     warnings = list(dict.fromkeys(warnings))
     if plot_path is not None:
@@ -116,14 +158,16 @@ def _plot(path, result, settings, thickness, depths, units):
     if result.refraction is not None and thickness is not None:
         from .section import section_geometry
 
-        geometry = section_geometry(result, thickness, depths[0] if depths else None,
-                                    settings, None)
+        geometry = section_geometry(
+            result, thickness, depths[0] if depths else None, settings, None
+        )
         plots.plot_section(geometry, path, caption=caption_of(result.beam), units=units)
     else:
         beam = result.beam
         probe = result.virtual or beam.probe
         shape = "disc" if probe.shape in ("disc", "ellipse") else "rectangle"
         planes = {pl.name: pl.aperture for pl in beam.planes}
-        plots.plot_directivity(planes, beam.wavelength, shape, path, levels_db=beam.levels,
-                               caption=caption_of(beam))
+        plots.plot_directivity(
+            planes, beam.wavelength, shape, path, levels_db=beam.levels, caption=caption_of(beam)
+        )
     click.echo(f"beamspread: drew {path}", err=True)

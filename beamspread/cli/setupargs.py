@@ -15,12 +15,21 @@ _SETUP, _SAVE = "--setup", "--save"
 
 
 def setup_file_options(f):
-    f = click.option(_SAVE, "save_path", type=click.Path(dir_okay=False), default=None,
-                     help="Write the setup this command line uses to FILE (TOML; never "
-                     "overwrites).")(f)
-    f = click.option(_SETUP, "setup_path", type=click.Path(dir_okay=False), default=None,
-                     help="Read probe, medium, setup, depths, levels and conventions from a "
-                     "setup FILE; options given here win.")(f)
+    f = click.option(
+        _SAVE,
+        "save_path",
+        type=click.Path(dir_okay=False),
+        default=None,
+        help="Write the setup this command line uses to FILE (TOML; never overwrites).",
+    )(f)
+    f = click.option(
+        _SETUP,
+        "setup_path",
+        type=click.Path(dir_okay=False),
+        default=None,
+        help="Read probe, medium, setup, depths, levels and conventions from a "
+        "setup FILE; options given here win.",
+    )(f)
     return f
 
 
@@ -81,8 +90,11 @@ def _typed_options(args: list[str], command: click.Command) -> dict[str, object]
             i += 1
             continue
         is_flag = getattr(param, "is_flag", False)
-        value: object = True if is_flag else (inline if inline else
-                                              (args[i + 1] if i + 1 < len(args) else None))
+        value: object = (
+            True
+            if is_flag
+            else (inline if inline else (args[i + 1] if i + 1 < len(args) else None))
+        )
         i += 1 if (is_flag or inline) else 2
         if name not in known or value is None:
             continue
@@ -128,20 +140,27 @@ def expand(command: click.Command, name: str, args: list[str]):
                     spliced += [option, item]
             else:
                 spliced += [option, str(value)]
-            if isinstance(value, list) and len(value) > 1 and not getattr(param, "multiple",
-                                                                           False):
-                click.echo(f"beamspread: warning: {name} takes one {option}; the setup's "
-                           f"first ({value[0]}) is used", err=True)
+            if isinstance(value, list) and len(value) > 1 and not getattr(param, "multiple", False):
+                click.echo(
+                    f"beamspread: warning: {name} takes one {option}; the setup's "
+                    f"first ({value[0]}) is used",
+                    err=True,
+                )
         if unused:
-            click.echo(f"beamspread: warning: {name} does not use the setup's "
-                       f"{', '.join(unused)}; its result leaves them out", err=True)
+            click.echo(
+                f"beamspread: warning: {name} does not use the setup's "
+                f"{', '.join(unused)}; its result leaves them out",
+                err=True,
+            )
     full = spliced + args
     if save_path is None:
         return full, None
     target = Path(save_path)
     if target.exists():
-        raise click.UsageError(f"--save: {save_path!r} exists; a setup is never overwritten: "
-                               "remove it or choose another name")
+        raise click.UsageError(
+            f"--save: {save_path!r} exists; a setup is never overwritten: "
+            "remove it or choose another name"
+        )
     if not target.parent.is_dir():
         raise click.UsageError(f"--save: the folder {str(target.parent)!r} does not exist")
     typed = _typed_options(full, command)

@@ -16,34 +16,73 @@ def _angle(text: str, name: str) -> float:
     except ValueError:
         raise click.BadParameter(f"{text!r} is not an angle in degrees", param_hint=name) from None
     if not math.isfinite(value) or value <= 0:
-        raise click.BadParameter(f"{text!r} is not allowed; give an angle above 0 degrees",
-                                 param_hint=name)
+        raise click.BadParameter(
+            f"{text!r} is not allowed; give an angle above 0 degrees", param_hint=name
+        )
     return value
 
 
 @click.command()
-@click.option("--frequency", type=FREQUENCY, default=None,
-              help="Centre frequency (solve the diameter, or a rectangle's side).")
-@click.option("--diameter", type=LENGTH, default=None,
-              help="Disc diameter (solve the frequency instead).")
-@click.option("--other-side", type=LENGTH, default=None,
-              help="For a rectangle: the side across the target plane; solves the side in it.")
+@click.option(
+    "--frequency",
+    type=FREQUENCY,
+    default=None,
+    help="Centre frequency (solve the diameter, or a rectangle's side).",
+)
+@click.option(
+    "--diameter", type=LENGTH, default=None, help="Disc diameter (solve the frequency instead)."
+)
+@click.option(
+    "--other-side",
+    type=LENGTH,
+    default=None,
+    help="For a rectangle: the side across the target plane; solves the side in it.",
+)
 @medium_options
 @click.option("--full-angle", default=None, metavar="DEG", help="Target full angle, degrees.")
 @click.option("--half-angle", default=None, metavar="DEG", help="Target half-angle, degrees.")
 @click.option("--spot", type=LENGTH, default=None, help="Target full width at --at.")
-@click.option("--at", "depth", type=LENGTH, default=None,
-              help="Depth of --spot (or of the footprint reported with an angle target).")
-@click.option("--level", type=LEVEL, default=None,
-              help="Level of the target, dB below the peak (default 3 for an angle, 6 for a "
-              "spot).")
-@click.option("--one-way/--pulse-echo", "one_way", default=None,
-              help="Convention of the target (default one-way for an angle, as the sonar "
-              "trade quotes cones; pulse-echo for a spot, as inspections measure it).")
+@click.option(
+    "--at",
+    "depth",
+    type=LENGTH,
+    default=None,
+    help="Depth of --spot (or of the footprint reported with an angle target).",
+)
+@click.option(
+    "--level",
+    type=LEVEL,
+    default=None,
+    help="Level of the target, dB below the peak (default 3 for an angle, 6 for a spot).",
+)
+@click.option(
+    "--one-way/--pulse-echo",
+    "one_way",
+    default=None,
+    help="Convention of the target (default one-way for an angle, as the sonar "
+    "trade quotes cones; pulse-echo for a spot, as inspections measure it).",
+)
 @output_options
 @pass_output
-def size(frequency, diameter, other_side, material, wave, speed, temperature, conditions,
-         materials_dirs, full_angle, half_angle, spot, depth, level, one_way, fmt, units):
+def size(
+    frequency,
+    diameter,
+    other_side,
+    material,
+    wave,
+    speed,
+    temperature,
+    conditions,
+    materials_dirs,
+    full_angle,
+    half_angle,
+    spot,
+    depth,
+    level,
+    one_way,
+    fmt,
+    units,
+):
     """Solve the element for a target cone or spot.
 
     Give the --frequency to solve the disc diameter (or, with --other-side, a
@@ -64,21 +103,27 @@ def size(frequency, diameter, other_side, material, wave, speed, temperature, co
     if spot is not None and depth is None:
         raise click.UsageError("--spot needs --at DEPTH")
     if (frequency is None) == (diameter is None):
-        raise click.UsageError("give --frequency (to solve the size) or --diameter (to solve "
-                               "the frequency), not both")
+        raise click.UsageError(
+            "give --frequency (to solve the size) or --diameter (to solve the frequency), not both"
+        )
     if other_side is not None and frequency is None:
         raise click.UsageError("--other-side (a rectangle) needs --frequency")
     target = {
         "full_angle_deg": None if full_angle is None else _angle(full_angle, "--full-angle"),
         "half_angle_deg": None if half_angle is None else _angle(half_angle, "--half-angle"),
-        "spot": spot, "depth": depth,
+        "spot": spot,
+        "depth": depth,
     }
     if target["full_angle_deg"] is not None and target["full_angle_deg"] >= 180:
-        raise click.BadParameter(f"{full_angle!r} is not allowed; a full angle must be below "
-                                 "180 degrees", param_hint="--full-angle")
+        raise click.BadParameter(
+            f"{full_angle!r} is not allowed; a full angle must be below 180 degrees",
+            param_hint="--full-angle",
+        )
     if target["half_angle_deg"] is not None and target["half_angle_deg"] >= 90:
-        raise click.BadParameter(f"{half_angle!r} is not allowed; a half-angle must be below "
-                                 "90 degrees", param_hint="--half-angle")
+        raise click.BadParameter(
+            f"{half_angle!r} is not allowed; a half-angle must be below 90 degrees",
+            param_hint="--half-angle",
+        )
     if one_way is None:
         one_way = spot is None
     mode = "one-way" if one_way else "pulse-echo"
@@ -94,8 +139,10 @@ def size(frequency, diameter, other_side, material, wave, speed, temperature, co
         found = design.size_disc(frequency, c, **common)
     warnings = resolved.warnings
     if found.depth == found.depth and not found.far_field_at_depth:
-        warnings.append("the depth lies inside the near field of the solution: the far-field "
-                        "cone does not hold there")
+        warnings.append(
+            "the depth lies inside the near field of the solution: the far-field "
+            "cone does not hold there"
+        )
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import design_to_dict, dumps

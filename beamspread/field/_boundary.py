@@ -220,7 +220,7 @@ def ellipse_table(
     rows = x.size
     quarter = 0.5 * np.pi
     coarse = np.linspace(0.0, 2.0 * np.pi, 257)
-    q_coarse = ((a * np.cos(coarse) - x[:, None]) ** 2 + (b * np.sin(coarse) - y[:, None]) ** 2)
+    q_coarse = (a * np.cos(coarse) - x[:, None]) ** 2 + (b * np.sin(coarse) - y[:, None]) ** 2
     pieces, start, stop, counts = [], [], [], []
     for j in range(4):
         part = q_coarse[:, 64 * j : 64 * (j + 1) + 1]

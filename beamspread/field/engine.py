@@ -151,8 +151,9 @@ def _table(probe, lateral, k_max: float, z_min: float):
     if isinstance(probe, Disc):
         return disc_table(lateral[0], 0.5 * probe.diameter, k_max, z_min)
     if isinstance(probe, Ellipse):
-        return ellipse_table(lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width,
-                             k_max, z_min)
+        return ellipse_table(
+            lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width, k_max, z_min
+        )
     return rectangle_table(
         lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width, k_max, z_min
     )
@@ -427,7 +428,16 @@ def _spectral_amplitude(q, weight, used, zz, ks, energy, mode, single) -> np.nda
 
 
 def _grid_amplitude(
-    probe, speed, lateral_x, lateral_y, depths, *, bandwidth, mode, frequencies, single,
+    probe,
+    speed,
+    lateral_x,
+    lateral_y,
+    depths,
+    *,
+    bandwidth,
+    mode,
+    frequencies,
+    single,
     spectrum="gaussian",
 ) -> np.ndarray:
     """Amplitude on lateral positions x depths, shape (depths, lateral), without broadcasting.

@@ -41,7 +41,6 @@ __all__ = [
 ]
 
 
-
 @dataclass(frozen=True)
 class AxialProfile:
     """The amplitude along the beam axis."""
@@ -149,7 +148,7 @@ def axial_profile(
         bandwidth=bandwidth,
         mode=mode,
         frequencies=frequencies,
-            spectrum=spectrum,
+        spectrum=spectrum,
         single=False,
     )[:, 0]
     return AxialProfile(depth, amp, mode, bandwidth)
@@ -253,7 +252,7 @@ def transverse_profile(
         bandwidth=bandwidth,
         mode=mode,
         frequencies=frequencies,
-            spectrum=spectrum,
+        spectrum=spectrum,
         single=False,
     )[0]
     return TransverseProfile(plane, depth, offset, amp, mode, bandwidth)
@@ -295,8 +294,17 @@ def beam_width(
     >>> 0.010 < w.width < 0.014
     True
     """
-    return beam_widths(probe, speed, depth, [level_db], plane=plane, bandwidth=bandwidth,
-                       mode=mode, frequencies=frequencies, spectrum=spectrum)[0]
+    return beam_widths(
+        probe,
+        speed,
+        depth,
+        [level_db],
+        plane=plane,
+        bandwidth=bandwidth,
+        mode=mode,
+        frequencies=frequencies,
+        spectrum=spectrum,
+    )[0]
 
 
 def _level(level_db) -> float:
@@ -375,8 +383,10 @@ def beam_widths(
         if not pending:
             break
         extent *= 2.0
-    return [BeamWidth(plane, depth, level, widths.get(level, float("nan")), mode, bandwidth)
-            for level in levels]
+    return [
+        BeamWidth(plane, depth, level, widths.get(level, float("nan")), mode, bandwidth)
+        for level in levels
+    ]
 
 
 def field_map(
@@ -418,7 +428,7 @@ def field_map(
         bandwidth=bandwidth,
         mode=mode,
         frequencies=frequencies,
-            spectrum=spectrum,
+        spectrum=spectrum,
         single=True,
     )
     return FieldMap(plane, lateral, depth, amp, mode, bandwidth)

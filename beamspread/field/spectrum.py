@@ -35,8 +35,14 @@ import numpy as np
 from ..errors import InputError
 from ..probes import check_positive
 
-__all__ = ["MAX_BANDWIDTH", "SPECTRA", "Spectrum", "flat_spectrum", "gaussian_spectrum",
-           "make_spectrum"]
+__all__ = [
+    "MAX_BANDWIDTH",
+    "SPECTRA",
+    "Spectrum",
+    "flat_spectrum",
+    "gaussian_spectrum",
+    "make_spectrum",
+]
 
 MAX_BANDWIDTH = 2.0
 """Fractional bandwidths must lie in [0, 2): at 2 the -6 dB point reaches 0 Hz."""
@@ -161,7 +167,5 @@ def make_spectrum(kind: str, centre: float, bandwidth: float, count: int = 32) -
     try:
         build = SPECTRA[kind]
     except KeyError:
-        raise InputError(
-            f"spectrum {kind!r} is unknown; use one of {', '.join(SPECTRA)}"
-        ) from None
+        raise InputError(f"spectrum {kind!r} is unknown; use one of {', '.join(SPECTRA)}") from None
     return build(centre, bandwidth, count)

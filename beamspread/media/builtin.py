@@ -44,51 +44,106 @@ def materials_location():
 
 
 _WATER_T = Parameter(
-    "temperature", "temperature", "degC", 20.0, (0.0, 95.0), (-5.0, 100.0),
+    "temperature",
+    "temperature",
+    "degC",
+    20.0,
+    (0.0, 95.0),
+    (-5.0, 100.0),
     "water temperature (ITS-90)",
 )
-_SEA_T = Parameter("temperature", "temperature", "degC", 10.0, (-2.0, 30.0), (-3.0, 40.0),
-                   "water temperature")
-_SEA_S = Parameter("salinity", "salinity", "g/kg", 35.0, (25.0, 40.0), (0.0, 50.0),
-                   "salinity, parts per thousand")
-_SEA_D = Parameter("depth", "length", "m", 0.0, (0.0, 8000.0), (0.0, 11000.0),
-                   "depth below the surface")
-_AIR_T = Parameter("temperature", "temperature", "degC", 20.0, (-40.0, 60.0), (-100.0, 300.0),
-                   "air temperature")
+_SEA_T = Parameter(
+    "temperature", "temperature", "degC", 10.0, (-2.0, 30.0), (-3.0, 40.0), "water temperature"
+)
+_SEA_S = Parameter(
+    "salinity", "salinity", "g/kg", 35.0, (25.0, 40.0), (0.0, 50.0), "salinity, parts per thousand"
+)
+_SEA_D = Parameter(
+    "depth", "length", "m", 0.0, (0.0, 8000.0), (0.0, 11000.0), "depth below the surface"
+)
+_AIR_T = Parameter(
+    "temperature", "temperature", "degC", 20.0, (-40.0, 60.0), (-100.0, 300.0), "air temperature"
+)
 _KELL = "Kell (1975), J. Chem. Eng. Data 20, 97 (coefficients from memory)"
 
 # UNESCO (Chen & Millero 1977): 0-40 degC, salinity 0-40, 0-10000 dbar.
-_UN_T = Parameter("temperature", "temperature", "degC", 10.0, (0.0, 40.0), (-3.0, 45.0),
-                  "water temperature (ITS-90; converted to IPTS-68 for the equation)")
-_UN_S = Parameter("salinity", "salinity", "g/kg", 35.0, (0.0, 40.0), (0.0, 50.0),
-                  "practical salinity")
-_UN_P = Parameter("pressure", "pressure", "dbar", 0.0, (0.0, 10000.0), (0.0, 11500.0),
-                  "sea pressure above the atmosphere; give this or depth, not both")
-_UN_D = Parameter("depth", "length", "m", 0.0, (0.0, 9800.0), (0.0, 11300.0),
-                  "depth below the surface, converted to pressure by Saunders (1981); "
-                  "give this or pressure, not both")
-_UN_LAT = Parameter("latitude", "angle", "deg", 45.0, (-90.0, 90.0), (-90.0, 90.0),
-                    "latitude in degrees, for the depth-to-pressure conversion")
+_UN_T = Parameter(
+    "temperature",
+    "temperature",
+    "degC",
+    10.0,
+    (0.0, 40.0),
+    (-3.0, 45.0),
+    "water temperature (ITS-90; converted to IPTS-68 for the equation)",
+)
+_UN_S = Parameter(
+    "salinity", "salinity", "g/kg", 35.0, (0.0, 40.0), (0.0, 50.0), "practical salinity"
+)
+_UN_P = Parameter(
+    "pressure",
+    "pressure",
+    "dbar",
+    0.0,
+    (0.0, 10000.0),
+    (0.0, 11500.0),
+    "sea pressure above the atmosphere; give this or depth, not both",
+)
+_UN_D = Parameter(
+    "depth",
+    "length",
+    "m",
+    0.0,
+    (0.0, 9800.0),
+    (0.0, 11300.0),
+    "depth below the surface, converted to pressure by Saunders (1981); "
+    "give this or pressure, not both",
+)
+_UN_LAT = Parameter(
+    "latitude",
+    "angle",
+    "deg",
+    45.0,
+    (-90.0, 90.0),
+    (-90.0, 90.0),
+    "latitude in degrees, for the depth-to-pressure conversion",
+)
 # Del Grosso (1974): 0-30 degC, salinity 30-40, 0-1000 kg/cm2 (9800 dbar).
-_DG_T = Parameter("temperature", "temperature", "degC", 10.0, (0.0, 30.0), (-3.0, 40.0),
-                  "water temperature (ITS-90; converted to IPTS-68 for the equation)")
-_DG_S = Parameter("salinity", "salinity", "g/kg", 35.0, (30.0, 40.0), (0.0, 50.0),
-                  "salinity, parts per thousand")
-_DG_P = Parameter("pressure", "pressure", "dbar", 0.0, (0.0, 9800.0), (0.0, 11500.0),
-                  "sea pressure above the atmosphere; give this or depth, not both")
+_DG_T = Parameter(
+    "temperature",
+    "temperature",
+    "degC",
+    10.0,
+    (0.0, 30.0),
+    (-3.0, 40.0),
+    "water temperature (ITS-90; converted to IPTS-68 for the equation)",
+)
+_DG_S = Parameter(
+    "salinity", "salinity", "g/kg", 35.0, (30.0, 40.0), (0.0, 50.0), "salinity, parts per thousand"
+)
+_DG_P = Parameter(
+    "pressure",
+    "pressure",
+    "dbar",
+    0.0,
+    (0.0, 9800.0),
+    (0.0, 11500.0),
+    "sea pressure above the atmosphere; give this or depth, not both",
+)
 # Absorption only: the pH of seawater (Francois & Garrison; Ainslie & McColm's stated range).
 _PH = Parameter("ph", "number", "", 8.0, (7.7, 8.3), (6.0, 9.0), "pH of the seawater")
 _SEA_ABSORPTION_BAND = (200.0, 1e6)  # Hz, Francois & Garrison's measurements (from memory)
 
 # Air, Cramer (1993): 0-30 degC, 75-102 kPa as commonly quoted, humidity 0-100 %, CO2 to 1 %.
-_CR_T = Parameter("temperature", "temperature", "degC", 20.0, (0.0, 30.0), (-40.0, 60.0),
-                  "air temperature")
-_CR_H = Parameter("humidity", "percent", "%", 50.0, (0.0, 100.0), (0.0, 100.0),
-                  "relative humidity")
-_CR_P = Parameter("pressure", "pressure", "kPa", 101.325, (75.0, 102.0), (10.0, 200.0),
-                  "atmospheric pressure")
-_CR_C = Parameter("co2", "percent", "%", 0.04, (0.0, 1.0), (0.0, 1.0),
-                  "carbon dioxide mole fraction")
+_CR_T = Parameter(
+    "temperature", "temperature", "degC", 20.0, (0.0, 30.0), (-40.0, 60.0), "air temperature"
+)
+_CR_H = Parameter("humidity", "percent", "%", 50.0, (0.0, 100.0), (0.0, 100.0), "relative humidity")
+_CR_P = Parameter(
+    "pressure", "pressure", "kPa", 101.325, (75.0, 102.0), (10.0, 200.0), "atmospheric pressure"
+)
+_CR_C = Parameter(
+    "co2", "percent", "%", 0.04, (0.0, 1.0), (0.0, 1.0), "carbon dioxide mole fraction"
+)
 # ISO 9613-1: 4e-4 to 10 Hz/Pa, i.e. about 40 Hz to 1 MHz at sea level (from memory).
 _AIR_ABSORPTION_BAND = (50.0, 1e6)
 
@@ -114,7 +169,8 @@ def _unesco_speed(temperature, salinity, pressure, depth, latitude):
 
 def _del_grosso_speed(temperature, salinity, pressure, depth, latitude):
     return eq.seawater_del_grosso(
-        temperature, salinity, _sea_pressure(pressure, depth, latitude, "seawater-del-grosso"))
+        temperature, salinity, _sea_pressure(pressure, depth, latitude, "seawater-del-grosso")
+    )
 
 
 def _pressure_absorption(medium):
@@ -136,84 +192,127 @@ def _air_absorption(frequency, temperature, humidity, pressure, co2):
 def _sea_density(temperature, salinity, pressure, depth, latitude):
     return 1025.0
 
+
 MEDIA = (
     ComputedMedium(
-        "water", "liquid", eq.water_marczak,
+        "water",
+        "liquid",
+        eq.water_marczak,
         source="Marczak (1997), J. Acoust. Soc. Am. 102, 2776: pure water, 0-95 degC",
-        parameters=(_WATER_T,), density=eq.water_density_kell, density_source=_KELL,
-        aliases=("fresh-water", "water-marczak"), category="liquid",
+        parameters=(_WATER_T,),
+        density=eq.water_density_kell,
+        density_source=_KELL,
+        aliases=("fresh-water", "water-marczak"),
+        category="liquid",
         description="pure water at atmospheric pressure, by temperature",
         absorption=lambda frequency, temperature: ab.fresh_water(frequency, temperature),
-        absorption_source=ab.FRESH_WATER, absorption_frequency=_SEA_ABSORPTION_BAND,
+        absorption_source=ab.FRESH_WATER,
+        absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "water-bilaniuk-wong", "liquid", eq.water_bilaniuk_wong,
+        "water-bilaniuk-wong",
+        "liquid",
+        eq.water_bilaniuk_wong,
         source="Bilaniuk & Wong (1993, erratum 1996), J. Acoust. Soc. Am. 93, 1609: "
         "148-point fit, 0-100 degC",
-        parameters=(Parameter("temperature", "temperature", "degC", 20.0, (0.0, 100.0),
-                              (-5.0, 100.0), "water temperature (ITS-90)"),),
-        density=eq.water_density_kell, density_source=_KELL, category="liquid",
+        parameters=(
+            Parameter(
+                "temperature",
+                "temperature",
+                "degC",
+                20.0,
+                (0.0, 100.0),
+                (-5.0, 100.0),
+                "water temperature (ITS-90)",
+            ),
+        ),
+        density=eq.water_density_kell,
+        density_source=_KELL,
+        category="liquid",
         description="pure water at atmospheric pressure, by temperature",
         absorption=lambda frequency, temperature: ab.fresh_water(frequency, temperature),
-        absorption_source=ab.FRESH_WATER, absorption_frequency=_SEA_ABSORPTION_BAND,
+        absorption_source=ab.FRESH_WATER,
+        absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "seawater-mackenzie", "liquid", eq.seawater_mackenzie,
+        "seawater-mackenzie",
+        "liquid",
+        eq.seawater_mackenzie,
         source="Mackenzie (1981), J. Acoust. Soc. Am. 70, 807: nine-term equation",
         parameters=(_SEA_T, _SEA_S, _SEA_D),
         density=lambda temperature, salinity, depth: 1025.0,
         density_source="typical surface seawater, 1025 kg/m3 (common practice)",
-        aliases=("seawater", "sea-water"), category="liquid",
+        aliases=("seawater", "sea-water"),
+        category="liquid",
         description="seawater by temperature, salinity and depth (the default seawater)",
-        absorption=ab.francois_garrison, absorption_source=ab.FRANCOIS_GARRISON,
-        absorption_parameters=(_PH,), absorption_frequency=_SEA_ABSORPTION_BAND,
+        absorption=ab.francois_garrison,
+        absorption_source=ab.FRANCOIS_GARRISON,
+        absorption_parameters=(_PH,),
+        absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "seawater-unesco", "liquid", _unesco_speed,
+        "seawater-unesco",
+        "liquid",
+        _unesco_speed,
         source="UNESCO equation: Chen & Millero (1977), J. Acoust. Soc. Am. 62, 1129, as coded "
         "by Fofonoff & Millard (1983), UNESCO Tech. Pap. Mar. Sci. 44 (T68 = 1.00024 T90); "
         "depth to pressure by Saunders (1981), J. Phys. Oceanogr. 11, 573",
         parameters=(_UN_T, _UN_S, _UN_P, _UN_D, _UN_LAT),
         density=_sea_density,
         density_source="typical surface seawater, 1025 kg/m3 (common practice)",
-        aliases=("seawater-chen-millero",), category="liquid",
+        aliases=("seawater-chen-millero",),
+        category="liquid",
         description="seawater by temperature, salinity and pressure (or depth)",
         absorption=_pressure_absorption("seawater-unesco"),
         absorption_source=ab.FRANCOIS_GARRISON,
-        absorption_parameters=(_PH,), absorption_frequency=_SEA_ABSORPTION_BAND,
+        absorption_parameters=(_PH,),
+        absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "seawater-del-grosso", "liquid", _del_grosso_speed,
+        "seawater-del-grosso",
+        "liquid",
+        _del_grosso_speed,
         source="Del Grosso (1974), J. Acoust. Soc. Am. 56, 1084: the NRL II equation "
         "(T68 = 1.00024 T90, pressure in kg/cm2 = dbar / 9.80665); depth to pressure by "
         "Saunders (1981), J. Phys. Oceanogr. 11, 573",
         parameters=(_DG_T, _DG_S, _DG_P, _UN_D, _UN_LAT),
         density=_sea_density,
         density_source="typical surface seawater, 1025 kg/m3 (common practice)",
-        aliases=("seawater-nrl2",), category="liquid",
+        aliases=("seawater-nrl2",),
+        category="liquid",
         description="seawater by temperature, salinity and pressure (or depth)",
         absorption=_pressure_absorption("seawater-del-grosso"),
         absorption_source=ab.FRANCOIS_GARRISON,
-        absorption_parameters=(_PH,), absorption_frequency=_SEA_ABSORPTION_BAND,
+        absorption_parameters=(_PH,),
+        absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "air", "gas", eq.air_cramer,
+        "air",
+        "gas",
+        eq.air_cramer,
         source="Cramer (1993), J. Acoust. Soc. Am. 93, 2510: humid air by temperature, "
         "pressure, humidity and CO2",
-        parameters=(_CR_T, _CR_H, _CR_P, _CR_C), density=eq.air_density_humid,
+        parameters=(_CR_T, _CR_H, _CR_P, _CR_C),
+        density=eq.air_density_humid,
         density_source="ideal-gas law for the mixture of dry air and water vapour "
         "(common practice)",
-        aliases=("air-cramer", "humid-air"), category="gas",
+        aliases=("air-cramer", "humid-air"),
+        category="gas",
         description="air by temperature, humidity and pressure",
-        absorption=_air_absorption, absorption_source=ab.ISO_9613_1,
+        absorption=_air_absorption,
+        absorption_source=ab.ISO_9613_1,
         absorption_frequency=_AIR_ABSORPTION_BAND,
     ),
     ComputedMedium(
-        "air-ideal", "gas", eq.air_speed_ideal,
+        "air-ideal",
+        "gas",
+        eq.air_speed_ideal,
         source="ideal-gas form 331.3 sqrt(1 + T/273.15) m/s for dry air (common practice)",
-        parameters=(_AIR_T,), density=eq.air_density_ideal,
+        parameters=(_AIR_T,),
+        density=eq.air_density_ideal,
         density_source="ideal-gas law for dry air at 101.325 kPa (common practice)",
-        aliases=("dry-air",), category="gas",
+        aliases=("dry-air",),
+        category="gas",
         description="dry air at sea-level pressure, by temperature",
         absorption=lambda frequency, temperature: ab.air_iso9613(frequency, temperature, 0.0),
         absorption_source=ab.ISO_9613_1 + ", dry air at 101.325 kPa",

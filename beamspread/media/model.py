@@ -177,8 +177,12 @@ class Wave:
         """A speed given directly by the user."""
         from ..probes import check_positive
 
-        return cls(medium="given", wave=wave, speed=check_positive(speed, "speed", "m/s"),
-                   source="given by the user")
+        return cls(
+            medium="given",
+            wave=wave,
+            speed=check_positive(speed, "speed", "m/s"),
+            source="given by the user",
+        )
 
 
 def _check_wave(wave: str) -> None:
@@ -219,11 +223,14 @@ class Material:
 
     @property
     def depends_on_temperature(self) -> bool:
-        return any(v is not None and v.curve is not None
-                   for v in (self.longitudinal, self.shear, self.density))
+        return any(
+            v is not None and v.curve is not None
+            for v in (self.longitudinal, self.shear, self.density)
+        )
 
-    def evaluate(self, wave: str = "longitudinal",
-                 conditions: Mapping[str, float] | None = None) -> Wave:
+    def evaluate(
+        self, wave: str = "longitudinal", conditions: Mapping[str, float] | None = None
+    ) -> Wave:
         """The speed of ``wave`` in this material.
 
         Only ``temperature`` (degC) is understood, and only where the table
@@ -261,8 +268,11 @@ class Material:
             state=self.state,
             conditions=used,
             condition_units={"temperature": "degC"} if used else {},
-            density=(None if self.density is None
-                     else self.density.at(temperature, f"{self.name} density")),
+            density=(
+                None
+                if self.density is None
+                else self.density.at(temperature, f"{self.name} density")
+            ),
             warnings=tuple(notes),
         )
 
@@ -366,8 +376,9 @@ class ComputedMedium:
 
     def parameter(self, name: str) -> Parameter | None:
         """The declared condition ``name`` (speed or absorption), or None."""
-        return next((p for p in (*self.parameters, *self.absorption_parameters)
-                     if p.name == name), None)
+        return next(
+            (p for p in (*self.parameters, *self.absorption_parameters) if p.name == name), None
+        )
 
     def _conditions(self, conditions, parameters) -> tuple[dict[str, float], list[str]]:
         """Check names and ranges; fill defaults. Returns the values and the warnings."""
@@ -375,8 +386,9 @@ class ComputedMedium:
         known = {p.name for p in (*self.parameters, *self.absorption_parameters)}
         unknown = sorted(set(conditions) - known)
         if unknown:
-            declared = ", ".join(p.name for p in (*self.parameters,
-                                                  *self.absorption_parameters)) or "none"
+            declared = (
+                ", ".join(p.name for p in (*self.parameters, *self.absorption_parameters)) or "none"
+            )
             raise MaterialError(
                 f"{self.name} takes no condition {', '.join(unknown)}; it declares: {declared}"
             )
@@ -395,8 +407,9 @@ class ComputedMedium:
                 values[p.name] = v
         return values, notes
 
-    def evaluate_absorption(self, frequency: float,
-                            conditions: Mapping[str, float] | None = None) -> Absorption | None:
+    def evaluate_absorption(
+        self, frequency: float, conditions: Mapping[str, float] | None = None
+    ) -> Absorption | None:
         """The absorption at ``frequency`` (Hz) under ``conditions``; None if not declared.
 
         Defaults fill the conditions not given. Every condition is refused
@@ -412,8 +425,11 @@ class ComputedMedium:
         frequency = check_positive(frequency, "frequency", "Hz")
         every = (*self.parameters, *self.absorption_parameters)
         values, _ = self._conditions(conditions, every)
-        notes = [w for p in self.absorption_parameters
-                 for w in p.check(values[p.name], self.name, "absorption")]
+        notes = [
+            w
+            for p in self.absorption_parameters
+            for w in p.check(values[p.name], self.name, "absorption")
+        ]
         if self.absorption_frequency is not None:
             lo, hi = self.absorption_frequency
             if not lo <= frequency <= hi:
@@ -426,8 +442,10 @@ class ComputedMedium:
             warnings.simplefilter("error")
             alpha = float(self.absorption(frequency, **values))
         if not math.isfinite(alpha) or alpha < 0:
-            raise InputError(f"{self.name}: the absorption equation gives no valid value "
-                             f"for {values} at {frequency:g} Hz")
+            raise InputError(
+                f"{self.name}: the absorption equation gives no valid value "
+                f"for {values} at {frequency:g} Hz"
+            )
         return Absorption(
             medium=self.name,
             frequency=frequency,
@@ -438,8 +456,9 @@ class ComputedMedium:
             warnings=tuple(notes),
         )
 
-    def absorption_db_per_km(self, frequency: float,
-                             conditions: Mapping[str, float] | None = None) -> float | None:
+    def absorption_db_per_km(
+        self, frequency: float, conditions: Mapping[str, float] | None = None
+    ) -> float | None:
         """The absorption coefficient at ``frequency`` (Hz), dB/km; None if not declared.
 
         See :meth:`evaluate_absorption` for the same with its source and warnings.
@@ -447,8 +466,9 @@ class ComputedMedium:
         result = self.evaluate_absorption(frequency, conditions)
         return None if result is None else result.db_per_km
 
-    def evaluate(self, wave: str = "longitudinal",
-                 conditions: Mapping[str, float] | None = None) -> Wave:
+    def evaluate(
+        self, wave: str = "longitudinal", conditions: Mapping[str, float] | None = None
+    ) -> Wave:
         """The speed of ``wave`` under ``conditions`` (defaults fill the rest)."""
         _check_wave(wave)
         values, notes = self._conditions(conditions, self.parameters)
@@ -464,8 +484,9 @@ class ComputedMedium:
             raise InputError(f"{self.name}: the equation gives no valid speed for {values}")
         density = None if self.density is None else float(self.density(**values))
         if density is not None and (not math.isfinite(density) or density <= 0):
-            raise InputError(f"{self.name}: the density equation gives no valid density "
-                             f"for {values}")
+            raise InputError(
+                f"{self.name}: the density equation gives no valid density for {values}"
+            )
         return Wave(
             medium=self.name,
             wave=wave,

@@ -101,8 +101,7 @@ class Registry:
                 self.shadowed.setdefault(normalise_name(owner.name), []).append(entry)
                 return
             self.warnings.append(
-                f"'{entry.name}' from {entry.origin} overrides "
-                f"'{owner.name}' from {owner.origin}"
+                f"'{entry.name}' from {entry.origin} overrides '{owner.name}' from {owner.origin}"
             )
             if key in self.entries:
                 self._drop(key)
@@ -147,8 +146,7 @@ class Registry:
             close = [k for k in known if key in k][:3]
         hint = f"; did you mean {', '.join(repr(c) for c in close)}?" if close else ""
         raise MaterialError(
-            f"no material or medium named {name!r}{hint} "
-            "(see 'beamspread materials list')"
+            f"no material or medium named {name!r}{hint} (see 'beamspread materials list')"
         )
 
 
@@ -180,8 +178,9 @@ def user_table_dirs(extra: Sequence[str | Path] = ()) -> list[tuple[str, Path]]:
 
 def _table_files(location) -> list:
     if location.is_dir():
-        return sorted((p for p in location.iterdir() if p.name.endswith(".toml")),
-                      key=lambda p: p.name)
+        return sorted(
+            (p for p in location.iterdir() if p.name.endswith(".toml")), key=lambda p: p.name
+        )
     return [location]
 
 
@@ -244,15 +243,18 @@ def _collect(registry: Registry, infos, hook: str, call_each):
     def make_kwargs(plugin_name: str):
         info = infos.get(plugin_name)
         builtin = info.builtin if info else False
-        origin = _plugin_origin(plugin_name, builtin, info and info.distribution,
-                                info and info.version)
+        origin = _plugin_origin(
+            plugin_name, builtin, info and info.distribution, info and info.version
+        )
         level = BUILTIN if builtin else PLUGIN
         batch = pending.setdefault(plugin_name, [])
 
         def register_medium(medium):
             if not isinstance(medium, (Material, ComputedMedium)):
-                raise TypeError(f"register_media expects a ComputedMedium or Material, "
-                                f"not {type(medium).__name__}")
+                raise TypeError(
+                    f"register_media expects a ComputedMedium or Material, "
+                    f"not {type(medium).__name__}"
+                )
             where = "built-in medium" if builtin else origin
             batch.append(Entry(medium, where, level, plugin=plugin_name))
 
@@ -264,11 +266,15 @@ def _collect(registry: Registry, infos, hook: str, call_each):
                 try:
                     table = load_table(path, display=shown)
                 except TableError as exc:
-                    raise TableError(exc.reason, path=f"{origin}: {exc.path}", line=exc.line,
-                                     entry=exc.entry, key=exc.key) from None
+                    raise TableError(
+                        exc.reason,
+                        path=f"{origin}: {exc.path}",
+                        line=exc.line,
+                        entry=exc.entry,
+                        key=exc.key,
+                    ) from None
                 for material in table.materials:
-                    batch.append(Entry(material, where, level, plugin=plugin_name,
-                                       path=str(path)))
+                    batch.append(Entry(material, where, level, plugin=plugin_name, path=str(path)))
 
         return {"register": register_medium if hook == "register_media" else register_table}
 

@@ -49,8 +49,15 @@ __all__ = ["FORMAT", "TableFile", "load_table", "parse_table"]
 FORMAT = 1
 TOP_KEYS = {"format", "title", "description", "material"}
 ENTRY_KEYS = {
-    "name", "aliases", "state", "category", "description", "note",
-    "longitudinal", "shear", "density",
+    "name",
+    "aliases",
+    "state",
+    "category",
+    "description",
+    "note",
+    "longitudinal",
+    "shear",
+    "density",
 }
 VALUE_KEYS = {"value", "unit", "source", "note", "temperature", "temperature_unit", "values"}
 _QUANTITY_KIND = {"longitudinal": "speed", "shear": "speed", "density": "density"}
@@ -72,8 +79,9 @@ class _Context:
     def __init__(self, path: str, text: str) -> None:
         self.path = path
         self.lines = text.splitlines()
-        self.headers = [i for i, line in enumerate(self.lines)
-                        if re.match(r"^\s*\[\[\s*material\s*\]\]", line)]
+        self.headers = [
+            i for i, line in enumerate(self.lines) if re.match(r"^\s*\[\[\s*material\s*\]\]", line)
+        ]
         self.index: int | None = None  # the [[material]] being read
 
     def line_of(self, entry: str | None, key: str | None = None) -> int | None:
@@ -81,8 +89,9 @@ class _Context:
         if entry is None or self.index is None or self.index >= len(self.headers):
             return None
         start = self.headers[self.index]
-        stop = (self.headers[self.index + 1] if self.index + 1 < len(self.headers)
-                else len(self.lines))
+        stop = (
+            self.headers[self.index + 1] if self.index + 1 < len(self.headers) else len(self.lines)
+        )
         for wanted in (key, "name"):  # the key's line, else the entry's name line
             if wanted is None:
                 continue
@@ -92,10 +101,16 @@ class _Context:
                     return i + 1
         return start + 1
 
-    def error(self, message: str, entry: str | None = None, key: str | None = None,
-              line: int | None = None) -> TableError:
-        return TableError(message, path=self.path, line=line or self.line_of(entry, key),
-                          entry=entry, key=key)
+    def error(
+        self,
+        message: str,
+        entry: str | None = None,
+        key: str | None = None,
+        line: int | None = None,
+    ) -> TableError:
+        return TableError(
+            message, path=self.path, line=line or self.line_of(entry, key), entry=entry, key=key
+        )
 
 
 def _closest(word: str, allowed: Iterable[str]) -> str:
@@ -109,8 +124,7 @@ def _positive(number: Any, ctx: _Context, entry: str, key: str) -> float:
     if isinstance(number, bool) or not isinstance(number, (int, float)):
         raise ctx.error(f"{number!r} is not a number", entry, key)
     if not math.isfinite(number) or number <= 0:
-        raise ctx.error(f"{number!r} is not allowed; values must be finite and above 0",
-                        entry, key)
+        raise ctx.error(f"{number!r} is not allowed; values must be finite and above 0", entry, key)
     return float(number)
 
 
@@ -118,12 +132,18 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
     if not isinstance(raw, dict):
         raise ctx.error(
             "a value must be an inline table such as "
-            '{ value = 5920, unit = "m/s", source = "..." }', entry, key)
+            '{ value = 5920, unit = "m/s", source = "..." }',
+            entry,
+            key,
+        )
     unknown = sorted(set(raw) - VALUE_KEYS)
     if unknown:
         raise ctx.error(
             f"unknown key '{unknown[0]}' in the value{_closest(unknown[0], VALUE_KEYS)}; "
-            f"allowed: {', '.join(sorted(VALUE_KEYS))}", entry, key)
+            f"allowed: {', '.join(sorted(VALUE_KEYS))}",
+            entry,
+            key,
+        )
     kind = _QUANTITY_KIND[key]
     unit = raw.get("unit")
     if not isinstance(unit, str) or not unit.strip():
@@ -132,8 +152,11 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
         raise ctx.error(f"unknown unit {unit!r}; allowed: {KINDS[kind].units}", entry, key)
     source = raw.get("source")
     if not isinstance(source, str) or not source.strip():
-        raise ctx.error("the value needs a source (a published table, 'common practice' "
-                        "or 'from memory')", entry, key)
+        raise ctx.error(
+            "the value needs a source (a published table, 'common practice' or 'from memory')",
+            entry,
+            key,
+        )
     note = raw.get("note")
 
     def convert(number: Any) -> float:
@@ -141,28 +164,35 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
         try:
             return parse_quantity(f"{number!r} {unit}", kind)
         except InputError:
-            raise ctx.error(f"{number!r} {unit} is not a finite value in SI units",
-                            entry, key) from None
+            raise ctx.error(
+                f"{number!r} {unit} is not a finite value in SI units", entry, key
+            ) from None
 
     has_value = "value" in raw
     has_curve = "temperature" in raw or "values" in raw
     if has_value == has_curve:
-        raise ctx.error("give either 'value', or 'temperature' and 'values' for a curve",
-                        entry, key)
+        raise ctx.error(
+            "give either 'value', or 'temperature' and 'values' for a curve", entry, key
+        )
     if has_value:
         return Value(source=source, value=convert(raw["value"]), note=note)
     temps, values = raw.get("temperature"), raw.get("values")
     if not isinstance(temps, list) or not isinstance(values, list):
         raise ctx.error("a curve needs lists 'temperature' and 'values'", entry, key)
     if len(temps) != len(values) or len(temps) < 2:
-        raise ctx.error("a curve needs 'temperature' and 'values' of the same length, "
-                        "at least 2", entry, key)
+        raise ctx.error(
+            "a curve needs 'temperature' and 'values' of the same length, at least 2", entry, key
+        )
     t_unit = raw.get("temperature_unit", "degC")
     try:
         temps_c = tuple(parse_quantity(f"{float(t)!r} {t_unit}", "temperature") for t in temps)
     except (InputError, TypeError, ValueError):
-        raise ctx.error(f"curve temperatures must be numbers in a temperature unit "
-                        f"({KINDS['temperature'].units})", entry, key) from None
+        raise ctx.error(
+            f"curve temperatures must be numbers in a temperature unit "
+            f"({KINDS['temperature'].units})",
+            entry,
+            key,
+        ) from None
     if any(b <= a for a, b in itertools.pairwise(temps_c)):
         raise ctx.error("curve temperatures must increase", entry, key)
     curve = Curve(temps_c, tuple(convert(v) for v in values))
@@ -181,16 +211,24 @@ def _material(raw: Any, index: int, ctx: _Context) -> Material:
     if not isinstance(name, str):
         raise ctx.error(f"[[material]] number {index + 1} has no name", key="name")
     if not NAME_PATTERN.match(name):
-        raise ctx.error("names use lower-case letters, digits and single hyphens, "
-                        "starting with a letter", name, "name")
+        raise ctx.error(
+            "names use lower-case letters, digits and single hyphens, starting with a letter",
+            name,
+            "name",
+        )
     unknown = sorted(set(raw) - ENTRY_KEYS)
     if unknown:
-        raise ctx.error(f"unknown key{_closest(unknown[0], ENTRY_KEYS)}; allowed: "
-                        f"{', '.join(sorted(ENTRY_KEYS))}", name, unknown[0])
+        raise ctx.error(
+            f"unknown key{_closest(unknown[0], ENTRY_KEYS)}; allowed: "
+            f"{', '.join(sorted(ENTRY_KEYS))}",
+            name,
+            unknown[0],
+        )
     state = raw.get("state")
     if state not in STATES:
-        raise ctx.error(f"state {state!r} is not allowed; use one of {', '.join(STATES)}",
-                        name, "state")
+        raise ctx.error(
+            f"state {state!r} is not allowed; use one of {', '.join(STATES)}", name, "state"
+        )
     if "longitudinal" not in raw:
         raise ctx.error("the longitudinal velocity is missing", name, "longitudinal")
     longitudinal = _value(raw["longitudinal"], ctx, name, "longitudinal")
@@ -209,9 +247,15 @@ def _material(raw: Any, index: int, ctx: _Context) -> Material:
         if key in raw and not isinstance(raw[key], str):
             raise ctx.error("must be a string", name, key)
     return Material(
-        name=name, state=state, longitudinal=longitudinal, shear=shear, density=density,
-        aliases=tuple(aliases), category=raw.get("category"),
-        description=raw.get("description"), note=raw.get("note"),
+        name=name,
+        state=state,
+        longitudinal=longitudinal,
+        shear=shear,
+        density=density,
+        aliases=tuple(aliases),
+        category=raw.get("category"),
+        description=raw.get("description"),
+        note=raw.get("note"),
     )
 
 
@@ -237,17 +281,22 @@ def parse_table(text: str, path: str = "<table>") -> TableFile:
         raise TableError(f"invalid TOML: {reason}", path=path, line=line) from None
     unknown = sorted(set(data) - TOP_KEYS)
     if unknown:
-        raise ctx.error(f"unknown top-level key{_closest(unknown[0], TOP_KEYS)}; allowed: "
-                        f"{', '.join(sorted(TOP_KEYS))}", key=unknown[0])
+        raise ctx.error(
+            f"unknown top-level key{_closest(unknown[0], TOP_KEYS)}; allowed: "
+            f"{', '.join(sorted(TOP_KEYS))}",
+            key=unknown[0],
+        )
     fmt = data.get("format")
     if type(fmt) is not int or fmt != FORMAT:
-        raise ctx.error(f"format = {data.get('format')!r} is not understood; this version "
-                        f"reads format = {FORMAT}", key="format", line=1 if "format" not in data
-                        else None)
+        raise ctx.error(
+            f"format = {data.get('format')!r} is not understood; this version "
+            f"reads format = {FORMAT}",
+            key="format",
+            line=1 if "format" not in data else None,
+        )
     entries = data.get("material", [])
     if not isinstance(entries, list):
-        raise ctx.error("'material' must be an array of tables: write [[material]]",
-                        key="material")
+        raise ctx.error("'material' must be an array of tables: write [[material]]", key="material")
     materials = []
     seen: dict[str, str] = {}
     for index, raw in enumerate(entries):
@@ -256,8 +305,11 @@ def parse_table(text: str, path: str = "<table>") -> TableFile:
             key = normalise_name(label)
             if key in seen:
                 what = "name" if label == material.name else "aliases"
-                raise ctx.error(f"'{label}' is already used by entry '{seen[key]}' in this file",
-                                material.name, what)
+                raise ctx.error(
+                    f"'{label}' is already used by entry '{seen[key]}' in this file",
+                    material.name,
+                    what,
+                )
             seen[key] = material.name
         materials.append(material)
     for key in ("title", "description"):

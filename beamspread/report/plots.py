@@ -131,8 +131,10 @@ def _levels(levels_db) -> list[float]:
         except (TypeError, ValueError):
             raise InputError(f"level: {level!r} is not a number of dB") from None
         if not math.isfinite(value) or value == 0.0 or value >= -FLOOR_DB:
-            raise InputError(f"level: {level!r} dB is not allowed; give a level from above 0 "
-                             f"to below {-FLOOR_DB:g} dB down")
+            raise InputError(
+                f"level: {level!r} dB is not allowed; give a level from above 0 "
+                f"to below {-FLOOR_DB:g} dB down"
+            )
         if value not in out:
             out.append(value)
     return out
@@ -156,8 +158,9 @@ def _mode_text(mode: str, bandwidth: float | None = None) -> str:
     return text
 
 
-def new_figure(size: tuple[float, float] = FIGSIZE, *, caption: str = "",
-               dpi: float = DPI) -> Figure:
+def new_figure(
+    size: tuple[float, float] = FIGSIZE, *, caption: str = "", dpi: float = DPI
+) -> Figure:
     """A figure on its own Agg canvas with constrained layout, the caption along its foot.
 
     The layout leaves room below for the caption (wrapped to the figure's
@@ -182,8 +185,16 @@ def _caption(fig: Figure, caption: str) -> float:
     per_line = max(20, int((width * 72.0 - 14.0) / (0.56 * CAPTION_SIZE)))
     lines = textwrap.wrap(text, per_line)
     points = len(lines) * CAPTION_SIZE * 1.3 + 8.0
-    fig.text(0.012, 4.0 / (height * 72.0), "\n".join(lines), fontsize=CAPTION_SIZE,
-             ha="left", va="bottom", color="0.2", linespacing=1.3)
+    fig.text(
+        0.012,
+        4.0 / (height * 72.0),
+        "\n".join(lines),
+        fontsize=CAPTION_SIZE,
+        ha="left",
+        va="bottom",
+        color="0.2",
+        linespacing=1.3,
+    )
     return min(0.4, points / (height * 72.0))
 
 
@@ -194,8 +205,7 @@ def save_figure(fig: Figure, path: str | os.PathLike) -> Path:
     ``path`` only once complete; on any failure it is removed.
     """
     target = check_target(path)
-    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.",
-                                     suffix=".part")
+    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
     os.close(fd)
     try:
         fig.savefig(temporary, format=target.suffix.lower()[1:], dpi=fig.dpi)
@@ -234,8 +244,10 @@ def _polar_figure(size, caption: str, entries: int) -> tuple[Figure, float]:
     above = 0.62 + 0.2  # two lines of title, the radius labels
     side = max(1.0, min(2.0 * (height - below - above), width - 1.1))  # the half-disc's width
     box_bottom = below - side / 4.0  # the half-disc sits in the middle of its square box
-    fig.add_axes((0.5 - side / (2.0 * width), box_bottom / height, side / width, side / height),
-                 projection="polar")
+    fig.add_axes(
+        (0.5 - side / (2.0 * width), box_bottom / height, side / width, side / height),
+        projection="polar",
+    )
     return fig, (caption_in + 2.0 / 72.0) / height
 
 
@@ -255,9 +267,16 @@ def _strip_legend(strip, handles, ncol: int = 2, fontsize: float = 7.5) -> None:
     grid = strip.get_subplotspec().get_gridspec()
     main = max(0.5, fig.get_figheight() * 0.75 - needed)
     grid.set_height_ratios((main, needed))
-    legend = strip.legend(handles=handles, loc="center", ncol=ncol, fontsize=fontsize,
-                          frameon=False, borderaxespad=0.0, handlelength=2.6,
-                          columnspacing=1.6)
+    legend = strip.legend(
+        handles=handles,
+        loc="center",
+        ncol=ncol,
+        fontsize=fontsize,
+        frameon=False,
+        borderaxespad=0.0,
+        handlelength=2.6,
+        columnspacing=1.6,
+    )
     legend.set_in_layout(False)  # the strip's height is set for it, and layout ignores its width
 
 
@@ -281,9 +300,17 @@ class MapArtists:
     handles: list[Any]
 
 
-def draw_map(ax: Axes, field_map, *, levels_db=(6.0, 20.0), near_field: float | None = None,
-             depths: Sequence[float] = (), units: str = "mm", colorbar: bool = True,
-             legend: bool = True) -> MapArtists:
+def draw_map(
+    ax: Axes,
+    field_map,
+    *,
+    levels_db=(6.0, 20.0),
+    near_field: float | None = None,
+    depths: Sequence[float] = (),
+    units: str = "mm",
+    colorbar: bool = True,
+    legend: bool = True,
+) -> MapArtists:
     """Draw a :class:`~beamspread.field.FieldMap` into ``ax``: lateral across, depth downward.
 
     The image is the amplitude in dB relative to the map's maximum, from
@@ -298,22 +325,38 @@ def draw_map(ax: Axes, field_map, *, levels_db=(6.0, 20.0), near_field: float | 
     lateral = np.asarray(field_map.lateral, dtype=float) * s
     depth = np.asarray(field_map.depth, dtype=float) * s
     if amp.shape != (depth.size, lateral.size) or depth.size < 2 or lateral.size < 2:
-        raise InputError("map: a picture needs at least 2 depths and 2 lateral offsets, with "
-                         "amplitude[depth, lateral]")
+        raise InputError(
+            "map: a picture needs at least 2 depths and 2 lateral offsets, with "
+            "amplitude[depth, lateral]"
+        )
     peak = float(amp.max())
     if not peak > 0.0:
         raise InputError("map: the amplitude is zero everywhere; there is nothing to draw")
     image_db = _db(amp, peak)
     across_db = _db(amp, amp.max(axis=1, keepdims=True))
     dx, dz = np.diff(lateral), np.diff(depth)
-    uniform = (np.allclose(dx, dx[0], rtol=1e-6) and np.allclose(dz, dz[0], rtol=1e-6)
-               and dx[0] > 0 and dz[0] > 0)
+    uniform = (
+        np.allclose(dx, dx[0], rtol=1e-6)
+        and np.allclose(dz, dz[0], rtol=1e-6)
+        and dx[0] > 0
+        and dz[0] > 0
+    )
     style = {"cmap": COLORMAP, "vmin": FLOOR_DB, "vmax": 0.0}
     if uniform:
-        extent = (lateral[0] - dx[0] / 2, lateral[-1] + dx[0] / 2,
-                  depth[0] - dz[0] / 2, depth[-1] + dz[0] / 2)
-        image = ax.imshow(image_db, extent=extent, origin="lower", aspect="auto",
-                          interpolation="bilinear", **style)
+        extent = (
+            lateral[0] - dx[0] / 2,
+            lateral[-1] + dx[0] / 2,
+            depth[0] - dz[0] / 2,
+            depth[-1] + dz[0] / 2,
+        )
+        image = ax.imshow(
+            image_db,
+            extent=extent,
+            origin="lower",
+            aspect="auto",
+            interpolation="bilinear",
+            **style,
+        )
     else:
         image = ax.pcolormesh(lateral, depth, image_db, shading="nearest", **style)
         extent = (lateral.min(), lateral.max(), depth.min(), depth.max())
@@ -321,8 +364,9 @@ def draw_map(ax: Axes, field_map, *, levels_db=(6.0, 20.0), near_field: float | 
     ax.set_ylim(extent[3], extent[2])  # depth grows downward, as the beam enters the part
     ax.set_xlabel(f"lateral offset in the {field_map.plane} plane, {unit}")
     ax.set_ylabel(f"depth from the probe face, {unit}")
-    ax.set_title(f"Computed beam map: {_mode_text(field_map.mode, field_map.bandwidth)}",
-                 fontsize=10)
+    ax.set_title(
+        f"Computed beam map: {_mode_text(field_map.mode, field_map.bandwidth)}", fontsize=10
+    )
     if colorbar:
         bar = ax.figure.colorbar(image, ax=ax, pad=0.02, fraction=0.06)
         bar.set_label(f"dB re the map's maximum ({field_map.mode})")
@@ -332,48 +376,109 @@ def draw_map(ax: Axes, field_map, *, levels_db=(6.0, 20.0), near_field: float | 
     for i, level in enumerate(_levels(levels_db)):
         ls = _STYLES[i % len(_STYLES)]
         if across_db.min() < -level:
-            contours[level] = ax.contour(lateral, depth, across_db, levels=[-level],
-                                         colors="black", linewidths=1.4, linestyles=ls)
-        handles.append(_line(color="black", lw=1.4, ls=ls,
-                             label=f"{_level_text(level)} re max. at each depth"))
+            contours[level] = ax.contour(
+                lateral,
+                depth,
+                across_db,
+                levels=[-level],
+                colors="black",
+                linewidths=1.4,
+                linestyles=ls,
+            )
+        handles.append(
+            _line(color="black", lw=1.4, ls=ls, label=f"{_level_text(level)} re max. at each depth")
+        )
     right = extent[1]
     near_line = None
     if near_field is not None and math.isfinite(near_field) and near_field > 0:
-        near_line = ax.axhline(near_field * s, color="white", lw=1.2, ls=(0, (6, 3)),
-                               path_effects=_outline())
-        ax.text(right, near_field * s, f"N {_length(near_field, units)} ", color="white",
-                fontsize=8, ha="right", va="bottom", path_effects=_outline(2.2))
-        handles.append(_line(color="white", lw=1.2, ls=(0, (6, 3)), path_effects=_outline(),
-                             label=f"near field N = {_length(near_field, units)}"))
+        near_line = ax.axhline(
+            near_field * s, color="white", lw=1.2, ls=(0, (6, 3)), path_effects=_outline()
+        )
+        ax.text(
+            right,
+            near_field * s,
+            f"N {_length(near_field, units)} ",
+            color="white",
+            fontsize=8,
+            ha="right",
+            va="bottom",
+            path_effects=_outline(2.2),
+        )
+        handles.append(
+            _line(
+                color="white",
+                lw=1.2,
+                ls=(0, (6, 3)),
+                path_effects=_outline(),
+                label=f"near field N = {_length(near_field, units)}",
+            )
+        )
     lines = []
     for d in depths:
         lines.append(ax.axhline(d * s, color=_MARKS, lw=1.1, path_effects=_outline(2.4)))
-        ax.text(extent[0], d * s, f" {_length(d, units)}", color=_MARKS, fontsize=8,
-                ha="left", va="bottom", path_effects=_outline(2.2))
+        ax.text(
+            extent[0],
+            d * s,
+            f" {_length(d, units)}",
+            color=_MARKS,
+            fontsize=8,
+            ha="left",
+            va="bottom",
+            path_effects=_outline(2.2),
+        )
     if lines:
-        handles.append(_line(color=_MARKS, lw=1.1, path_effects=_outline(2.4),
-                             label="requested depths"))
+        handles.append(
+            _line(color=_MARKS, lw=1.1, path_effects=_outline(2.4), label="requested depths")
+        )
     if legend:
-        leg = ax.legend(handles=handles, loc="lower right", fontsize=7.5, framealpha=0.85,
-                        facecolor="white", edgecolor="0.5")
+        leg = ax.legend(
+            handles=handles,
+            loc="lower right",
+            fontsize=7.5,
+            framealpha=0.85,
+            facecolor="white",
+            edgecolor="0.5",
+        )
         leg.set_zorder(5)
     return MapArtists(image, contours, near_line, lines, handles)
 
 
-def map_figure(field_map, *, levels_db=(6.0, 20.0), near_field: float | None = None,
-               depths: Sequence[float] = (), caption: str = "", units: str = "mm",
-               size: tuple[float, float] = FIGSIZE) -> Figure:
+def map_figure(
+    field_map,
+    *,
+    levels_db=(6.0, 20.0),
+    near_field: float | None = None,
+    depths: Sequence[float] = (),
+    caption: str = "",
+    units: str = "mm",
+    size: tuple[float, float] = FIGSIZE,
+) -> Figure:
     """:func:`plot_map`'s picture as a Figure."""
     fig = new_figure(size, caption=caption)
     grid, strip = _with_strip(fig)
-    drawn = draw_map(fig.add_subplot(grid[0]), field_map, levels_db=levels_db,
-                     near_field=near_field, depths=depths, units=units, legend=False)
+    drawn = draw_map(
+        fig.add_subplot(grid[0]),
+        field_map,
+        levels_db=levels_db,
+        near_field=near_field,
+        depths=depths,
+        units=units,
+        legend=False,
+    )
     _strip_legend(strip, drawn.handles)
     return fig
 
 
-def plot_map(field_map, path, *, levels_db=(6.0, 20.0), near_field: float | None = None,
-             depths: Sequence[float] = (), caption: str = "", units: str = "mm") -> Path:
+def plot_map(
+    field_map,
+    path,
+    *,
+    levels_db=(6.0, 20.0),
+    near_field: float | None = None,
+    depths: Sequence[float] = (),
+    caption: str = "",
+    units: str = "mm",
+) -> Path:
     """Draw the beam map (see :func:`draw_map`) to ``path``; return the path.
 
     Raises
@@ -383,8 +488,17 @@ def plot_map(field_map, path, *, levels_db=(6.0, 20.0), near_field: float | None
         (0, 40) dB, or a map with fewer than 2 points a side.
     """
     check_target(path)
-    return save_figure(map_figure(field_map, levels_db=levels_db, near_field=near_field,
-                                  depths=depths, caption=caption, units=units), path)
+    return save_figure(
+        map_figure(
+            field_map,
+            levels_db=levels_db,
+            near_field=near_field,
+            depths=depths,
+            caption=caption,
+            units=units,
+        ),
+        path,
+    )
 
 
 # ----------------------------------------------------------------- profiles
@@ -404,9 +518,16 @@ def _list(values, units, most=3) -> str:
     return ", ".join(shown) + (", ..." if len(values) > most else "")
 
 
-def axis_figure(profile, *, near_field: float | None = None,
-                axial_maximum: float | None = None, levels_db=(6.0,), caption: str = "",
-                units: str = "mm", size: tuple[float, float] = FIGSIZE) -> Figure:
+def axis_figure(
+    profile,
+    *,
+    near_field: float | None = None,
+    axial_maximum: float | None = None,
+    levels_db=(6.0,),
+    caption: str = "",
+    units: str = "mm",
+    size: tuple[float, float] = FIGSIZE,
+) -> Figure:
     """:func:`plot_axis`'s picture as a Figure."""
     s, unit = _scale(units)
     depth = np.asarray(profile.depth, dtype=float)
@@ -421,18 +542,36 @@ def axis_figure(profile, *, near_field: float | None = None,
     ax = fig.add_subplot()
     ax.plot(depth * s, db, color=_PALETTE[0], lw=1.5, label="on-axis amplitude")
     if near_field is not None and math.isfinite(near_field):
-        ax.axvline(near_field * s, color=_PALETTE[1], lw=1.1, ls="--",
-                   label=f"near field N = {_length(near_field, units)}")
+        ax.axvline(
+            near_field * s,
+            color=_PALETTE[1],
+            lw=1.1,
+            ls="--",
+            label=f"near field N = {_length(near_field, units)}",
+        )
     if axial_maximum is not None and math.isfinite(axial_maximum):
-        ax.axvline(axial_maximum * s, color=_PALETTE[2], lw=1.1, ls=":",
-                   label=f"last on-axis maximum {_length(axial_maximum, units)}")
+        ax.axvline(
+            axial_maximum * s,
+            color=_PALETTE[2],
+            lw=1.1,
+            ls=":",
+            label=f"last on-axis maximum {_length(axial_maximum, units)}",
+        )
     for i, level in enumerate(_levels(levels_db)):
         where = _crossings(depth, db, level)
         ax.axhline(-level, color="0.6", lw=0.8, ls=_STYLES[(i + 1) % len(_STYLES)])
         if where.size:
-            ax.plot(where * s, np.full(where.size, -level), ls="none", marker="o", ms=5,
-                    mfc="white", mec=_PALETTE[3 + i % 2], mew=1.5,
-                    label=f"{_level_text(level)} crossings: {_list(where, units)}")
+            ax.plot(
+                where * s,
+                np.full(where.size, -level),
+                ls="none",
+                marker="o",
+                ms=5,
+                mfc="white",
+                mec=_PALETTE[3 + i % 2],
+                mew=1.5,
+                label=f"{_level_text(level)} crossings: {_list(where, units)}",
+            )
     ax.set_xlim(depth[0] * s, depth[-1] * s)
     ax.set_ylim(FLOOR_DB, 3.0)
     ax.set_xlabel(f"depth on the beam axis, {unit}")
@@ -443,9 +582,16 @@ def axis_figure(profile, *, near_field: float | None = None,
     return fig
 
 
-def plot_axis(profile, path, *, near_field: float | None = None,
-              axial_maximum: float | None = None, levels_db=(6.0,), caption: str = "",
-              units: str = "mm") -> Path:
+def plot_axis(
+    profile,
+    path,
+    *,
+    near_field: float | None = None,
+    axial_maximum: float | None = None,
+    levels_db=(6.0,),
+    caption: str = "",
+    units: str = "mm",
+) -> Path:
     """Draw an :class:`~beamspread.field.AxialProfile` in dB to ``path``; return the path.
 
     The amplitude is in dB relative to the largest on the profile; the
@@ -454,13 +600,27 @@ def plot_axis(profile, path, *, near_field: float | None = None,
     between samples).
     """
     check_target(path)
-    return save_figure(axis_figure(profile, near_field=near_field, axial_maximum=axial_maximum,
-                                   levels_db=levels_db, caption=caption, units=units), path)
+    return save_figure(
+        axis_figure(
+            profile,
+            near_field=near_field,
+            axial_maximum=axial_maximum,
+            levels_db=levels_db,
+            caption=caption,
+            units=units,
+        ),
+        path,
+    )
 
 
-def across_figure(profiles, widths: Mapping[str, Sequence] | None = None, *,
-                  caption: str = "", units: str = "mm",
-                  size: tuple[float, float] = FIGSIZE) -> Figure:
+def across_figure(
+    profiles,
+    widths: Mapping[str, Sequence] | None = None,
+    *,
+    caption: str = "",
+    units: str = "mm",
+    size: tuple[float, float] = FIGSIZE,
+) -> Figure:
     """:func:`plot_across`'s picture as a Figure."""
     s, unit = _scale(units)
     profiles = list(profiles)
@@ -476,8 +636,9 @@ def across_figure(profiles, widths: Mapping[str, Sequence] | None = None, *,
         offset, amp = offset[order], amp[order]
         peak = float(np.abs(amp).max()) if amp.size else 0.0
         if offset.size < 2 or not peak > 0:
-            raise InputError(f"across: the {profile.plane} profile needs at least 2 offsets "
-                             "and some amplitude")
+            raise InputError(
+                f"across: the {profile.plane} profile needs at least 2 offsets and some amplitude"
+            )
         ax.plot(offset * s, _db(amp, peak), color=_PALETTE[0], lw=1.5, label="amplitude")
         for i, w in enumerate(widths.get(profile.plane, ())):
             colour = _PALETTE[1 + i % (len(_PALETTE) - 1)]
@@ -487,30 +648,39 @@ def across_figure(profiles, widths: Mapping[str, Sequence] | None = None, *,
                 ax.plot([], [], ls="none", label=f"{_level_text(level)}: not reached")
                 continue
             half = 0.5 * w.width * s
-            ax.plot([-half, half], [-level, -level], color=colour, lw=1.2,
-                    marker="|", ms=12, mew=1.8,
-                    label=f"{_level_text(level)} width {_length(w.width, units)}")
+            ax.plot(
+                [-half, half],
+                [-level, -level],
+                color=colour,
+                lw=1.2,
+                marker="|",
+                ms=12,
+                mew=1.8,
+                label=f"{_level_text(level)} width {_length(w.width, units)}",
+            )
         ax.set_xlim(offset[0] * s, offset[-1] * s)
         ax.set_ylim(FLOOR_DB, 3.0)
         ax.set_xlabel(f"offset in the {profile.plane} plane, {unit}")
-        ax.set_title(f"{profile.plane} plane at depth {_length(profile.depth, units)}",
-                     fontsize=9)
+        ax.set_title(f"{profile.plane} plane at depth {_length(profile.depth, units)}", fontsize=9)
         ax.grid(True, color="0.88", lw=0.6)
         ax.legend(loc="lower center", fontsize=7.5, framealpha=0.9)
     first = profiles[0]
     axes[0].set_ylabel(f"dB re the maximum at this depth ({first.mode})")
     if len(profiles) > 1:
-        fig.suptitle(f"Across the beam: {_mode_text(first.mode, first.bandwidth)}",
-                     fontsize=10)
+        fig.suptitle(f"Across the beam: {_mode_text(first.mode, first.bandwidth)}", fontsize=10)
     else:
-        axes[0].set_title(f"Across the beam, {first.plane} plane at depth "
-                          f"{_length(first.depth, units)}: "
-                          f"{_mode_text(first.mode, first.bandwidth)}", fontsize=10)
+        axes[0].set_title(
+            f"Across the beam, {first.plane} plane at depth "
+            f"{_length(first.depth, units)}: "
+            f"{_mode_text(first.mode, first.bandwidth)}",
+            fontsize=10,
+        )
     return fig
 
 
-def plot_across(profiles, widths: Mapping[str, Sequence] | None, path, *, caption: str = "",
-                units: str = "mm") -> Path:
+def plot_across(
+    profiles, widths: Mapping[str, Sequence] | None, path, *, caption: str = "", units: str = "mm"
+) -> Path:
     """Draw transverse profiles in dB, one panel per plane, to ``path``; return the path.
 
     Parameters
@@ -535,26 +705,36 @@ def _pattern_shape(shape: str) -> str:
     return aliases[shape]
 
 
-def directivity_figure(aperture_by_plane: Mapping[str, float], wavelength: float,
-                       shape: str = "disc", *, polar: bool = True, levels_db=(6.0,),
-                       max_angle: float | None = None, caption: str = "",
-                       size: tuple[float, float] = FIGSIZE) -> Figure:
+def directivity_figure(
+    aperture_by_plane: Mapping[str, float],
+    wavelength: float,
+    shape: str = "disc",
+    *,
+    polar: bool = True,
+    levels_db=(6.0,),
+    max_angle: float | None = None,
+    caption: str = "",
+    size: tuple[float, float] = FIGSIZE,
+) -> Figure:
     """:func:`plot_directivity`'s picture as a Figure."""
     from .. import pattern
     from ..probes import check_positive
 
     kind = _pattern_shape(shape)
     wavelength = check_positive(wavelength, "wavelength", "m")
-    planes = {name: check_positive(a, f"aperture of the {name} plane", "m")
-              for name, a in dict(aperture_by_plane).items()}
+    planes = {
+        name: check_positive(a, f"aperture of the {name} plane", "m")
+        for name, a in dict(aperture_by_plane).items()
+    }
     if not planes:
         raise InputError("directivity: give the aperture of at least one plane")
     levels = _levels(levels_db)
     if polar:
         top = 90.0  # the whole half-plane in front of the face
     elif max_angle is None:  # three first-null angles, or 90 degrees for a small element
-        nulls = [float(np.degrees(pattern.first_null(a, wavelength, kind)))
-                 for a in planes.values()]
+        nulls = [
+            float(np.degrees(pattern.first_null(a, wavelength, kind))) for a in planes.values()
+        ]
         top = 90.0 if any(math.isnan(n) for n in nulls) else min(90.0, 3.0 * max(nulls))
     else:
         top = float(max_angle)
@@ -574,17 +754,38 @@ def directivity_figure(aperture_by_plane: Mapping[str, float], wavelength: float
         colour = _PALETTE[i % len(_PALETTE)]
         for mode, ls in (("one-way", "-"), ("pulse-echo", "--")):
             d = pattern.directivity(theta, aperture, wavelength, kind, mode)
-            ax.plot(theta if polar else np.degrees(theta), _db(d, 1.0), color=colour, lw=1.3,
-                    ls=ls, label=f"{name} plane ({_length(aperture, 'mm')}), {mode}")
+            ax.plot(
+                theta if polar else np.degrees(theta),
+                _db(d, 1.0),
+                color=colour,
+                lw=1.3,
+                ls=ls,
+                label=f"{name} plane ({_length(aperture, 'mm')}), {mode}",
+            )
             for level in levels:
                 half = float(pattern.half_angle(level, aperture, wavelength, kind, mode))
                 if math.isnan(half) or math.degrees(half) > top:
                     continue
                 where = np.array([-half, half])
-                ax.plot(where if polar else np.degrees(where), [-level, -level], ls="none",
-                        marker="o", ms=4.5, mfc="white", mec=colour, mew=1.3)
-    marker = _line(ls="none", marker="o", ms=4.5, mfc="white", mec="0.3", mew=1.3,
-                   label=", ".join(_level_text(v) for v in levels) + " half-angles")
+                ax.plot(
+                    where if polar else np.degrees(where),
+                    [-level, -level],
+                    ls="none",
+                    marker="o",
+                    ms=4.5,
+                    mfc="white",
+                    mec=colour,
+                    mew=1.3,
+                )
+    marker = _line(
+        ls="none",
+        marker="o",
+        ms=4.5,
+        mfc="white",
+        mec="0.3",
+        mew=1.3,
+        label=", ".join(_level_text(v) for v in levels) + " half-angles",
+    )
     handles = [*ax.get_legend_handles_labels()[0], marker]
     title = f"Far-field directivity, {kind} pattern: one-way and pulse-echo"
     if polar:
@@ -593,14 +794,24 @@ def directivity_figure(aperture_by_plane: Mapping[str, float], wavelength: float
         ax.set_thetamax(top)
         ax.set_ylim(FLOOR_DB, 0.0)
         ax.set_yticks(np.arange(FLOOR_DB + 10.0, 0.1, 10.0))  # the centre is the floor
-        ax.set_yticklabels([f"{v:g}".replace("-", _MINUS) for v in ax.get_yticks()],
-                           fontsize=7)
-        fig.text(0.5, 1.0 - 6.0 / (72.0 * fig.get_figheight()),
-                 title + "\nradius: dB re the on-axis amplitude (centre "
-                 f"{_MINUS}{-FLOOR_DB:g} dB); angle from the axis, deg", fontsize=9,
-                 ha="center", va="top")
-        fig.legend(handles=handles, loc="lower center", ncol=2, fontsize=7.5, frameon=False,
-                   bbox_to_anchor=(0.5, legend_bottom))
+        ax.set_yticklabels([f"{v:g}".replace("-", _MINUS) for v in ax.get_yticks()], fontsize=7)
+        fig.text(
+            0.5,
+            1.0 - 6.0 / (72.0 * fig.get_figheight()),
+            title + "\nradius: dB re the on-axis amplitude (centre "
+            f"{_MINUS}{-FLOOR_DB:g} dB); angle from the axis, deg",
+            fontsize=9,
+            ha="center",
+            va="top",
+        )
+        fig.legend(
+            handles=handles,
+            loc="lower center",
+            ncol=2,
+            fontsize=7.5,
+            frameon=False,
+            bbox_to_anchor=(0.5, legend_bottom),
+        )
     else:
         ax.set_xlim(-top, top)
         ax.set_ylim(FLOOR_DB, 3.0)
@@ -612,9 +823,17 @@ def directivity_figure(aperture_by_plane: Mapping[str, float], wavelength: float
     return fig
 
 
-def plot_directivity(aperture_by_plane: Mapping[str, float], wavelength: float, shape: str,
-                     path, *, polar: bool = True, levels_db=(6.0,),
-                     max_angle: float | None = None, caption: str = "") -> Path:
+def plot_directivity(
+    aperture_by_plane: Mapping[str, float],
+    wavelength: float,
+    shape: str,
+    path,
+    *,
+    polar: bool = True,
+    levels_db=(6.0,),
+    max_angle: float | None = None,
+    caption: str = "",
+) -> Path:
     """Draw the far-field pattern, one-way and pulse-echo, in dB to ``path``; return the path.
 
     Parameters
@@ -634,9 +853,18 @@ def plot_directivity(aperture_by_plane: Mapping[str, float], wavelength: float, 
         Largest angle drawn, deg (default 90 in polar, else three first-null angles).
     """
     check_target(path)
-    return save_figure(directivity_figure(aperture_by_plane, wavelength, shape, polar=polar,
-                                          levels_db=levels_db, max_angle=max_angle,
-                                          caption=caption), path)
+    return save_figure(
+        directivity_figure(
+            aperture_by_plane,
+            wavelength,
+            shape,
+            polar=polar,
+            levels_db=levels_db,
+            max_angle=max_angle,
+            caption=caption,
+        ),
+        path,
+    )
 
 
 # ----------------------------------------------------------------- the angle beam on a plate
@@ -670,15 +898,23 @@ class BeamEdge:
         object.__setattr__(self, "width", width)
 
     @classmethod
-    def from_half_angle(cls, level_db: float, half_angle: float, sound_path: float,
-                        *, start: float = 0.0, start_width: float = 0.0) -> BeamEdge:
+    def from_half_angle(
+        cls,
+        level_db: float,
+        half_angle: float,
+        sound_path: float,
+        *,
+        start: float = 0.0,
+        start_width: float = 0.0,
+    ) -> BeamEdge:
         """Straight edges diverging at ``half_angle`` (rad) from ``start_width`` at ``start``.
 
         The far-field cone (common practice): ``width = start_width + 2 (s - start) tan(half)``.
         """
         if not 0.0 <= half_angle < math.pi / 2:
-            raise InputError(f"beam edge: a half-angle of {math.degrees(half_angle):g} deg "
-                             "is not allowed")
+            raise InputError(
+                f"beam edge: a half-angle of {math.degrees(half_angle):g} deg is not allowed"
+            )
         grow = 2.0 * (sound_path - start) * math.tan(half_angle)
         return cls(level_db, (start, sound_path), (start_width, start_width + grow))
 
@@ -720,13 +956,17 @@ class SectionGeometry:
 
         object.__setattr__(self, "thickness", check_positive(self.thickness, "thickness", "m"))
         if not 0.0 <= self.refracted < math.radians(89.0):
-            raise InputError(f"refracted angle {math.degrees(self.refracted):g} deg is not "
-                             "allowed for a section; give 0 to 89 degrees")
+            raise InputError(
+                f"refracted angle {math.degrees(self.refracted):g} deg is not "
+                "allowed for a section; give 0 to 89 degrees"
+            )
         if self.legs not in (1, 2):
             raise InputError(f"legs: {self.legs!r} is not allowed; use 1 or 2")
         if self.flaw_depth is not None and not 0.0 < self.flaw_depth <= self.thickness:
-            raise InputError(f"flaw depth {self.flaw_depth * 1e3:g} mm is not allowed; it must "
-                             f"lie in the plate (0 to {self.thickness * 1e3:g} mm)")
+            raise InputError(
+                f"flaw depth {self.flaw_depth * 1e3:g} mm is not allowed; it must "
+                f"lie in the plate (0 to {self.thickness * 1e3:g} mm)"
+            )
         object.__setattr__(self, "edges", tuple(self.edges))
 
     @property
@@ -818,8 +1058,9 @@ def section_footprints(geometry: SectionGeometry) -> list[SectionFootprint]:
         return []
     out = []
     for leg in range(1, geometry.legs + 1):
-        path, surface, unfolded = leg_geometry(geometry.flaw_depth, geometry.refracted,
-                                               geometry.thickness, leg)
+        path, surface, unfolded = leg_geometry(
+            geometry.flaw_depth, geometry.refracted, geometry.thickness, leg
+        )
         for edge in geometry.edges:
             ends = []
             for side in (-1.0, 1.0):
@@ -829,13 +1070,17 @@ def section_footprints(geometry: SectionGeometry) -> list[SectionFootprint]:
             if None in ends:
                 continue
             a, b = ends  # folding keeps the surface position, so leg 2 reads the same way
-            out.append(SectionFootprint(leg, edge.level_db, min(a, b), max(a, b), path,
-                                        surface))
+            out.append(SectionFootprint(leg, edge.level_db, min(a, b), max(a, b), path, surface))
     return out
 
 
-def section_figure(geometry: SectionGeometry, *, caption: str = "", units: str = "mm",
-                   size: tuple[float, float] | None = None) -> Figure:
+def section_figure(
+    geometry: SectionGeometry,
+    *,
+    caption: str = "",
+    units: str = "mm",
+    size: tuple[float, float] | None = None,
+) -> Figure:
     """:func:`plot_section`'s picture as a Figure (default: 7 in wide, as tall as needed)."""
     from matplotlib.patches import Rectangle as Box
 
@@ -853,8 +1098,15 @@ def section_figure(geometry: SectionGeometry, *, caption: str = "", units: str =
     fig = new_figure(size, caption=caption)
     grid, strip = _with_strip(fig)
     ax = fig.add_subplot(grid[0])
-    plate = Box((left * s, 0.0), (right - left) * s, t * s, facecolor="#e9ecef",
-                edgecolor="0.25", lw=1.2, zorder=0)
+    plate = Box(
+        (left * s, 0.0),
+        (right - left) * s,
+        t * s,
+        facecolor="#e9ecef",
+        edgecolor="0.25",
+        lw=1.2,
+        zorder=0,
+    )
     ax.add_patch(plate)
     handles = [_line(color="#e9ecef", lw=8, label=f"plate, {_length(t, units)} thick")]
 
@@ -862,8 +1114,14 @@ def section_figure(geometry: SectionGeometry, *, caption: str = "", units: str =
     ends = np.linspace(0.0, g.path_length, g.legs + 1)
     ax_x, ax_y = g.unfolded(ends, 0.0)
     ax.plot(ax_x * s, g.fold(ax_y) * s, color=_PALETTE[0], lw=1.3, ls="-.", zorder=3)
-    handles.append(_line(color=_PALETTE[0], lw=1.3, ls="-.",
-                         label=f"beam axis, {math.degrees(beta):.1f}\u00b0 {g.wave}"))
+    handles.append(
+        _line(
+            color=_PALETTE[0],
+            lw=1.3,
+            ls="-.",
+            label=f"beam axis, {math.degrees(beta):.1f}\u00b0 {g.wave}",
+        )
+    )
     colours = {}
     for i, edge in enumerate(g.edges):
         colour = colours[edge.level_db] = _PALETTE[1 + i % (len(_PALETTE) - 1)]
@@ -878,44 +1136,89 @@ def section_figure(geometry: SectionGeometry, *, caption: str = "", units: str =
             sides.append((x[ok], yf[ok]))
         if i == 0:  # shade the main beam between its first pair of edges
             (x1, y1), (x2, y2) = sides
-            (shade,) = ax.fill(np.concatenate([x1, x2[::-1]]) * s,
-                               np.concatenate([y1, y2[::-1]]) * s,
-                               color=colour, alpha=0.12, lw=0, zorder=2)
+            (shade,) = ax.fill(
+                np.concatenate([x1, x2[::-1]]) * s,
+                np.concatenate([y1, y2[::-1]]) * s,
+                color=colour,
+                alpha=0.12,
+                lw=0,
+                zorder=2,
+            )
             shade.set_clip_path(plate)
-        handles.append(_line(color=colour, lw=1.3, ls=ls,
-                             label=f"{_level_text(edge.level_db)} beam edges"))
-    ax.plot([g.exit_point * s], [0.0], marker="v", ms=9, color=_PALETTE[0], zorder=4,
-            ls="none", clip_on=False)
-    handles.append(_line(marker="v", ms=7, color=_PALETTE[0], ls="none",
-                         label=f"exit point, {_length(g.exit_point, units)}"))
+        handles.append(
+            _line(color=colour, lw=1.3, ls=ls, label=f"{_level_text(edge.level_db)} beam edges")
+        )
+    ax.plot(
+        [g.exit_point * s],
+        [0.0],
+        marker="v",
+        ms=9,
+        color=_PALETTE[0],
+        zorder=4,
+        ls="none",
+        clip_on=False,
+    )
+    handles.append(
+        _line(
+            marker="v",
+            ms=7,
+            color=_PALETTE[0],
+            ls="none",
+            label=f"exit point, {_length(g.exit_point, units)}",
+        )
+    )
     if g.flaw_depth is not None:
         y = g.flaw_depth * s
         ax.axhline(y, color=_MARKS, lw=1.0, ls=(0, (2, 2)), zorder=1)
-        handles.append(_line(color=_MARKS, lw=1.0, ls=(0, (2, 2)),
-                             label=f"flaw depth {_length(g.flaw_depth, units)}; footprints:"))
+        handles.append(
+            _line(
+                color=_MARKS,
+                lw=1.0,
+                ls=(0, (2, 2)),
+                label=f"flaw depth {_length(g.flaw_depth, units)}; footprints:",
+            )
+        )
         for fp in section_footprints(g):
             colour = colours[fp.level_db]
-            ax.plot([fp.near * s, fp.far * s], [y, y], color=colour, lw=2.2, marker="|",
-                    ms=11, mew=2.2, solid_capstyle="butt", zorder=4)
-            handles.append(_line(color=colour, lw=2.2, marker="|", ms=9, mew=2.2,
-                                 label=f"  leg {fp.leg}, {_level_text(fp.level_db)}: "
-                                 f"{_length(fp.width, units)} "
-                                 f"(path {_length(fp.sound_path, units)})"))
+            ax.plot(
+                [fp.near * s, fp.far * s],
+                [y, y],
+                color=colour,
+                lw=2.2,
+                marker="|",
+                ms=11,
+                mew=2.2,
+                solid_capstyle="butt",
+                zorder=4,
+            )
+            handles.append(
+                _line(
+                    color=colour,
+                    lw=2.2,
+                    marker="|",
+                    ms=9,
+                    mew=2.2,
+                    label=f"  leg {fp.leg}, {_level_text(fp.level_db)}: "
+                    f"{_length(fp.width, units)} "
+                    f"(path {_length(fp.sound_path, units)})",
+                )
+            )
     ax.set_xlim(left * s, right * s)
     ax.set_ylim(t * s * 1.04, -0.06 * t * s)
     ax.set_aspect("equal", adjustable="box")  # the section to scale
     ax.set_xlabel(f"surface distance from the exit point's origin, {unit}")
     ax.set_ylabel(f"depth, {unit}")
     levels = ", ".join(_level_text(e.level_db) for e in g.edges)
-    ax.set_title(f"Angle beam on the section: {g.legs} leg{'s' if g.legs > 1 else ''}"
-                 + (f", edges at {levels}" if levels else ""), fontsize=10)
+    ax.set_title(
+        f"Angle beam on the section: {g.legs} leg{'s' if g.legs > 1 else ''}"
+        + (f", edges at {levels}" if levels else ""),
+        fontsize=10,
+    )
     _strip_legend(strip, handles, fontsize=7.0)
     return fig
 
 
-
-def plot_section(geometry: SectionGeometry, path, *, caption: str = "",
-                 units: str = "mm") -> Path:
+def plot_section(geometry: SectionGeometry, path, *, caption: str = "", units: str = "mm") -> Path:
     """Draw the angle beam on the plate's section to ``path``; return the path.
 
     The plate (depth downward, to scale), the exit point, the beam axis and
@@ -929,10 +1232,16 @@ def plot_section(geometry: SectionGeometry, path, *, caption: str = "",
 # ----------------------------------------------------------------- the sonar cone
 
 
-def footprint_figure(depths: Sequence[float], widths_by_level: Mapping[Any, Sequence],
-                     *, near_field: float | None = None, mode: str = "one-way",
-                     caption: str = "", units: str = "m",
-                     size: tuple[float, float] = FIGSIZE) -> Figure:
+def footprint_figure(
+    depths: Sequence[float],
+    widths_by_level: Mapping[Any, Sequence],
+    *,
+    near_field: float | None = None,
+    mode: str = "one-way",
+    caption: str = "",
+    units: str = "m",
+    size: tuple[float, float] = FIGSIZE,
+) -> Figure:
     """:func:`plot_footprint`'s picture as a Figure."""
     s, unit = _scale(units, ("m", "ft", "mm", "in"))
     depth = np.asarray([float(d) for d in depths], dtype=float)
@@ -947,8 +1256,7 @@ def footprint_figure(depths: Sequence[float], widths_by_level: Mapping[Any, Sequ
     for i, (key, values) in enumerate(dict(widths_by_level).items()):
         width = np.array([np.nan if v is None else float(v) for v in values])
         if width.size != depth.size:
-            raise InputError(f"footprint: {width.size} widths for {key!r} but "
-                             f"{depth.size} depths")
+            raise InputError(f"footprint: {width.size} widths for {key!r} but {depth.size} depths")
         width = width[order]
         label = _level_text(key) if isinstance(key, (int, float)) else str(key)
         colour = _PALETTE[i % len(_PALETTE)]
@@ -962,22 +1270,40 @@ def footprint_figure(depths: Sequence[float], widths_by_level: Mapping[Any, Sequ
         for j in labelled:
             if not math.isfinite(width[j]):
                 continue
-            ax.plot([-half[j], half[j]], [depth[j] * s] * 2, color=colour, ls="none",
-                    marker="|", ms=9, mew=1.5)
+            ax.plot(
+                [-half[j], half[j]],
+                [depth[j] * s] * 2,
+                color=colour,
+                ls="none",
+                marker="|",
+                ms=9,
+                mew=1.5,
+            )
             ax.axhline(depth[j] * s, color="0.7", lw=0.6, ls=":", zorder=0)
-            ax.annotate(_length(width[j], units), (half[j], depth[j] * s),
-                        xytext=(4, 2 - 10 * i), textcoords="offset points", fontsize=7,
-                        color=colour, va="bottom",
-                        bbox={"boxstyle": "square,pad=0.1", "fc": "white", "ec": "none",
-                              "alpha": 0.8})
+            ax.annotate(
+                _length(width[j], units),
+                (half[j], depth[j] * s),
+                xytext=(4, 2 - 10 * i),
+                textcoords="offset points",
+                fontsize=7,
+                color=colour,
+                va="bottom",
+                bbox={"boxstyle": "square,pad=0.1", "fc": "white", "ec": "none", "alpha": 0.8},
+            )
         if np.any(np.isfinite(width)):
             widest = max(widest, float(np.nanmax(width)))
     if widest == 0.0:
         raise InputError("footprint: no level has a width at any depth; nothing to draw")
     top = depth[-1] * s
     if near_field is not None and math.isfinite(near_field) and near_field > 0:
-        ax.axhspan(0.0, min(near_field * s, top * 1.05), color="0.5", alpha=0.12, lw=0,
-                   label=f"near field {_length(near_field, units)} (cone not valid)")
+        ax.axhspan(
+            0.0,
+            min(near_field * s, top * 1.05),
+            color="0.5",
+            alpha=0.12,
+            lw=0,
+            label=f"near field {_length(near_field, units)} (cone not valid)",
+        )
     ax.plot([0, 0], [0, top], color="0.4", lw=0.8, ls="-.", label="beam axis")
     ax.set_xlim(-0.8 * widest * s, 0.8 * widest * s)
     ax.set_ylim(top * 1.05, 0.0)
@@ -989,9 +1315,16 @@ def footprint_figure(depths: Sequence[float], widths_by_level: Mapping[Any, Sequ
     return fig
 
 
-def plot_footprint(depths: Sequence[float], widths_by_level: Mapping[Any, Sequence], path,
-                   *, near_field: float | None = None, mode: str = "one-way",
-                   caption: str = "", units: str = "m") -> Path:
+def plot_footprint(
+    depths: Sequence[float],
+    widths_by_level: Mapping[Any, Sequence],
+    path,
+    *,
+    near_field: float | None = None,
+    mode: str = "one-way",
+    caption: str = "",
+    units: str = "m",
+) -> Path:
     """Draw the sonar cone and its footprint width against water depth to ``path``.
 
     Parameters
@@ -1010,6 +1343,9 @@ def plot_footprint(depths: Sequence[float], widths_by_level: Mapping[Any, Sequen
     units : {"m", "ft", "mm", "in"}
     """
     check_target(path)
-    return save_figure(footprint_figure(depths, widths_by_level, near_field=near_field,
-                                        mode=mode, caption=caption, units=units), path)
-
+    return save_figure(
+        footprint_figure(
+            depths, widths_by_level, near_field=near_field, mode=mode, caption=caption, units=units
+        ),
+        path,
+    )

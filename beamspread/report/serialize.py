@@ -16,11 +16,26 @@ from ..beam import BeamResult
 from ..media.model import Wave
 from ..probes import Disc
 
-__all__ = ["beam_to_csv", "beam_to_dict", "dumps", "field_settings_to_dict", "sonar_to_dict",
-           "unit_suffix", "wave_to_dict"]
+__all__ = [
+    "beam_to_csv",
+    "beam_to_dict",
+    "dumps",
+    "field_settings_to_dict",
+    "sonar_to_dict",
+    "unit_suffix",
+    "wave_to_dict",
+]
 
-_SUFFIX = {"degC": "c", "g/kg": "g_kg", "m": "m", "dbar": "dbar", "%": "percent", "m/s": "m_s",
-           "kg/m3": "kg_m3", "": ""}
+_SUFFIX = {
+    "degC": "c",
+    "g/kg": "g_kg",
+    "m": "m",
+    "dbar": "dbar",
+    "%": "percent",
+    "m/s": "m_s",
+    "kg/m3": "kg_m3",
+    "": "",
+}
 
 
 def unit_suffix(unit: str) -> str:
@@ -68,8 +83,14 @@ def _spot(spot) -> dict[str, Any]:
     if spot.method == "far-field":
         out["far_field_valid"] = spot.far_field_valid
     out["method"] = spot.method
-    out.update({"leg": spot.leg, "sound_path_m": spot.sound_path,
-                "surface_distance_m": spot.surface_distance, "footprint_m": spot.footprint})
+    out.update(
+        {
+            "leg": spot.leg,
+            "sound_path_m": spot.sound_path,
+            "surface_distance_m": spot.surface_distance,
+            "footprint_m": spot.footprint,
+        }
+    )
     return out
 
 
@@ -92,8 +113,10 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
             "name": plane.name,
             "aperture_m": plane.aperture,
             "half_angle_deg": dict(plane.half_angles),
-            "full_angle_deg": {key: None if value is None else 2.0 * value
-                               for key, value in plane.half_angles.items()},
+            "full_angle_deg": {
+                key: None if value is None else 2.0 * value
+                for key, value in plane.half_angles.items()
+            },
             "spots": [_spot(spot) for spot in plane.spots],
         }
         for plane in result.planes
@@ -109,10 +132,12 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
             "near_field_method": result.near_field_method,
             "near_field_factor": result.near_field_factor,
             "planes": planes,
-            "field": None if result.field is None else {
+            "field": None
+            if result.field is None
+            else {
                 **field_settings_to_dict(result.field.settings, result.convention.mode),
                 "width_reference": "between the outermost crossings of the level below the "
-                                   "largest amplitude across the beam at that depth",
+                "largest amplitude across the beam at that depth",
                 "axial_maximum_m": result.field.axial_maximum,
             },
             "warnings": list(result.warnings),
@@ -126,9 +151,21 @@ def dumps(data: Any) -> str:
 
 
 CSV_COLUMNS = (
-    "mode", "wavelength_m", "near_field_m", "plane", "aperture_m", "level", "half_angle_deg",
-    "depth_m", "width_m", "far_field_valid", "method", "leg", "sound_path_m",
-    "surface_distance_m", "footprint_m",
+    "mode",
+    "wavelength_m",
+    "near_field_m",
+    "plane",
+    "aperture_m",
+    "level",
+    "half_angle_deg",
+    "depth_m",
+    "width_m",
+    "far_field_valid",
+    "method",
+    "leg",
+    "sound_path_m",
+    "surface_distance_m",
+    "footprint_m",
 )
 
 
@@ -161,9 +198,18 @@ def beam_to_csv(result: BeamResult) -> str:
             rows = spots.get(key) or [None]
             for spot in rows:
                 tail = (
-                    ("",) * 8 if spot is None
-                    else (spot.depth, spot.width, spot.far_field_valid, spot.method, spot.leg,
-                          spot.sound_path, spot.surface_distance, spot.footprint)
+                    ("",) * 8
+                    if spot is None
+                    else (
+                        spot.depth,
+                        spot.width,
+                        spot.far_field_valid,
+                        spot.method,
+                        spot.leg,
+                        spot.sound_path,
+                        spot.surface_distance,
+                        spot.footprint,
+                    )
                 )
                 writer.writerow([_cell(v) for v in (*head, *tail)])
     return buffer.getvalue()
@@ -191,86 +237,108 @@ def _db(amplitude, reference: float):
     return [None if not math.isfinite(v) else float(v) for v in level]
 
 
-def axial_to_dict(probe, wave, settings, mode, profile, near_field, near_simple, axial_max,
-                  warnings) -> dict[str, Any]:
+def axial_to_dict(
+    probe, wave, settings, mode, profile, near_field, near_simple, axial_max, warnings
+) -> dict[str, Any]:
     """The JSON form of ``beamspread axis``."""
     peak = float(profile.amplitude.max())
-    return _clean({
-        "probe": probe_to_dict(probe),
-        "medium": wave_to_dict(wave),
-        "field": field_settings_to_dict(settings, mode),
-        "near_field_m": near_field,
-        "near_field_simple_m": near_simple,
-        "axial_maximum_m": axial_max,
-        "amplitude_unit": amplitude_unit(mode),
-        "level_reference": "dB relative to the largest amplitude of the profile",
-        "profile": {
-            "depth_m": profile.depth.tolist(),
-            "amplitude": profile.amplitude.tolist(),
-            "level_db": _db(profile.amplitude, peak),
-        },
-        "warnings": list(warnings),
-    })
+    return _clean(
+        {
+            "probe": probe_to_dict(probe),
+            "medium": wave_to_dict(wave),
+            "field": field_settings_to_dict(settings, mode),
+            "near_field_m": near_field,
+            "near_field_simple_m": near_simple,
+            "axial_maximum_m": axial_max,
+            "amplitude_unit": amplitude_unit(mode),
+            "level_reference": "dB relative to the largest amplitude of the profile",
+            "profile": {
+                "depth_m": profile.depth.tolist(),
+                "amplitude": profile.amplitude.tolist(),
+                "level_db": _db(profile.amplitude, peak),
+            },
+            "warnings": list(warnings),
+        }
+    )
 
 
 def axial_to_csv(profile) -> str:
     peak = float(profile.amplitude.max())
-    rows = zip(profile.depth.tolist(), profile.amplitude.tolist(),
-               _db(profile.amplitude, peak), strict=True)
+    rows = zip(
+        profile.depth.tolist(),
+        profile.amplitude.tolist(),
+        _db(profile.amplitude, peak),
+        strict=True,
+    )
     return _csv(("depth_m", "amplitude", "level_db"), rows)
 
 
-def across_to_dict(probe, wave, settings, mode, depth, profiles, widths,
-                   warnings) -> dict[str, Any]:
+def across_to_dict(
+    probe, wave, settings, mode, depth, profiles, widths, warnings
+) -> dict[str, Any]:
     """The JSON form of ``beamspread across``: one entry per plane."""
     planes = []
     for profile in profiles:
         peak = float(profile.amplitude.max())
-        planes.append({
-            "name": profile.plane,
-            "offset_m": profile.offset.tolist(),
-            "amplitude": profile.amplitude.tolist(),
-            "level_db": _db(profile.amplitude, peak),
-            "widths": [{"level_db": -w.level_db, "width_m": w.width}
-                       for w in widths[profile.plane]],
-        })
-    return _clean({
-        "probe": probe_to_dict(probe),
-        "medium": wave_to_dict(wave),
-        "field": field_settings_to_dict(settings, mode),
-        "depth_m": depth,
-        "amplitude_unit": amplitude_unit(mode),
-        "level_reference": "dB relative to the largest amplitude across the beam at this depth",
-        "planes": planes,
-        "warnings": list(warnings),
-    })
+        planes.append(
+            {
+                "name": profile.plane,
+                "offset_m": profile.offset.tolist(),
+                "amplitude": profile.amplitude.tolist(),
+                "level_db": _db(profile.amplitude, peak),
+                "widths": [
+                    {"level_db": -w.level_db, "width_m": w.width} for w in widths[profile.plane]
+                ],
+            }
+        )
+    return _clean(
+        {
+            "probe": probe_to_dict(probe),
+            "medium": wave_to_dict(wave),
+            "field": field_settings_to_dict(settings, mode),
+            "depth_m": depth,
+            "amplitude_unit": amplitude_unit(mode),
+            "level_reference": "dB relative to the largest amplitude across the beam at this depth",
+            "planes": planes,
+            "warnings": list(warnings),
+        }
+    )
 
 
 def across_to_csv(profiles) -> str:
     rows = []
     for profile in profiles:
         peak = float(profile.amplitude.max())
-        rows.extend((profile.plane, o, a, d) for o, a, d in zip(
-            profile.offset.tolist(), profile.amplitude.tolist(),
-            _db(profile.amplitude, peak), strict=True))
+        rows.extend(
+            (profile.plane, o, a, d)
+            for o, a, d in zip(
+                profile.offset.tolist(),
+                profile.amplitude.tolist(),
+                _db(profile.amplitude, peak),
+                strict=True,
+            )
+        )
     return _csv(("plane", "offset_m", "amplitude", "level_db"), rows)
 
 
 def map_to_dict(probe, wave, settings, mode, field_map, warnings) -> dict[str, Any]:
     """The JSON form of ``beamspread map``: amplitude[i][j] at depth_m[i], lateral_m[j]."""
     peak = float(field_map.amplitude.max())
-    return _clean({
-        "probe": probe_to_dict(probe),
-        "medium": wave_to_dict(wave),
-        "field": field_settings_to_dict(settings, mode),
-        "plane": field_map.plane,
-        "amplitude_unit": amplitude_unit(mode),
-        "level_reference": "dB relative to the largest amplitude of the map",
-        "depth_m": field_map.depth.tolist(),
-        "lateral_m": field_map.lateral.tolist(),
-        "amplitude": field_map.amplitude.astype(float).tolist(),
-        "warnings": list(warnings),
-    } | {"peak_amplitude": peak})
+    return _clean(
+        {
+            "probe": probe_to_dict(probe),
+            "medium": wave_to_dict(wave),
+            "field": field_settings_to_dict(settings, mode),
+            "plane": field_map.plane,
+            "amplitude_unit": amplitude_unit(mode),
+            "level_reference": "dB relative to the largest amplitude of the map",
+            "depth_m": field_map.depth.tolist(),
+            "lateral_m": field_map.lateral.tolist(),
+            "amplitude": field_map.amplitude.astype(float).tolist(),
+            "warnings": list(warnings),
+        }
+        | {"peak_amplitude": peak}
+    )
 
 
 def map_to_csv(field_map) -> str:
@@ -279,8 +347,12 @@ def map_to_csv(field_map) -> str:
     rows = []
     for i, z in enumerate(field_map.depth.tolist()):
         amps = field_map.amplitude[i].astype(float)
-        rows.extend((z, x, a, d) for x, a, d in zip(
-            field_map.lateral.tolist(), amps.tolist(), _db(amps, peak), strict=True))
+        rows.extend(
+            (z, x, a, d)
+            for x, a, d in zip(
+                field_map.lateral.tolist(), amps.tolist(), _db(amps, peak), strict=True
+            )
+        )
     return _csv(("depth_m", "lateral_m", "amplitude", "level_db"), rows)
 
 
@@ -291,13 +363,22 @@ def map_to_npz(path, probe, wave, settings, mode, field_map) -> None:
     peak = float(field_map.amplitude.max())
     with np.errstate(divide="ignore"):
         level = (20.0 * np.log10(field_map.amplitude / peak)).astype(np.float32)
-    meta = {"probe": probe_to_dict(probe), "medium": wave_to_dict(wave),
-            "field": field_settings_to_dict(settings, mode), "plane": field_map.plane,
-            "amplitude_unit": amplitude_unit(mode),
-            "level_reference": "dB relative to the largest amplitude of the map"}
-    np.savez_compressed(path, depth_m=field_map.depth, lateral_m=field_map.lateral,
-                        amplitude=field_map.amplitude.astype(np.float32), level_db=level,
-                        metadata=np.array(json.dumps(_clean(meta))))
+    meta = {
+        "probe": probe_to_dict(probe),
+        "medium": wave_to_dict(wave),
+        "field": field_settings_to_dict(settings, mode),
+        "plane": field_map.plane,
+        "amplitude_unit": amplitude_unit(mode),
+        "level_reference": "dB relative to the largest amplitude of the map",
+    }
+    np.savez_compressed(
+        path,
+        depth_m=field_map.depth,
+        lateral_m=field_map.lateral,
+        amplitude=field_map.amplitude.astype(np.float32),
+        level_db=level,
+        metadata=np.array(json.dumps(_clean(meta))),
+    )
 
 
 def _csv(header, rows) -> str:
@@ -309,8 +390,9 @@ def _csv(header, rows) -> str:
     return buffer.getvalue()
 
 
-def sonar_to_dict(result, directivity_index_db, absorption, figures, budgets,
-                  sonar: bool) -> dict[str, Any]:
+def sonar_to_dict(
+    result, directivity_index_db, absorption, figures, budgets, sonar: bool
+) -> dict[str, Any]:
     """The keys the sonar figures add to the JSON of ``beamspread beam``."""
     out: dict[str, Any] = {"directivity_index_db": directivity_index_db}
     if absorption is not None:
@@ -323,22 +405,42 @@ def sonar_to_dict(result, directivity_index_db, absorption, figures, budgets,
             "directivity_factor": figures.directivity_factor,
             "directivity_method": figures.directivity_method,
             "rayleigh_distance_m": figures.rayleigh_distance,
-            "side_lobes": [{"plane": lobe.plane, "level_db": lobe.level_db,
-                            "angle_deg": lobe.angle_deg, "mode": lobe.mode}
-                           for lobe in figures.side_lobes],
+            "side_lobes": [
+                {
+                    "plane": lobe.plane,
+                    "level_db": lobe.level_db,
+                    "angle_deg": lobe.angle_deg,
+                    "mode": lobe.mode,
+                }
+                for lobe in figures.side_lobes
+            ],
             "equivalent_beam_angle_sr": figures.equivalent_beam_angle_sr,
             "equivalent_beam_angle_db": figures.equivalent_beam_angle_db,
         }
         out["footprints"] = [
-            {"depth_m": f.depth, "level_db": f.level_db, "width_m": f.width,
-             "plane": f.plane, "inside_near_field": f.inside_near_field}
+            {
+                "depth_m": f.depth,
+                "level_db": f.level_db,
+                "width_m": f.width,
+                "plane": f.plane,
+                "inside_near_field": f.inside_near_field,
+            }
             for f in figures.footprints
         ]
     if budgets is not None:
         out["echo_budget"] = [
-            {"range_m": b.range_m,
-             "terms": [{"name": t.name, "value_db": t.value_db, "formula": t.formula,
-                        "reference": t.reference} for t in b.terms]}
+            {
+                "range_m": b.range_m,
+                "terms": [
+                    {
+                        "name": t.name,
+                        "value_db": t.value_db,
+                        "formula": t.formula,
+                        "reference": t.reference,
+                    }
+                    for t in b.terms
+                ],
+            }
             for b in budgets
         ]
     return _clean(out)
@@ -369,16 +471,18 @@ def design_to_dict(found, wave, warnings) -> dict[str, Any]:
         out["side_m"] = float(found.aperture)
         out["other_side_m"] = float(found.other_side)
         out["other_half_angle_deg"] = float(found.other_half_angle_deg)
-    out.update({
-        "half_angle_deg": float(found.half_angle_deg),
-        "full_angle_deg": float(found.full_angle_deg),
-        "near_field_m": float(found.near_field),
-        "directivity_index_db": float(found.directivity_index_db),
-        "depth_m": float(found.depth),
-        "footprint_m": float(found.footprint_width),
-        "far_field_at_depth": bool(found.far_field_at_depth),
-        "warnings": list(warnings),
-    })
+    out.update(
+        {
+            "half_angle_deg": float(found.half_angle_deg),
+            "full_angle_deg": float(found.full_angle_deg),
+            "near_field_m": float(found.near_field),
+            "directivity_index_db": float(found.directivity_index_db),
+            "depth_m": float(found.depth),
+            "footprint_m": float(found.footprint_width),
+            "far_field_at_depth": bool(found.far_field_at_depth),
+            "warnings": list(warnings),
+        }
+    )
     return _clean(out)
 
 

@@ -46,8 +46,10 @@ def _probe_line(result: BeamResult, units: str) -> str:
     freq = f"{f / 1e6:g} MHz" if f >= 1e6 else f"{f / 1e3:g} kHz"
     if isinstance(p, Disc):
         return f"disc element, diameter {format_length(p.diameter, units)}, {freq}"
-    return (f"rectangular element, length {format_length(p.length, units)} x width "
-            f"{format_length(p.width, units)}, {freq}")
+    return (
+        f"rectangular element, length {format_length(p.length, units)} x width "
+        f"{format_length(p.width, units)}, {freq}"
+    )
 
 
 def _medium_line(result: BeamResult, units: str) -> str:
@@ -65,20 +67,33 @@ def _medium_line(result: BeamResult, units: str) -> str:
 def _sonar_lines(di, absorption, figures, units) -> list[str]:
     rows = []
     if di is not None:
-        rows.append(["directivity index", f"{di:.2f} dB",
-                     figures.directivity_method if figures else ""])
+        rows.append(
+            ["directivity index", f"{di:.2f} dB", figures.directivity_method if figures else ""]
+        )
     if absorption is not None:
-        rows.append(["absorption", f"{absorption.db_per_km:.4g} dB/km",
-                     absorption.source.split(":")[0]])
+        rows.append(
+            ["absorption", f"{absorption.db_per_km:.4g} dB/km", absorption.source.split(":")[0]]
+        )
     if figures is not None:
-        rows.append(["far-field (Rayleigh) distance", format_length(figures.rayleigh_distance,
-                                                                     units), "area / wavelength"])
+        rows.append(
+            [
+                "far-field (Rayleigh) distance",
+                format_length(figures.rayleigh_distance, units),
+                "area / wavelength",
+            ]
+        )
         for lobe in figures.side_lobes:
             where = "" if lobe.angle_deg is None else f" at {lobe.angle_deg:.1f}°"
-            rows.append([f"first side lobe, {lobe.plane}", f"{lobe.level_db:.2f} dB",
-                         f"{lobe.mode}{where}"])
-        rows.append(["equivalent two-way beam angle", f"{figures.equivalent_beam_angle_db:.2f} "
-                     "dB re 1 sr", "integral of b² over the half space"])
+            rows.append(
+                [f"first side lobe, {lobe.plane}", f"{lobe.level_db:.2f} dB", f"{lobe.mode}{where}"]
+            )
+        rows.append(
+            [
+                "equivalent two-way beam angle",
+                f"{figures.equivalent_beam_angle_db:.2f} dB re 1 sr",
+                "integral of b² over the half space",
+            ]
+        )
     return [columns([["figure", "value", "how"], *rows])]
 
 
@@ -87,37 +102,53 @@ def field_description(settings, mode: str) -> str:
     if settings.bandwidth == 0:
         pulse = "a continuous wave"
     else:
-        pulse = (f"a {settings.spectrum} spectrum of -6 dB bandwidth {settings.bandwidth:g} "
-                 f"({settings.frequencies} frequencies)")
+        pulse = (
+            f"a {settings.spectrum} spectrum of -6 dB bandwidth {settings.bandwidth:g} "
+            f"({settings.frequencies} frequencies)"
+        )
     return f"{mode}, {pulse}"
 
 
 def _field_line(result: BeamResult, units: str) -> str:
     f = result.field
-    text = (f"computed field: {field_description(f.settings, result.convention.mode)}; "
-            "width between the outermost crossings of the level below the maximum across "
-            "the beam at that depth")
+    text = (
+        f"computed field: {field_description(f.settings, result.convention.mode)}; "
+        "width between the outermost crossings of the level below the maximum across "
+        "the beam at that depth"
+    )
     if f.axial_maximum is not None:
         text += f"; last on-axis maximum of this pulse at {format_length(f.axial_maximum, units)}"
     return text + "."
 
 
-def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=None,
-               figures=None, budgets=None, sonar: bool = False) -> str:
+def beam_table(
+    result: BeamResult,
+    units: str = "mm",
+    *,
+    di=None,
+    absorption=None,
+    figures=None,
+    budgets=None,
+    sonar: bool = False,
+) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given)."""
     out: list[str] = []
     out.append(f"Beam of a {_probe_line(result, units)}")
-    out.extend(textwrap.wrap(f"Medium: {_medium_line(result, units)}", 100,
-                             subsequent_indent="        "))
+    out.extend(
+        textwrap.wrap(f"Medium: {_medium_line(result, units)}", 100, subsequent_indent="        ")
+    )
     out.append("")
     near = result.near_field
     contact = result.near_field_method.startswith("last on-axis maximum, exact") or (
-        result.near_field_method.startswith("last on-axis maximum of the exact"))
+        result.near_field_method.startswith("last on-axis maximum of the exact")
+    )
     if contact:
-        method = "last on-axis maximum, " + ("exact (D² − λ²)/4λ" if isinstance(result.probe, Disc)
-                                             else "from the exact on-axis integral")
-        simple_label = ("D²/4λ" if isinstance(result.probe, Disc)
-                        else "L²/4λ, L the longer side")
+        method = "last on-axis maximum, " + (
+            "exact (D² − λ²)/4λ"
+            if isinstance(result.probe, Disc)
+            else "from the exact on-axis integral"
+        )
+        simple_label = "D²/4λ" if isinstance(result.probe, Disc) else "L²/4λ, L the longer side"
     else:  # an inspection setup states its own method
         method = result.near_field_method
         simple_label = "the same from the simple formula"
@@ -127,19 +158,26 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
         ["near field, simple", format_length(result.near_field_simple, units), simple_label],
     ]
     if result.near_field_factor is not None:
-        rows.append(["near-field factor k", f"{result.near_field_factor:.3f}",
-                     "near field / simple"])
+        rows.append(
+            ["near-field factor k", f"{result.near_field_factor:.3f}", "near field / simple"]
+        )
     out.append(columns([["quantity", "value", "how"], *rows]))
     out.append("")
     mode = result.convention.mode
-    out.append(f"Half-angles from the beam axis, {mode} "
-               f"({'transmit x receive' if mode == 'pulse-echo' else 'transmit only'}), "
-               "levels in dB below the on-axis peak")
+    out.append(
+        f"Half-angles from the beam axis, {mode} "
+        f"({'transmit x receive' if mode == 'pulse-echo' else 'transmit only'}), "
+        "levels in dB below the on-axis peak"
+    )
     keys = [level_key(level) for level in result.levels]
     head = ["plane", "aperture", *[f"{k} dB" for k in keys], "first null"]
     rows = [
-        [pl.name, format_length(pl.aperture, units),
-         *[_angle(pl.half_angles[k]) for k in keys], _angle(pl.half_angles["null"])]
+        [
+            pl.name,
+            format_length(pl.aperture, units),
+            *[_angle(pl.half_angles[k]) for k in keys],
+            _angle(pl.half_angles["null"]),
+        ]
         for pl in result.planes
     ]
     out.append(columns([head, *rows]))
@@ -147,8 +185,16 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
         out.append("")
         out.append(f"Full angles of the cone (twice the half-angle), {mode}")
         head = ["plane", *[f"{k} dB" for k in keys], "first null"]
-        rows = [[pl.name, *[_angle(None if pl.half_angles[k] is None else 2 * pl.half_angles[k])
-                            for k in [*keys, "null"]]] for pl in result.planes]
+        rows = [
+            [
+                pl.name,
+                *[
+                    _angle(None if pl.half_angles[k] is None else 2 * pl.half_angles[k])
+                    for k in [*keys, "null"]
+                ],
+            ]
+            for pl in result.planes
+        ]
         out.append(columns([head, *rows]))
     if di is not None or absorption is not None or figures is not None:
         out.append("")
@@ -160,12 +206,24 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
         rows = []
         for depth in sorted({f.depth for f in figures.footprints}):
             for pl in result.planes:
-                prints = {level_key(f.level_db): f for f in figures.footprints
-                          if f.depth == depth and f.plane == pl.name}
+                prints = {
+                    level_key(f.level_db): f
+                    for f in figures.footprints
+                    if f.depth == depth and f.plane == pl.name
+                }
                 flag = " *" if prints[keys[0]].inside_near_field else ""
-                rows.append([format_length(depth, units) + flag, pl.name,
-                             *["none" if prints[k].width is None
-                               else format_length(prints[k].width, units) for k in keys]])
+                rows.append(
+                    [
+                        format_length(depth, units) + flag,
+                        pl.name,
+                        *[
+                            "none"
+                            if prints[k].width is None
+                            else format_length(prints[k].width, units)
+                            for k in keys
+                        ],
+                    ]
+                )
         out.append(columns([head, *rows]))
         if any(f.inside_near_field for f in figures.footprints):
             out.append("  * inside the near field: the far-field cone does not hold there.")
@@ -174,14 +232,26 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
         out.append("Echo budget of the bottom (sonar equation, point-target form)")
         for budget in budgets:
             out.append(f"  range {format_length(budget.range_m, units)}")
-            out.append(columns([[t.name, f"{t.value_db:.1f} dB", t.formula, t.reference]
-                                for t in budget.terms], indent=4))
+            out.append(
+                columns(
+                    [
+                        [t.name, f"{t.value_db:.1f} dB", t.formula, t.reference]
+                        for t in budget.terms
+                    ],
+                    indent=4,
+                )
+            )
     if result.depths:
         out.append("")
         angled = any(s.surface_distance for pl in result.planes for s in pl.spots)
         out.append(f"Beam width at depth (full width across the beam, {mode})")
-        head = ["depth", *(["leg", "sound path", "surface"] if angled else []), "plane",
-                "method", *[f"{k} dB" for k in keys]]
+        head = [
+            "depth",
+            *(["leg", "sound path", "surface"] if angled else []),
+            "plane",
+            "method",
+            *[f"{k} dB" for k in keys],
+        ]
         rows, prints = [], []
         inside = False
         legs = sorted({s.leg for pl in result.planes for s in pl.spots})
@@ -189,42 +259,79 @@ def beam_table(result: BeamResult, units: str = "mm", *, di=None, absorption=Non
             for leg in legs:
                 for pl in result.planes:
                     for method in ("far-field", "field"):
-                        spots = {level_key(s.level_db): s for s in pl.spots
-                                 if s.depth == depth and s.method == method and s.leg == leg}
+                        spots = {
+                            level_key(s.level_db): s
+                            for s in pl.spots
+                            if s.depth == depth and s.method == method and s.leg == leg
+                        }
                         if not spots:
                             continue
                         first = spots[keys[0]]
                         flag = " *" if first.far_field_valid is False else ""
                         inside = inside or bool(flag)
                         label = "far field" + flag if method == "far-field" else "computed field"
-                        where = ([str(leg), format_length(first.sound_path, units),
-                                  format_length(first.surface_distance, units)] if angled else [])
-                        rows.append([format_length(depth, units), *where, pl.name, label,
-                                     *["none" if spots[k].width is None
-                                       else format_length(spots[k].width, units) for k in keys]])
+                        where = (
+                            [
+                                str(leg),
+                                format_length(first.sound_path, units),
+                                format_length(first.surface_distance, units),
+                            ]
+                            if angled
+                            else []
+                        )
+                        rows.append(
+                            [
+                                format_length(depth, units),
+                                *where,
+                                pl.name,
+                                label,
+                                *[
+                                    "none"
+                                    if spots[k].width is None
+                                    else format_length(spots[k].width, units)
+                                    for k in keys
+                                ],
+                            ]
+                        )
                         if angled:
-                            prints.append([format_length(depth, units), str(leg), pl.name,
-                                           label, *["none" if spots[k].footprint is None
-                                                    else format_length(spots[k].footprint,
-                                                                       units) for k in keys]])
+                            prints.append(
+                                [
+                                    format_length(depth, units),
+                                    str(leg),
+                                    pl.name,
+                                    label,
+                                    *[
+                                        "none"
+                                        if spots[k].footprint is None
+                                        else format_length(spots[k].footprint, units)
+                                        for k in keys
+                                    ],
+                                ]
+                            )
         out.append(columns([head, *rows]))
         if prints:
             out.append("")
             out.append("Footprint on the horizontal plane at the depth")
-            out.append(columns([["depth", "leg", "plane", "method",
-                                 *[f"{k} dB" for k in keys]], *prints]))
+            out.append(
+                columns([["depth", "leg", "plane", "method", *[f"{k} dB" for k in keys]], *prints])
+            )
         if angled:
             out.append("  far field: 2·(sound path)·tan(half-angle).")
         elif result.near_field_method.startswith("(N_water"):
-            out.append("  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
-                       "in the part)).")
+            out.append(
+                "  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
+                "in the part))."
+            )
         else:
             out.append("  far field: 2·z·tan(half-angle).")
         if inside:
             out.append("  * inside the near field: the far-field width does not hold there.")
         if result.field is not None:
-            out.extend(textwrap.wrap(_field_line(result, units), 98, initial_indent="  ",
-                                     subsequent_indent="  "))
+            out.extend(
+                textwrap.wrap(
+                    _field_line(result, units), 98, initial_indent="  ", subsequent_indent="  "
+                )
+            )
     elif result.field is not None:
         out.append("")
         out.extend(textwrap.wrap(_field_line(result, units), 100))
@@ -248,8 +355,14 @@ def _profile_rows(coordinate, amplitude, units, limit=41):
     rows = []
     for c, a in zip(coordinate[::step], amplitude[::step], strict=True):
         level = 20.0 * np.log10(a / peak) if a > 0 else float("-inf")
-        rows.append([format_length(float(c), units), f"{a:.4g}",
-                     "-inf" if not np.isfinite(level) else f"{level:.1f}", _bar(level)])
+        rows.append(
+            [
+                format_length(float(c), units),
+                f"{a:.4g}",
+                "-inf" if not np.isfinite(level) else f"{level:.1f}",
+                _bar(level),
+            ]
+        )
     return rows, step
 
 
@@ -260,8 +373,9 @@ def _medium_and_probe(probe, wave, units) -> list[str]:
     shim = _Shim()
     shim.probe, shim.wave = probe, wave
     lines = [f"Computed field of a {_probe_line(shim, units)}"]
-    lines.extend(textwrap.wrap(f"Medium: {_medium_line(shim, units)}", 100,
-                               subsequent_indent="        "))
+    lines.extend(
+        textwrap.wrap(f"Medium: {_medium_line(shim, units)}", 100, subsequent_indent="        ")
+    )
     return lines
 
 
@@ -270,19 +384,23 @@ def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units
     out = _medium_and_probe(probe, wave, units)
     out.append(f"Field: {field_description(settings, mode)}")
     out.append("")
-    rows = [["near field (continuous wave)", "none" if near is None
-             else format_length(near, units)],
-            ["near field, simple", format_length(simple, units)],
-            ["last on-axis maximum of this pulse", "none" if axial is None
-             else format_length(axial, units)]]
+    rows = [
+        ["near field (continuous wave)", "none" if near is None else format_length(near, units)],
+        ["near field, simple", format_length(simple, units)],
+        [
+            "last on-axis maximum of this pulse",
+            "none" if axial is None else format_length(axial, units),
+        ],
+    ]
     out.append(columns([["quantity", "value"], *rows]))
     out.append("")
     table, step = _profile_rows(profile.depth, profile.amplitude, units)
     out.append("On-axis amplitude; dB relative to the largest in the profile")
     out.append(columns([["depth", "amplitude", "dB", ""], *table]))
     if step > 1:
-        out.append(f"  every {step}th of {len(profile.depth)} depths shown; "
-                   "--format csv gives them all")
+        out.append(
+            f"  every {step}th of {len(profile.depth)} depths shown; --format csv gives them all"
+        )
     out.append("")
     out.extend(textwrap.wrap(CAUTION, 100))
     return "\n".join(out)
@@ -295,18 +413,23 @@ def across_table(probe, wave, settings, mode, depth, profiles, widths, units="mm
     for profile in profiles:
         out.append("")
         found = ", ".join(
-            f"-{w.level_db:g} dB: " + ("none" if w.width != w.width
-                                       else format_length(w.width, units))
-            for w in widths[profile.plane])
+            f"-{w.level_db:g} dB: "
+            + ("none" if w.width != w.width else format_length(w.width, units))
+            for w in widths[profile.plane]
+        )
         out.append(f"Plane {profile.plane}: full width {found}")
         table, step = _profile_rows(profile.offset, profile.amplitude, units)
         out.append(columns([["offset", "amplitude", "dB", ""], *table]))
         if step > 1:
-            out.append(f"  every {step}th of {len(profile.offset)} offsets shown; "
-                       "--format csv gives them all")
+            out.append(
+                f"  every {step}th of {len(profile.offset)} offsets shown; "
+                "--format csv gives them all"
+            )
     out.append("")
-    out.append("dB relative to the largest amplitude across the beam at this depth; widths "
-               "between the outermost crossings.")
+    out.append(
+        "dB relative to the largest amplitude across the beam at this depth; widths "
+        "between the outermost crossings."
+    )
     out.extend(textwrap.wrap(CAUTION, 100))
     return "\n".join(out)
 
@@ -320,27 +443,51 @@ def design_table(found, wave, units="mm") -> str:
     elif found.solved == "frequency":
         answer = f"frequency {freq}"
     else:
-        answer = (f"side {format_length(found.aperture, units)} (beside the given "
-                  f"{format_length(found.other_side, units)})")
-    rows = [["frequency", freq], ["wavelength", format_length(found.wavelength, units, 3)],
-            ["half-angle", f"{found.half_angle_deg:.2f}°"],
-            ["full angle", f"{found.full_angle_deg:.2f}°"],
-            ["near field", "none" if found.near_field != found.near_field
-             else format_length(found.near_field, units)],
-            ["directivity index", f"{found.directivity_index_db:.2f} dB"]]
+        answer = (
+            f"side {format_length(found.aperture, units)} (beside the given "
+            f"{format_length(found.other_side, units)})"
+        )
+    rows = [
+        ["frequency", freq],
+        ["wavelength", format_length(found.wavelength, units, 3)],
+        ["half-angle", f"{found.half_angle_deg:.2f}°"],
+        ["full angle", f"{found.full_angle_deg:.2f}°"],
+        [
+            "near field",
+            "none"
+            if found.near_field != found.near_field
+            else format_length(found.near_field, units),
+        ],
+        ["directivity index", f"{found.directivity_index_db:.2f} dB"],
+    ]
     if found.other_half_angle_deg is not None:
-        rows.append(["half-angle in the other plane", _angle(
-            None if found.other_half_angle_deg != found.other_half_angle_deg
-            else float(found.other_half_angle_deg))])
+        rows.append(
+            [
+                "half-angle in the other plane",
+                _angle(
+                    None
+                    if found.other_half_angle_deg != found.other_half_angle_deg
+                    else float(found.other_half_angle_deg)
+                ),
+            ]
+        )
     if found.depth == found.depth:
         flag = "" if found.far_field_at_depth else "  (inside the near field: does not hold)"
-        rows.append([f"width at {format_length(found.depth, units)}",
-                     format_length(found.footprint_width, units) + flag])
-    out = [f"Solution: {answer}",
-           f"for -{found.level_db if found.level_db > 0 else -found.level_db:g} dB, "
-           f"{found.mode}, in {wave.medium if wave.medium != 'given' else 'the given medium'} "
-           f"({wave.speed:.1f} m/s)", "",
-           columns([["quantity", "value"], *rows]), ""]
+        rows.append(
+            [
+                f"width at {format_length(found.depth, units)}",
+                format_length(found.footprint_width, units) + flag,
+            ]
+        )
+    out = [
+        f"Solution: {answer}",
+        f"for -{found.level_db if found.level_db > 0 else -found.level_db:g} dB, "
+        f"{found.mode}, in {wave.medium if wave.medium != 'given' else 'the given medium'} "
+        f"({wave.speed:.1f} m/s)",
+        "",
+        columns([["quantity", "value"], *rows]),
+        "",
+    ]
     caution = SONAR_CAUTION if wave.state in ("liquid", "gas") else CAUTION
     out.extend(textwrap.wrap(caution, 100))
     return "\n".join(out)
@@ -356,38 +503,56 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
     lines = []
     if setup.refraction is not None:
         r, w = setup.refraction, extra["wedge"]
-        lines.append(f"Setup: wedge {w['name']} ({w['speed_m_s']:.1f} m/s), wedge path "
-                     f"{format_length(w['path_m'], units)}; incident {deg(r.incident)}; "
-                     f"refracted longitudinal {deg(r.longitudinal)}, shear {deg(r.shear)}; "
-                     f"critical angles {deg(r.first_critical)} and {deg(r.second_critical)}")
-        lines.append(f"       effective aperture in the incidence plane "
-                     f"{format_length(setup.effective_aperture, units)}; near field in the "
-                     f"part {_len_or_none(setup.near_field_in_part, units)}")
+        lines.append(
+            f"Setup: wedge {w['name']} ({w['speed_m_s']:.1f} m/s), wedge path "
+            f"{format_length(w['path_m'], units)}; incident {deg(r.incident)}; "
+            f"refracted longitudinal {deg(r.longitudinal)}, shear {deg(r.shear)}; "
+            f"critical angles {deg(r.first_critical)} and {deg(r.second_critical)}"
+        )
+        lines.append(
+            f"       effective aperture in the incidence plane "
+            f"{format_length(setup.effective_aperture, units)}; near field in the "
+            f"part {_len_or_none(setup.near_field_in_part, units)}"
+        )
     elif setup.setup == "focused":
-        lines.append(f"Setup: a spherically focused disc straight in {setup.beam.wave.medium}, "
-                     "no water path")
+        lines.append(
+            f"Setup: a spherically focused disc straight in {setup.beam.wave.medium}, no water path"
+        )
     else:
         c = extra["couplant"]
-        lines.append(f"Setup: immersion in {c['name']} ({c['speed_m_s']:.1f} m/s), water path "
-                     f"{format_length(c['path_m'], units)}; near field in the part "
-                     f"{_len_or_none(setup.near_field_in_part, units)}"
-                     + ("" if setup.transmission is None else
-                        f"; pressure transmission into the part {setup.transmission:.3f}"))
+        lines.append(
+            f"Setup: immersion in {c['name']} ({c['speed_m_s']:.1f} m/s), water path "
+            f"{format_length(c['path_m'], units)}; near field in the part "
+            f"{_len_or_none(setup.near_field_in_part, units)}"
+            + (
+                ""
+                if setup.transmission is None
+                else f"; pressure transmission into the part {setup.transmission:.3f}"
+            )
+        )
     f = setup.focus
     if f is not None:
-        zone = ("none" if f.zone is None else
-                f"{format_length(f.zone[0], units)} to {format_length(f.zone[1], units)}")
+        zone = (
+            "none"
+            if f.zone is None
+            else f"{format_length(f.zone[0], units)} to {format_length(f.zone[1], units)}"
+        )
         where = "from the face" if setup.setup == "focused" else "in the couplant"
-        lines.append(f"       focus: S = F/N {f.normalised_focal_length:.3f}; on-axis maximum "
-                     f"at {format_length(f.axial_maximum, units)} {where}; focal spot "
-                     f"{format_length(f.spot_width, units)}; zone {zone} (rule of thumb "
-                     f"N·S²·2/(1 + S/2): {format_length(f.zone_rule_of_thumb, units)} long)")
+        lines.append(
+            f"       focus: S = F/N {f.normalised_focal_length:.3f}; on-axis maximum "
+            f"at {format_length(f.axial_maximum, units)} {where}; focal spot "
+            f"{format_length(f.spot_width, units)}; zone {zone} (rule of thumb "
+            f"N·S²·2/(1 + S/2): {format_length(f.zone_rule_of_thumb, units)} long)"
+        )
         if f.focal_depth_in_part is not None:
-            lines.append(f"       focal depth in the part (paraxial) "
-                         f"{format_length(f.focal_depth_in_part, units)}"
-                         + (" - a poor estimate here" if f.paraxial_poor else ""))
-    return [line for text in lines for line in textwrap.wrap(text, 100,
-                                                             subsequent_indent="       ")]
+            lines.append(
+                f"       focal depth in the part (paraxial) "
+                f"{format_length(f.focal_depth_in_part, units)}"
+                + (" - a poor estimate here" if f.paraxial_poor else "")
+            )
+    return [
+        line for text in lines for line in textwrap.wrap(text, 100, subsequent_indent="       ")
+    ]
 
 
 def _len_or_none(value, units):

@@ -35,14 +35,19 @@ def main() -> None:
     numpy_s = median_time([sys.executable, "-c", "import numpy"])
     beam_s = median_time([*tool, *BEAM])
     material_s = median_time([*tool, *BEAM_MATERIAL])
-    print(json.dumps({
-        "runs": RUNS,
-        "import_numpy_s": round(numpy_s, 4),
-        "beam_speed_json_s": round(beam_s, 4),
-        "beam_material_json_s": round(material_s, 4),
-        "ratio": round(beam_s / numpy_s, 2),
-        "ratio_with_material": round(material_s / numpy_s, 2),
-    }, indent=2))
+    print(
+        json.dumps(
+            {
+                "runs": RUNS,
+                "import_numpy_s": round(numpy_s, 4),
+                "beam_speed_json_s": round(beam_s, 4),
+                "beam_material_json_s": round(material_s, 4),
+                "ratio": round(beam_s / numpy_s, 2),
+                "ratio_with_material": round(material_s / numpy_s, 2),
+            },
+            indent=2,
+        )
+    )
 
 
 if __name__ == "__main__":

@@ -49,8 +49,15 @@ GEL = ComputedMedium(
     longitudinal=gel_longitudinal,
     source=f"1610 - 3.1 (T - 20) m/s; {INVENTED}",
     parameters=(
-        Parameter("temperature", "temperature", "degC", default=20.0, valid=(0.0, 40.0),
-                  limits=(-10.0, 60.0), description="gel temperature"),
+        Parameter(
+            "temperature",
+            "temperature",
+            "degC",
+            default=20.0,
+            valid=(0.0, 40.0),
+            limits=(-10.0, 60.0),
+            description="gel temperature",
+        ),
     ),
     density=gel_density,
     density_source=f"1050 kg/m3 at any temperature; {INVENTED}",
