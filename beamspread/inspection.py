@@ -21,8 +21,10 @@ Models and their limits
   ``WP + d * c_part / c_water`` (paraxial; the lateral scale is unchanged),
   which reproduces the near-field relation ``(N_water - WP) c_water / c_part``
   (common practice). It holds for small beam angles in the part.
-* Focus (spherical, discs): O'Neil's on-axis field of a spherical cap, the
-  diffraction focal spot, and the paraxial focal depth in the part.
+* Focus: a disc is focused spherically (O'Neil's exact on-axis field of a
+  spherical cap), a rectangle cylindrically in its length plane (the Fresnel,
+  paraxial, on-axis form, from two half-lengths out); the diffraction focal
+  spot; the paraxial focal depth in the part.
 """
 
 from __future__ import annotations
@@ -74,7 +76,7 @@ class WaterPath:
 
 @dataclass(frozen=True)
 class Focus:
-    """A spherical focus: the focal length in the couplant."""
+    """A focus (spherical for a disc, cylindrical in the length plane for a rectangle)."""
 
     focal_length: float  # m
 
@@ -546,13 +548,9 @@ def _focus(
     mode: str,
     warnings: list[str],
 ) -> FocusResult:
-    if not isinstance(probe, Disc):
-        raise InputError(
-            "--focus: a focus is modelled for discs (a spherical lens) in this "
-            "version, not for rectangles"
-        )
     big_f = float(focus.focal_length)
-    a = 0.5 * probe.diameter
+    disc = isinstance(probe, Disc)
+    a = 0.5 * (probe.diameter if disc else probe.length)  # the focused aperture
     if not math.isfinite(big_f) or big_f <= a:
         raise InputError(
             f"focus: {big_f * 1e3:g} mm is not allowed; a focal length must lie in "
@@ -566,9 +564,21 @@ def _focus(
             f"S = F/N = {s:.2f} is not below 1: focusing does nothing useful, the "
             "beam's narrowest point lies at the near field anyway"
         )
-    z = np.linspace(0.02 * big_f, 3.0 * big_f, 20001)
     power = 2 if mode == "pulse-echo" else 1
-    amp = setups.focused_disc_axial_pressure(z, probe.diameter, big_f, lam) ** power
+    if disc:
+        z = np.linspace(0.02 * big_f, 3.0 * big_f, 20001)
+        amp = setups.focused_disc_axial_pressure(z, probe.diameter, big_f, lam) ** power
+    else:  # cylindrical, in the length plane: the Fresnel form, from 2 half-lengths out
+        z = np.linspace(max(0.02 * big_f, 2.0 * a), 3.0 * big_f, 20001)
+        amp = (
+            setups.focused_rectangle_axial_pressure(z, probe.length, probe.width, big_f, lam)
+            ** power
+        )
+        if a / big_f > 0.3:
+            warnings.append(
+                f"the cylindrical focus is strong (half-length / F = "
+                f"{a / big_f:.2f}): the Fresnel form of its field is rough here"
+            )
     i = int(np.argmax(amp))
     target = amp[i] * 10 ** (-level / 20)
     above = amp >= target
@@ -579,8 +589,8 @@ def _focus(
     while hi < z.size - 1 and above[hi + 1]:
         hi += 1
     zone = None if lo == 0 or hi == z.size - 1 else (float(z[lo]), float(z[hi]))
-    x = float(pattern.pattern_x(level, "disc", mode))
-    spot = setups.focal_spot_width(big_f, lam, probe.diameter, x)
+    x = float(pattern.pattern_x(level, "disc" if disc else "side", mode))
+    spot = setups.focal_spot_width(big_f, lam, 2.0 * a, x)
     rule = n_w * s * s * 2.0 / (1.0 + 0.5 * s)
     wp = water.path
     depth = axial = zone_part = None

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import math
 
+import numpy as np
 import pytest
 import scipy.optimize
 import scipy.special
@@ -260,9 +261,9 @@ def test_focus_after_a_water_path(run):
                 "--water-path",
                 "20mm",
                 "--focus",
-                "50mm",
+                "4mm",
             ),
-            "discs",
+            "focal length",
         ),
         (
             (*PROBE, *STEEL, "--wedge", "acrylic", "--refracted", "45", "--water-path", "10mm"),
@@ -307,3 +308,43 @@ def test_focus_straight_in_the_medium_is_labelled_so(run):
         "--far-field-only",
     )
     assert r.code == 0 and "straight in water" in r.stdout and "immersion" not in r.stdout
+
+
+def test_cylindrical_focus_fresnel_form_tends_to_the_flat_rectangle():
+    # With the focus at infinity the Fresnel form is the paraxial on-axis field of the flat
+    # rectangle: against the exact on-axis integral (checked against scipy dblquad in
+    # test_axis.py), within the Fresnel error, below 0.6 % from 5 half-lengths out.
+    from beamspread.axis import rectangle_axial_pressure
+    from beamspread.setups import focused_rectangle_axial_pressure
+
+    lam = 1482.0 / 5e6
+    z = np.array([0.05, 0.1, 0.2, 0.34, 0.6, 1.0])
+    flat = rectangle_axial_pressure(z, 0.02, 0.01, lam)
+    fresnel = focused_rectangle_axial_pressure(z, 0.02, 0.01, 1e12, lam)
+    assert np.allclose(fresnel, flat, rtol=6e-3)
+
+
+def test_cylindrical_focus_spot(run):
+    data = run(
+        "beam",
+        "--length",
+        "20mm",
+        "--width",
+        "10mm",
+        "--frequency",
+        "5MHz",
+        "--material",
+        "water",
+        "--focus",
+        "60mm",
+        "--far-field-only",
+        "--json",
+    ).json()
+    lam = data["wavelength_m"]
+    # focal-plane pattern sin(u)/u in the focused plane (the Fresnel limit): pulse-echo -6 dB
+    # where (sin u / u)^2 = 1/2 (scipy brentq); width 2 u F lambda / (pi L), about 0.89 F lambda/L
+    u = scipy.optimize.brentq(lambda v: (math.sin(v) / v) ** 2 - 10 ** (-6 / 20), 0.1, 3.0)
+    assert data["focus"]["spot_width_m"] == pytest.approx(2 * u * 0.06 * lam / (math.pi * 0.02))
+    assert (
+        data["focus"]["zone_m"][0] < data["focus"]["axial_maximum_m"] < data["focus"]["zone_m"][1]
+    )

@@ -515,9 +515,12 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
             f"part {_len_or_none(setup.near_field_in_part, units)}"
         )
     elif setup.setup == "focused":
-        lines.append(
-            f"Setup: a spherically focused disc straight in {setup.beam.wave.medium}, no water path"
+        kind = (
+            "a spherically focused disc"
+            if setup.beam.probe.shape == "disc"
+            else "a rectangle focused cylindrically in its length plane"
         )
+        lines.append(f"Setup: {kind} straight in {setup.beam.wave.medium}, no water path")
     else:
         c = extra["couplant"]
         lines.append(
