@@ -282,7 +282,7 @@ def analyse(
                     )
                 )
             if field is not None:
-                spots.extend(_field_spots(probe, wave.speed, depth, level_list, name, mode, field))
+                spots.extend(field_spots(probe, wave.speed, depth, level_list, name, mode, field))
         planes.append(PlaneResult(name, aperture, half_angles, tuple(spots)))
 
     summary = None
@@ -328,13 +328,14 @@ def analyse(
     )
 
 
-def _field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSettings):
+def field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSettings, at=None):
+    """Field spots at ``depth``, computed at range ``at`` (default ``depth``) from the element."""
     from .field import beam_widths
 
     found = beam_widths(
         probe,
         speed,
-        depth,
+        depth if at is None else at,
         levels,
         plane=plane,
         bandwidth=settings.bandwidth,

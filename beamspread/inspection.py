@@ -35,7 +35,16 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from . import pattern, setups
-from .beam import BeamResult, Convention, FieldSettings, PlaneResult, Spot, analyse, level_key
+from .beam import (
+    BeamResult,
+    Convention,
+    FieldSettings,
+    PlaneResult,
+    Spot,
+    analyse,
+    field_spots,
+    level_key,
+)
 from .errors import InputError
 from .media.model import Wave
 from .probes import Disc, Ellipse, Rectangle, check_positive
@@ -464,32 +473,11 @@ def analyse_immersion(
                     )
                 )
             if field is not None and focus is None:
-                from .field import beam_widths
-
-                for w in beam_widths(
-                    probe,
-                    c_w,
-                    equivalent,
-                    level_list,
-                    plane=plane.name,
-                    bandwidth=field.bandwidth,
-                    mode=mode,
-                    frequencies=field.frequencies,
-                    spectrum=field.spectrum,
-                ):
-                    width = None if math.isnan(w.width) else w.width
-                    spots.append(
-                        Spot(
-                            depth,
-                            -w.level_db,
-                            width,
-                            None,
-                            method="field",
-                            sound_path=depth,
-                            surface_distance=0.0,
-                            footprint=width,
-                        )
+                spots.extend(
+                    field_spots(
+                        probe, c_w, depth, level_list, plane.name, mode, field, at=equivalent
                     )
+                )
         planes.append(PlaneResult(plane.name, plane.aperture, half, tuple(spots)))
     direct = wp == 0 and water.speed == c_p  # a focused probe straight in the medium
     transmission = None

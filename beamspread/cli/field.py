@@ -84,6 +84,16 @@ def _near_fields(probe, wavelength):
     return (None if math.isnan(exact) else exact), simple
 
 
+def _check_plane(probe, plane: str) -> str:
+    names = [name for name, _ in probe.planes]
+    if plane not in names:
+        raise click.BadParameter(
+            f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
+            param_hint="--plane",
+        )
+    return plane
+
+
 def _check_range(start, stop, points, what):
     if stop <= start:
         raise click.UsageError(
@@ -307,13 +317,7 @@ def across(
         frequency_count,
         pulse_echo,
     )
-    names = [name for name, _ in probe.planes]
-    if plane is not None and plane not in names:
-        raise click.BadParameter(
-            f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
-            param_hint="--plane",
-        )
-    chosen = [plane] if plane else names
+    chosen = [_check_plane(probe, plane)] if plane else [name for name, _ in probe.planes]
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     _check_validity(warnings, depth, simple)
     wavelength = medium.speed / probe.frequency
@@ -498,13 +502,7 @@ def map_(
         frequency_count,
         pulse_echo,
     )
-    names = [name for name, _ in probe.planes]
-    plane = plane or names[0]
-    if plane not in names:
-        raise click.BadParameter(
-            f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
-            param_hint="--plane",
-        )
+    plane = _check_plane(probe, plane or probe.planes[0][0])
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     start = 0.1 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
