@@ -48,6 +48,7 @@ MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in b
 
 
 def _setup(
+    *,
     diameter,
     length,
     width,
@@ -63,6 +64,7 @@ def _setup(
     frequency_count,
     pulse_echo,
 ):
+    """What the probe, medium and field options of a field command describe."""
     probe = make_probe(diameter, length, width, frequency)
     settings = field_settings(bandwidth, spectrum, frequency_count)
     resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
@@ -140,31 +142,7 @@ def _check_validity(warnings, start, near_simple):
 @setup_file_options
 @output_options
 @pass_output
-def axis(
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
-    start,
-    stop,
-    points,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
-    plot_path,
-    force_plot,
-    setup_path,
-    save_path,
-    fmt,
-    units,
-):
+def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt, units, **common):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -176,22 +154,7 @@ def axis(
     from ..field import axial_profile, last_maximum
 
     check_plot(plot_path, force_plot)
-    probe, settings, medium, mode, warnings = _setup(
-        diameter,
-        length,
-        width,
-        frequency,
-        material,
-        wave,
-        speed,
-        temperature,
-        conditions,
-        materials_dirs,
-        bandwidth,
-        spectrum,
-        frequency_count,
-        pulse_echo,
-    )
+    probe, settings, medium, mode, warnings = _setup(**common)
     near, simple = _near_fields(probe, medium.speed / probe.frequency)
     start = 0.05 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
@@ -268,31 +231,18 @@ def axis(
 @output_options
 @pass_output
 def across(
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
     depth,
     plane,
     span,
     points,
     levels,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
     plot_path,
     force_plot,
     setup_path,
     save_path,
     fmt,
     units,
+    **common,
 ):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
@@ -301,22 +251,7 @@ def across(
     from ..field import beam_widths, transverse_profile
 
     check_plot(plot_path, force_plot)
-    probe, settings, medium, mode, warnings = _setup(
-        diameter,
-        length,
-        width,
-        frequency,
-        material,
-        wave,
-        speed,
-        temperature,
-        conditions,
-        materials_dirs,
-        bandwidth,
-        spectrum,
-        frequency_count,
-        pulse_echo,
-    )
+    probe, settings, medium, mode, warnings = _setup(**common)
     chosen = [_check_plane(probe, plane)] if plane else [name for name, _ in probe.planes]
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     _check_validity(warnings, depth, simple)
@@ -423,26 +358,12 @@ def _write_atomically(path: Path, write) -> None:
 )
 @setup_file_options
 def map_(
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
     plane,
     start,
     stop,
     span,
     depth_points,
     lateral_points,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
     output,
     force,
     as_json,
@@ -450,6 +371,7 @@ def map_(
     units,
     setup_path,
     save_path,
+    **common,
 ):
     """A 2-D map of the computed amplitude in a plane through the axis.
 
@@ -486,22 +408,7 @@ def map_(
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
         )
     check_plot(plot_path, force)
-    probe, settings, medium, mode, warnings = _setup(
-        diameter,
-        length,
-        width,
-        frequency,
-        material,
-        wave,
-        speed,
-        temperature,
-        conditions,
-        materials_dirs,
-        bandwidth,
-        spectrum,
-        frequency_count,
-        pulse_echo,
-    )
+    probe, settings, medium, mode, warnings = _setup(**common)
     plane = _check_plane(probe, plane or probe.planes[0][0])
     _, simple = _near_fields(probe, medium.speed / probe.frequency)
     start = 0.1 * simple if start is None else start
