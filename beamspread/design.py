@@ -164,11 +164,17 @@ def _out(array):
     return array
 
 
-def _refuse(impossible: np.ndarray, message: str, on_impossible: str) -> None:
+def _check_on_impossible(on_impossible: str) -> None:
     if on_impossible not in ("raise", "nan"):
         raise InputError(f"on_impossible {on_impossible!r} is unknown; use 'raise' or 'nan'")
-    if on_impossible == "raise" and np.any(impossible):
-        raise InputError(message)
+
+
+def _inside_near_field(kind: str, depth: np.ndarray, near: np.ndarray) -> np.ndarray:
+    """Where a spot target's depth lies inside its own solution's near field."""
+    if kind != "spot":
+        return np.zeros(near.shape, dtype=bool)
+    with np.errstate(invalid="ignore"):
+        return np.isfinite(near) & (depth < near)
 
 
 def _mm(metres: float) -> str:
@@ -317,6 +323,7 @@ def size_disc(
     """
     level = parse_level(level_db, "level")
     mode = _mode(mode)
+    _check_on_impossible(on_impossible)
     frequency = _positive(frequency, "frequency", "Hz")
     speed = _positive(speed, "speed", "m/s")
     theta, depth, kind = _target(half_angle_deg, full_angle_deg, spot, depth)
@@ -327,21 +334,15 @@ def size_disc(
     )
     diameter = x * wavelength / (np.pi * np.sin(theta))
     near = axis.disc_near_field(diameter, wavelength)
-    impossible = np.zeros(diameter.shape, dtype=bool)
-    if kind == "spot":
-        with np.errstate(invalid="ignore"):
-            impossible = np.isfinite(near) & (depth < near)
-        if on_impossible == "raise" and np.any(impossible):
-            i = np.flatnonzero(impossible)[0]
-            z = depth.flat[i]
-            smallest = smallest_spot(frequency.flat[i], speed.flat[i], z, level_db=level, mode=mode)
-            solution = f"the disc that gives it ({_mm(diameter.flat[i])})"
-            _refuse(
-                impossible,
-                _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest),
-                on_impossible,
-            )
-    _refuse(impossible, "", on_impossible)
+    impossible = _inside_near_field(kind, depth, near)
+    if on_impossible == "raise" and np.any(impossible):
+        i = np.flatnonzero(impossible)[0]
+        z = depth.flat[i]
+        smallest = smallest_spot(frequency.flat[i], speed.flat[i], z, level_db=level, mode=mode)
+        solution = f"the disc that gives it ({_mm(diameter.flat[i])})"
+        raise InputError(
+            _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest)
+        )
     return _finish(
         "disc",
         "diameter",
@@ -385,6 +386,7 @@ def size_frequency(
     """
     level = parse_level(level_db, "level")
     mode = _mode(mode)
+    _check_on_impossible(on_impossible)
     diameter = _positive(diameter, "diameter", "m")
     speed = _positive(speed, "speed", "m/s")
     theta, depth, kind = _target(half_angle_deg, full_angle_deg, spot, depth)
@@ -393,29 +395,20 @@ def size_frequency(
     wavelength = np.pi * diameter * np.sin(theta) / x
     frequency = speed / wavelength
     near = axis.disc_near_field(diameter, wavelength)
-    impossible = np.zeros(diameter.shape, dtype=bool)
-    if kind == "spot":
-        with np.errstate(invalid="ignore"):
-            impossible = np.isfinite(near) & (depth < near)
-        if on_impossible == "raise" and np.any(impossible):
-            i = np.flatnonzero(impossible)[0]
-            d, z = diameter.flat[i], depth.flat[i]
-            lam = -2.0 * z + np.sqrt(4.0 * z * z + d * d)  # the wavelength whose N is z
-            s = x * lam / (np.pi * d)
-            smallest = 2.0 * z * np.tan(np.arcsin(s)) if s < 1 else np.nan
-            solution = (
-                f"a {_mm(d)} disc at the frequency that gives it "
-                f"({frequency.flat[i] / 1e6:.4g} MHz)"
-            )
-            message = _spot_message(
-                z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest
-            )
-            _refuse(
-                impossible,
-                message + (" with this diameter" if np.isfinite(smallest) else ""),
-                on_impossible,
-            )
-    _refuse(impossible, "", on_impossible)
+    impossible = _inside_near_field(kind, depth, near)
+    if on_impossible == "raise" and np.any(impossible):
+        i = np.flatnonzero(impossible)[0]
+        d, z = diameter.flat[i], depth.flat[i]
+        lam = -2.0 * z + np.sqrt(4.0 * z * z + d * d)  # the wavelength whose N is z
+        s = x * lam / (np.pi * d)
+        smallest = 2.0 * z * np.tan(np.arcsin(s)) if s < 1 else np.nan
+        solution = (
+            f"a {_mm(d)} disc at the frequency that gives it ({frequency.flat[i] / 1e6:.4g} MHz)"
+        )
+        message = _spot_message(
+            z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest
+        )
+        raise InputError(message + (" with this diameter" if np.isfinite(smallest) else ""))
     return _finish(
         "disc",
         "frequency",
@@ -467,6 +460,7 @@ def size_rectangle_side(
     """
     level = parse_level(level_db, "level")
     mode = _mode(mode)
+    _check_on_impossible(on_impossible)
     frequency = _positive(frequency, "frequency", "Hz")
     speed = _positive(speed, "speed", "m/s")
     other = _positive(other_side, "other side", "m")
@@ -483,20 +477,14 @@ def size_rectangle_side(
     for i in np.ndindex(side.shape):
         near[i] = axis.rectangle_near_field(side[i], other[i], wavelength[i])
         di[i] = sonar.directivity_index(Rectangle(side[i], other[i], frequency[i]), wavelength[i])
-    impossible = np.zeros(side.shape, dtype=bool)
-    if kind == "spot":
-        with np.errstate(invalid="ignore"):
-            impossible = np.isfinite(near) & (depth < near)
-        if on_impossible == "raise" and np.any(impossible):
-            i = np.flatnonzero(impossible)[0]
-            z = depth.flat[i]
-            solution = f"the {_mm(side.flat[i])} by {_mm(other.flat[i])} rectangle that gives it"
-            _refuse(
-                impossible,
-                _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], np.nan),
-                on_impossible,
-            )
-    _refuse(impossible, "", on_impossible)
+    impossible = _inside_near_field(kind, depth, near)
+    if on_impossible == "raise" and np.any(impossible):
+        i = np.flatnonzero(impossible)[0]
+        z = depth.flat[i]
+        solution = f"the {_mm(side.flat[i])} by {_mm(other.flat[i])} rectangle that gives it"
+        raise InputError(
+            _spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], np.nan)
+        )
     return _finish(
         "rectangle",
         "side",

@@ -113,6 +113,25 @@ def _along(plane: str, offset: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     return (zero, offset) if plane == "width" else (offset, zero)
 
 
+def _across(
+    probe, speed, depth, plane, offsets, bandwidth, mode, frequencies, spectrum, single=False
+) -> np.ndarray:
+    """The amplitude at ``offsets`` (m) across the beam in ``plane``, at one depth."""
+    x, y = _along(plane, np.atleast_1d(np.asarray(offsets, dtype=float)))
+    return _grid_amplitude(
+        probe,
+        speed,
+        x,
+        y,
+        [depth],
+        bandwidth=bandwidth,
+        mode=mode,
+        frequencies=frequencies,
+        spectrum=spectrum,
+        single=single,
+    )[0]
+
+
 def _options(speed, bandwidth, mode):
     speed = check_positive(speed, "speed", "m/s")
     return speed, check_bandwidth(bandwidth), check_mode(mode)
@@ -242,19 +261,7 @@ def transverse_profile(
     plane = _plane(probe, plane)
     depth = check_positive(depth, "depth", "m")
     offset = np.atleast_1d(np.asarray(offset, dtype=float))
-    x, y = _along(plane, offset)
-    amp = _grid_amplitude(
-        probe,
-        speed,
-        x,
-        y,
-        [depth],
-        bandwidth=bandwidth,
-        mode=mode,
-        frequencies=frequencies,
-        spectrum=spectrum,
-        single=False,
-    )[0]
+    amp = _across(probe, speed, depth, plane, offset, bandwidth, mode, frequencies, spectrum)
     return TransverseProfile(plane, depth, offset, amp, mode, bandwidth)
 
 
@@ -341,19 +348,9 @@ def beam_widths(
     spacing = 0.25 * min(math.sqrt(wavelength * depth), wavelength * depth / aperture)
 
     def amplitude(offsets, single=False):
-        x, y = _along(plane, np.atleast_1d(np.asarray(offsets, dtype=float)))
-        return _grid_amplitude(
-            probe,
-            speed,
-            x,
-            y,
-            [depth],
-            bandwidth=bandwidth,
-            mode=mode,
-            frequencies=frequencies,
-            spectrum=spectrum,
-            single=single,
-        )[0]
+        return _across(
+            probe, speed, depth, plane, offsets, bandwidth, mode, frequencies, spectrum, single
+        )
 
     widths = {}
     extent = max(aperture, 8.0 * wavelength * depth / aperture)
