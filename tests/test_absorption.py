@@ -1,9 +1,8 @@
 """Absorption in seawater, fresh water and air against published forms, tables and limits.
 
-Francois & Garrison (1982) give a table of check values (their Table IV); we could not read
-it, so the seawater equation is checked against the independent simplified form of Ainslie &
-McColm (1998) with the agreement those authors state (about 10 %), and against the pure-water
-coefficient of Francois & Garrison's paper (from memory).
+The seawater equation is checked against the check table of Francois & Garrison (1982), Part II,
+Table IV, and against the independent simplified form of Ainslie & McColm (1998) with the
+agreement those authors state (about 10 %).
 """
 
 from __future__ import annotations
@@ -15,6 +14,62 @@ from beamspread import InputError, build_registry
 from beamspread import absorption as ab
 
 FREQUENCIES = np.geomspace(100.0, 1e6, 41)  # Ainslie & McColm's stated band, 100 Hz to 1 MHz
+
+
+# Francois & Garrison (1982), J. Acoust. Soc. Am. 72, 1879 (Part II), Table IV: total absorption
+# in dB/km at the surface (z = 0) and pH 8. 21 points spanning 0.4 kHz to 1 MHz, -1.8 to 30 degC
+# and both tabulated salinities. We did not see the printed page: the values are as transcribed
+# from it in the public test suite of jmrplens/phonometry
+# (tests/underwater/test_underwater_propagation.py), which says they were read from the printed
+# table. Rows: (f kHz, T degC, S, alpha dB/km as printed, so its last digit is kept).
+_FG_TABLE_IV = [
+    (0.4, 10.0, 30.0, "0.015"),
+    (2.0, 10.0, 35.0, "0.123"),
+    (10.0, 30.0, 35.0, "0.606"),
+    (10.0, -1.8, 35.0, "1.36"),
+    (14.0, 20.0, 35.0, "1.29"),
+    (20.0, -1.8, 35.0, "4.40"),
+    (20.0, 10.0, 35.0, "3.35"),
+    (40.0, 4.0, 35.0, "11.5"),
+    (50.0, 20.0, 35.0, "13.0"),
+    (60.0, -1.8, 30.0, "13.6"),
+    (80.0, 16.0, 35.0, "28.6"),
+    (100.0, 0.0, 30.0, "21.0"),
+    (100.0, 10.0, 35.0, "33.6"),
+    (140.0, 25.0, 35.0, "58.4"),
+    (200.0, 0.0, 35.0, "40.6"),
+    (200.0, 30.0, 30.0, "79.3"),
+    (300.0, 10.0, 35.0, "73.1"),
+    (500.0, 10.0, 35.0, "125"),
+    (700.0, 4.0, 35.0, "228"),
+    (1000.0, 0.0, 30.0, "513"),
+    (1000.0, 30.0, 35.0, "344"),
+]
+
+
+def _half_unit_of_last_digit(printed: str) -> float:
+    """Half a unit in the last printed digit: "0.015" -> 0.0005, "13.6" -> 0.05, "228" -> 0.5."""
+    decimals = len(printed.partition(".")[2])
+    return 0.5 * 10.0**-decimals
+
+
+@pytest.mark.parametrize(("f_khz", "t", "s", "printed"), _FG_TABLE_IV)
+def test_francois_garrison_against_their_table_iv(f_khz, t, s, printed):
+    ours = float(ab.francois_garrison(f_khz * 1e3, t, s, 0.0, 8.0))
+    # Always within the print's own rounding; and within the 1 % the issue asks for wherever
+    # the print has three figures (the two-figure 0.015 is itself rounded by up to 3.3 %).
+    assert abs(ours - float(printed)) <= _half_unit_of_last_digit(printed)
+    if float(printed) >= 0.1:
+        assert ours == pytest.approx(float(printed), rel=0.01)
+
+
+def test_table_iv_pins_the_boric_acid_coefficient():
+    # Francois & Garrison's boric acid A1 = 8.86/c x 10^(0.78 pH - 5) (Part II). A copy with
+    # 8.68 circulates; at 2 kHz, 10 degC (boric acid dominant) it would miss Table IV's 0.123 by
+    # more than the print's rounding, so the row above tells the two apart.
+    boric, magnesium, water = ab.francois_garrison_terms(2e3, 10.0, 35.0, 0.0, 8.0)
+    transposed = float(boric) * 8.68 / 8.86 + float(magnesium + water)
+    assert abs(transposed - 0.123) > _half_unit_of_last_digit("0.123")
 
 
 def _within_ten_percent(**conditions):
