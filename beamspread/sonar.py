@@ -597,24 +597,27 @@ def echo_budget(
     -------
     EchoBudget
         Source level :math:`SL = 170.8 + 10\\log_{10}P + 10\\log_{10}\\eta + DI`
-        (dB re 1 uPa at 1 m, the common sonar-equation form), two-way spherical
-        spreading :math:`40\\log_{10}R`, two-way absorption :math:`2\\alpha R`,
-        the bottom loss, and the received level, dB re 1 uPa.
+        (dB re 1 uPa at 1 m, the common sonar-equation form), spherical spreading
+        over the two-way path :math:`20\\log_{10}(2R)`, two-way absorption
+        :math:`2\\alpha R`, the bottom loss, and the received level, dB re 1 uPa.
 
     Notes
     -----
-    The 40 log10 R spreading is the point-target form of the sonar equation
-    that hobby budgets use. A large flat bottom reflects like a mirror, whose
-    image source at 2R gives 20 log10(2R) instead (Urick, the bottom echo;
-    from memory): the budget here is the more pessimistic of the two beyond
-    4 m, and it labels which law it used.
+    A flat bottom reflects like a mirror: the echo is the field of the image
+    source, 2R away, times the reflection coefficient (method of images), so
+    the spreading is :math:`20\\log_{10}(2R)` and the bottom enters as its
+    reflection loss :math:`-20\\log_{10}|V|`. This holds for a smooth bottom
+    that is flat over the beam's footprint; a rough bottom scatters, and
+    returns less than this to the transducer. The point-target form
+    :math:`40\\log_{10}R` belongs with a target strength, not with a
+    reflection loss, and is not used here.
 
     Examples
     --------
     >>> b = echo_budget(power=100, efficiency=0.5, directivity_index_db=20,
     ...                 range_m=100, absorption_db_per_km=50, bottom_loss_db=15)
     >>> [round(t.value_db, 1) for t in b.terms]
-    [207.8, 80.0, 10.0, 15.0, 102.8]
+    [207.8, 46.0, 10.0, 15.0, 136.8]
     """
     range_m = check_positive(range_m, "range", "m")
     if range_m < 1.0:
@@ -626,7 +629,7 @@ def echo_budget(
         if not math.isfinite(value) or value < 0:
             raise InputError(f"{name}: {value!r} dB is not allowed; give 0 or more")
     sl = float(source_level(power, efficiency, directivity_index_db, constant))
-    spreading = 40.0 * math.log10(range_m)
+    spreading = 20.0 * math.log10(2.0 * range_m)
     absorption = 2.0 * absorption_db_per_km * range_m / 1e3
     received = sl - spreading - absorption - bottom_loss_db
     return EchoBudget(
@@ -637,11 +640,11 @@ def echo_budget(
             f"{constant:g} + 10 log10(P) + 10 log10(eta) + DI",
             "dB re 1 uPa at 1 m",
         ),
-        spreading_loss=Term("two-way spreading loss", spreading, "40 log10(R / 1 m)"),
+        spreading_loss=Term("two-way spreading loss", spreading, "20 log10(2R / 1 m)"),
         absorption_loss=Term("two-way absorption loss", absorption, "2 alpha R"),
         bottom_loss=Term("bottom reflection loss", float(bottom_loss_db), "given"),
         received_level=Term(
-            "received echo level", received, "SL - 40 log10 R - 2 alpha R - BL", "dB re 1 uPa"
+            "received echo level", received, "SL - 20 log10 2R - 2 alpha R - BL", "dB re 1 uPa"
         ),
     )
 

@@ -79,8 +79,8 @@ def test_echo_budget_terms(run):
     terms = {t["name"]: t["value_db"] for t in data["echo_budget"][0]["terms"]}
     z = data["medium"]["impedance_rayl"]
     # SL = 10 log10(rho c 1e12 / 4 pi) + 10 log10 P + 10 log10 eta + DI (170.8 dB for
-    # rho c = 1.5 MRayl: the common sonar-equation form), two-way spreading 40 log10 R,
-    # absorption 2 alpha R.
+    # rho c = 1.5 MRayl: the common sonar-equation form); spreading to the image source of a
+    # flat bottom at 2R, 20 log10 2R (method of images; from memory); absorption 2 alpha R.
     sl = (
         10 * math.log10(z * 1e12 / (4 * math.pi))
         + 10 * math.log10(100)
@@ -88,12 +88,12 @@ def test_echo_budget_terms(run):
         + data["directivity_index_db"]
     )
     assert terms["source level"] == pytest.approx(sl)
-    assert terms["two-way spreading loss"] == pytest.approx(40 * math.log10(20))
+    assert terms["two-way spreading loss"] == pytest.approx(20 * math.log10(40))
     assert terms["two-way absorption loss"] == pytest.approx(
         2 * data["absorption_db_per_km"] * 0.020
     )
     assert terms["received echo level"] == pytest.approx(
-        sl - 40 * math.log10(20) - terms["two-way absorption loss"] - 12
+        sl - 20 * math.log10(40) - terms["two-way absorption loss"] - 12
     )
 
 

@@ -259,8 +259,10 @@ def test_source_level_constant():
 
 
 def test_echo_budget_terms():
-    # The sonar equation term by term (common sonar-equation form): SL = 170.8 + 10 log P +
-    # 10 log eta + DI; two-way spreading 40 log R; two-way absorption 2 alpha R.
+    # The sonar equation term by term: SL = 170.8 + 10 log P + 10 log eta + DI (the common
+    # sonar-equation form); a flat bottom as a mirror, so spherical spreading to the image source
+    # at 2R, 20 log 2R (method of images, Kinsler & Frey, reflection at a plane boundary; from
+    # memory); two-way absorption 2 alpha R.
     budget = sonar.echo_budget(
         power=250.0,
         efficiency=0.4,
@@ -271,10 +273,10 @@ def test_echo_budget_terms():
     )
     sl = 170.8 + 10 * math.log10(250.0) + 10 * math.log10(0.4) + 18.0
     assert budget.source_level.value_db == pytest.approx(sl)
-    assert budget.spreading_loss.value_db == pytest.approx(40 * math.log10(60.0))
+    assert budget.spreading_loss.value_db == pytest.approx(20 * math.log10(120.0))
     assert budget.absorption_loss.value_db == pytest.approx(2 * 40.0 * 0.060)
     assert budget.received_level.value_db == pytest.approx(
-        sl - 40 * math.log10(60.0) - 2 * 40.0 * 0.060 - 12.0
+        sl - 20 * math.log10(120.0) - 2 * 40.0 * 0.060 - 12.0
     )
     assert [t.name for t in budget.terms] == [
         "source level",

@@ -229,7 +229,7 @@ def beam_table(
             out.append("  * inside the near field: the far-field cone does not hold there.")
     if budgets:
         out.append("")
-        out.append("Echo budget of the bottom (sonar equation, point-target form)")
+        out.append("Echo budget of a flat, smooth bottom (sonar equation; the bottom as a mirror)")
         for budget in budgets:
             out.append(f"  range {format_length(budget.range_m, units)}")
             out.append(
