@@ -157,11 +157,14 @@ def rectangle_near_field(length: float, width: float, wavelength: float) -> floa
     Examples
     --------
     A square's last maximum lies about 1.37 times beyond ``L**2/(4 lambda)``
-    (common practice):
+    (common practice) where the side is many wavelengths; like the disc's
+    :math:`(D^2 - \\lambda^2)/4\\lambda` it falls short of that as the side shrinks:
 
-    >>> lam = 0.001184
-    >>> round(rectangle_near_field(0.01, 0.01, lam) / (0.01**2 / (4 * lam)), 2)
+    >>> side = 0.01
+    >>> for lam in (1e-5, 0.001184):
+    ...     print(round(rectangle_near_field(side, side, lam) / (side**2 / (4 * lam)), 2))
     1.37
+    1.35
     """
     longer = max(length, width)
     scale = float(simple_near_field(longer, wavelength))
