@@ -126,6 +126,7 @@ def test_csv_rows(run):
     assert {row["level"] for row in rows} == {"-6", "-20", "null"}
     assert {row["method"] for row in rows if row["depth_m"]} == {"far-field", "field"}
     assert float(rows[0]["wavelength_m"]) == pytest.approx(1.184e-3)
+    assert float(rows[0]["full_angle_deg"]) == pytest.approx(2 * float(rows[0]["half_angle_deg"]))
 
 
 def test_table_output_states_its_convention(run):

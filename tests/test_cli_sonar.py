@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import csv
+import io
 import math
 
 import pytest
@@ -151,6 +153,34 @@ def test_size_spot_round_trips(run):
         "--json",
     ).json()
     assert data["planes"][0]["spots"][0]["width_m"] == pytest.approx(0.006, rel=1e-9)
+
+
+def test_sonar_csv_keeps_full_angles_and_footprints(run):
+    r = run(*SOUNDER, "--sonar", "--bottom-depth", "10m:30m:10m", "--format", "csv")
+    assert r.code == 0
+    rows = list(csv.DictReader(io.StringIO(r.stdout)))
+    prints = [row for row in rows if row["method"] == "bottom footprint"]
+    assert len(prints) == 3 * 2  # three depths at -3 and -10 dB
+    for row in rows:
+        if row["half_angle_deg"]:
+            assert float(row["full_angle_deg"]) == pytest.approx(2 * float(row["half_angle_deg"]))
+    for row in prints:
+        # footprint on a flat bottom: 2 D tan(half-angle) (geometry)
+        half = math.radians(float(row["half_angle_deg"]))
+        assert float(row["width_m"]) == pytest.approx(2 * float(row["depth_m"]) * math.tan(half))
+    # what CSV cannot hold is named on stderr, not dropped silently
+    assert "echo budget" in r.stderr and "JSON" in r.stderr
+
+
+def test_size_csv_and_json_agree(run):
+    args = ("size", "--frequency", "200kHz", *SEA, "--full-angle", "20")
+    data = run(*args, "--json").json()
+    (row,) = csv.DictReader(io.StringIO(run(*args, "--format", "csv").stdout))
+    assert float(row["diameter_m"]) == data["diameter_m"]
+    assert row["mode"] == "one-way" and float(row["level_db"]) == -3.0
+    # without --at there is no depth, so nothing is said of the far field there
+    assert data["depth_m"] is None and data["far_field_at_depth"] is None
+    assert row["far_field_at_depth"] == ""
 
 
 @pytest.mark.parametrize(

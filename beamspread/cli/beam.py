@@ -318,7 +318,13 @@ def beam(
     elif fmt == "csv":
         from ..report.serialize import beam_to_csv
 
-        click.echo(beam_to_csv(result), nl=False)
+        if figures is not None:
+            click.echo(
+                "beamspread: the CSV holds the angles, widths and footprints; the directivity "
+                "index, absorption, side lobes and echo budget are in the table and JSON forms",
+                err=True,
+            )
+        click.echo(beam_to_csv(result, figures.footprints if figures else ()), nl=False)
     else:
         from ..report.text import beam_table
 

@@ -148,6 +148,10 @@ def size(
         from ..report.serialize import design_to_dict, dumps
 
         click.echo(dumps(design_to_dict(found, resolved.wave, warnings)))
+    elif fmt == "csv":
+        from ..report.serialize import design_to_csv
+
+        click.echo(design_to_csv(found, resolved.wave), nl=False)
     else:
         from ..report.text import design_table
 

@@ -19,6 +19,7 @@ from ..probes import Disc
 __all__ = [
     "beam_to_csv",
     "beam_to_dict",
+    "design_to_csv",
     "dumps",
     "field_settings_to_dict",
     "sonar_to_dict",
@@ -166,6 +167,7 @@ CSV_COLUMNS = (
     "sound_path_m",
     "surface_distance_m",
     "footprint_m",
+    "full_angle_deg",
 )
 
 
@@ -179,40 +181,60 @@ def _cell(value: Any) -> Any:
     return value
 
 
-def beam_to_csv(result: BeamResult) -> str:
+def beam_to_csv(result: BeamResult, footprints=()) -> str:
     """CSV of a beam result: one row per plane, level and depth (SI units).
 
     The first-null row and, without depths, every level row leave the depth
-    columns empty.
+    columns empty. Each footprint on a flat bottom (see
+    :func:`beamspread.sonar.sonar_figures`) adds a row whose method is
+    "bottom footprint", its depth the water depth.
     """
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
     writer.writerow(CSV_COLUMNS)
     common = (result.convention.mode, result.wavelength, result.near_field)
     for plane in result.planes:
-        spots = {}
+        rows: dict[str, list] = {}
         for spot in plane.spots:
-            spots.setdefault(f"-{abs(spot.level_db):g}", []).append(spot)
+            rows.setdefault(f"-{abs(spot.level_db):g}", []).append(
+                (
+                    spot.depth,
+                    spot.width,
+                    spot.far_field_valid,
+                    spot.method,
+                    spot.leg,
+                    spot.sound_path,
+                    spot.surface_distance,
+                    spot.footprint,
+                )
+            )
+        for f in footprints:
+            if f.plane == plane.name:
+                rows.setdefault(f"-{abs(f.level_db):g}", []).append(
+                    # a straight beam: the sound path is the depth, the footprint the width
+                    (f.depth, f.width, not f.inside_near_field, "bottom footprint", 1)
+                    + (f.depth, 0.0, f.width)
+                )
         for key, angle in plane.half_angles.items():
             head = (*common, plane.name, plane.aperture, key, angle)
-            rows = spots.get(key) or [None]
-            for spot in rows:
-                tail = (
-                    ("",) * 8
-                    if spot is None
-                    else (
-                        spot.depth,
-                        spot.width,
-                        spot.far_field_valid,
-                        spot.method,
-                        spot.leg,
-                        spot.sound_path,
-                        spot.surface_distance,
-                        spot.footprint,
-                    )
-                )
-                writer.writerow([_cell(v) for v in (*head, *tail)])
+            full = None if angle is None else 2.0 * angle
+            for tail in rows.get(key) or [(None,) * 8]:
+                writer.writerow([_cell(v) for v in (*head, *tail, full)])
     return buffer.getvalue()
+
+
+def design_to_csv(found, wave) -> str:
+    """CSV of ``beamspread size``: a header and one row (SI units, named as the JSON keys)."""
+    data = design_to_dict(found, wave, [])
+    row = {
+        "medium": wave.medium,
+        "wave": wave.wave,
+        "speed_m_s": wave.speed,
+        "mode": found.mode,
+        "level_db": found.level_db,
+        **{k: v for k, v in data.items() if k not in ("medium", "convention", "warnings")},
+    }
+    return _csv(tuple(row), [tuple(row.values())])
 
 
 def probe_to_dict(probe) -> dict[str, Any]:
@@ -479,7 +501,9 @@ def design_to_dict(found, wave, warnings) -> dict[str, Any]:
             "directivity_index_db": float(found.directivity_index_db),
             "depth_m": float(found.depth),
             "footprint_m": float(found.footprint_width),
-            "far_field_at_depth": bool(found.far_field_at_depth),
+            "far_field_at_depth": (
+                bool(found.far_field_at_depth) if found.depth == found.depth else None
+            ),
             "warnings": list(warnings),
         }
     )
