@@ -182,7 +182,7 @@ def parse_quantity(
             raise InputError(
                 f"{label}: {text!r} is not a number with a unit; "
                 f"allowed units: {k.units or 'none'}"
-                + (f" (bare numbers are {k.default})" if k.default else "")
+                + (f" (bare numbers are {default or k.default})" if default or k.default else "")
             )
         number = float(m.group(1))
         unit = m.group(2)

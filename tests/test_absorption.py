@@ -185,6 +185,8 @@ def test_absorption_conditions_are_checked():
         sea.absorption_db_per_km(200e3, {"ph": 12.0})
     result = sea.evaluate_absorption(200e3, {"ph": 7.5})
     assert any("ph 7.5 lies outside" in w and "absorption" in w for w in result.warnings)
+    # the absorption warns of its own conditions; the speed does not repeat it
+    assert sea.evaluate("longitudinal", {"ph": 7.5}).warnings == ()
     outside = sea.evaluate_absorption(5e6)
     assert any("frequency" in w for w in outside.warnings)
     with pytest.raises(InputError):

@@ -47,7 +47,8 @@ def _angle(text: str, name: str) -> float:
     "depth",
     type=LENGTH,
     default=None,
-    help="Depth of --spot (or of the footprint reported with an angle target).",
+    help="Depth of --spot (or of the footprint reported with an angle target); bare "
+    "numbers in mm, so write 30m for a water depth.",
 )
 @click.option(
     "--level",
@@ -104,7 +105,8 @@ def size(
         raise click.UsageError("--spot needs --at DEPTH")
     if (frequency is None) == (diameter is None):
         raise click.UsageError(
-            "give --frequency (to solve the size) or --diameter (to solve the frequency), not both"
+            "give --frequency (to solve the size) or --diameter (to solve the frequency)"
+            + (", not both" if frequency is not None else "")
         )
     if other_side is not None and frequency is None:
         raise click.UsageError("--other-side (a rectangle) needs --frequency")

@@ -152,7 +152,7 @@ class Parameter:
         if not vlo <= value <= vhi:
             return [
                 f"{self.name} {value:g}{unit} lies outside the range {vlo:g} to "
-                f"{vhi:g}{unit} that the {medium} equation was fitted to; "
+                f"{vhi:g}{unit} that the {medium} {quantity} equation was fitted to; "
                 f"the {quantity} is an extrapolation"
             ]
         return []
@@ -402,9 +402,10 @@ class ComputedMedium:
                 notes.extend(warned)
         for p in self.absorption_parameters:
             v = float(conditions.get(p.name, p.default))
-            notes.extend(p.check(v, self.name, "absorption"))
+            warned = p.check(v, self.name, "absorption")  # refuses beyond the limits
             if p in parameters:
                 values[p.name] = v
+                notes.extend(warned)
         return values, notes
 
     def evaluate_absorption(

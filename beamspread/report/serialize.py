@@ -210,10 +210,10 @@ def beam_to_csv(result: BeamResult, footprints=()) -> str:
             )
         for f in footprints:
             if f.plane == plane.name:
+                # a straight beam down: the sound path is the depth, the footprint the width
+                valid = not f.inside_near_field
                 rows.setdefault(f"-{abs(f.level_db):g}", []).append(
-                    # a straight beam: the sound path is the depth, the footprint the width
-                    (f.depth, f.width, not f.inside_near_field, "bottom footprint", 1)
-                    + (f.depth, 0.0, f.width)
+                    (f.depth, f.width, valid, "bottom footprint", 1, f.depth, 0.0, f.width)
                 )
         for key, angle in plane.half_angles.items():
             head = (*common, plane.name, plane.aperture, key, angle)
