@@ -93,6 +93,22 @@ def test_unesco_medium_takes_pressure_or_depth_not_both():
     )
 
 
+@pytest.mark.parametrize("name", ["seawater-unesco", "seawater-del-grosso"])
+def test_pressure_media_show_the_pressure_and_depth_they_used(name):
+    # A result never shows a depth of 0 beside a pressure of 1000 dbar: whichever is given, the
+    # other is shown as converted. Reference: gsw.p_from_z (TEOS-10); Saunders (1981) agrees
+    # with it within 0.3 dbar at 1000 m and 45 degrees (see the tests above).
+    medium = build_registry().get(name).medium
+    shown = medium.evaluate("longitudinal", {"depth": 1000.0}).conditions
+    assert shown["depth"] == 1000.0
+    assert shown["pressure"] == pytest.approx(float(gsw.p_from_z(-1000.0, 45.0)), abs=0.3)
+    shown = medium.evaluate("longitudinal", {"pressure": 1000.0}).conditions
+    assert shown["pressure"] == 1000.0
+    assert float(gsw.p_from_z(-shown["depth"], 45.0)) == pytest.approx(1000.0, abs=0.3)
+    absorbed = medium.evaluate_absorption(50e3, {"pressure": 1000.0}).conditions
+    assert absorbed["depth"] == pytest.approx(shown["depth"])
+
+
 def test_seawater_default_is_mackenzie_and_unesco_refuses_outside_limits():
     registry = build_registry()
     assert registry.get("seawater").name == "seawater-mackenzie"

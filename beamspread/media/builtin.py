@@ -163,6 +163,17 @@ def _sea_pressure(pressure, depth, latitude, medium="seawater-unesco"):
     return pressure
 
 
+def _pressure_and_depth(medium):
+    """The sea pressure and depth a pressure-based medium works with, whichever was given."""
+
+    def derived(temperature, salinity, pressure, depth, latitude):
+        p = _sea_pressure(pressure, depth, latitude, medium)
+        z = depth if depth > 0.0 else float(eq.depth_from_pressure_saunders(p, latitude))
+        return {"pressure": p, "depth": z}
+
+    return derived
+
+
 def _unesco_speed(temperature, salinity, pressure, depth, latitude):
     return eq.seawater_unesco(temperature, salinity, _sea_pressure(pressure, depth, latitude))
 
@@ -264,6 +275,7 @@ MEDIA = (
         category="liquid",
         description="seawater by temperature, salinity and pressure (or depth)",
         absorption=_pressure_absorption("seawater-unesco"),
+        derived=_pressure_and_depth("seawater-unesco"),
         absorption_source=ab.FRANCOIS_GARRISON,
         absorption_parameters=(_PH,),
         absorption_frequency=_SEA_ABSORPTION_BAND,
@@ -282,6 +294,7 @@ MEDIA = (
         category="liquid",
         description="seawater by temperature, salinity and pressure (or depth)",
         absorption=_pressure_absorption("seawater-del-grosso"),
+        derived=_pressure_and_depth("seawater-del-grosso"),
         absorption_source=ab.FRANCOIS_GARRISON,
         absorption_parameters=(_PH,),
         absorption_frequency=_SEA_ABSORPTION_BAND,

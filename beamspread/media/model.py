@@ -331,6 +331,11 @@ class ComputedMedium:
     absorption_frequency : (float, float), optional
         The frequencies (Hz) the absorption equation was fitted to: outside,
         a warning.
+    derived : callable, optional
+        ``f(**conditions) -> {name: value}``: conditions the medium works out
+        from the others (the sea pressure from a depth, say), called as the
+        speed is; results show these values in place of the defaults, so a
+        record never shows a depth of 0 beside a pressure of 1000 dbar.
 
     Examples
     --------
@@ -357,6 +362,7 @@ class ComputedMedium:
     absorption_source: str | None = None
     absorption_parameters: tuple[Parameter, ...] = ()
     absorption_frequency: tuple[float, float] | None = None
+    derived: Callable[..., Mapping[str, float]] | None = None
 
     kind = "computed"
 
@@ -408,6 +414,13 @@ class ComputedMedium:
                 notes.extend(warned)
         return values, notes
 
+    def _shown(self, values: dict[str, float]) -> dict[str, float]:
+        """The conditions as results show them: the given ones and what they imply."""
+        if self.derived is None:
+            return values
+        speed_values = {p.name: values[p.name] for p in self.parameters}
+        return {**values, **{k: float(v) for k, v in self.derived(**speed_values).items()}}
+
     def evaluate_absorption(
         self, frequency: float, conditions: Mapping[str, float] | None = None
     ) -> Absorption | None:
@@ -452,7 +465,7 @@ class ComputedMedium:
             frequency=frequency,
             db_per_km=alpha,
             source=self.absorption_source or "",
-            conditions=values,
+            conditions=self._shown(values),
             condition_units={p.name: p.unit for p in every},
             warnings=tuple(notes),
         )
@@ -494,7 +507,7 @@ class ComputedMedium:
             speed=speed,
             source=self.source,
             state=self.state,
-            conditions=values,
+            conditions=self._shown(values),
             condition_units={p.name: p.unit for p in self.parameters},
             density=density,
             warnings=tuple(notes),
