@@ -336,7 +336,7 @@ class SideLobe:
     """The first side lobe in one plane."""
 
     plane: str
-    level_db: float  # negative, in the mode below
+    level_db: float | None  # negative, in the mode below; None where there is no lobe
     mode: str
     angle_deg: float | None  # from the axis; None where it would lie beyond 90 degrees
 
@@ -350,15 +350,17 @@ def first_side_lobe(
 ) -> SideLobe:
     """Level and angle of the first side lobe of an aperture.
 
-    The angle is None where the lobe would lie beyond 90 degrees (an
-    aperture of fewer than about 1.6 wavelengths for a disc, 1.4 for a side).
+    Where the lobe would lie beyond 90 degrees (an aperture of fewer than
+    about 1.6 wavelengths for a disc, 1.4 for a side) the element radiates
+    no side lobe: the angle and the level are None.
     """
     aperture = check_positive(aperture, "aperture", "m")
     wavelength = check_positive(wavelength, "wavelength", "m")
     x, _ = _side_lobe_x(shape)
     s = x * wavelength / (np.pi * aperture)
-    angle = math.degrees(math.asin(s)) if s <= 1.0 else None
-    return SideLobe(plane, side_lobe_level(shape, mode), mode, angle)
+    if s > 1.0:
+        return SideLobe(plane, None, mode, None)
+    return SideLobe(plane, side_lobe_level(shape, mode), mode, math.degrees(math.asin(s)))
 
 
 # ----------------------------------------------------------------- equivalent beam angle

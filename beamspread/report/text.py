@@ -83,10 +83,11 @@ def _sonar_lines(di, absorption, figures, units) -> list[str]:
             ]
         )
         for lobe in figures.side_lobes:
-            where = "" if lobe.angle_deg is None else f" at {lobe.angle_deg:.1f}°"
-            rows.append(
-                [f"first side lobe, {lobe.plane}", f"{lobe.level_db:.2f} dB", f"{lobe.mode}{where}"]
-            )
+            if lobe.level_db is None:
+                level, how = "none", "the aperture is too small to have one (it would lie past 90°)"
+            else:
+                level, how = f"{lobe.level_db:.2f} dB", f"{lobe.mode} at {lobe.angle_deg:.1f}°"
+            rows.append([f"first side lobe, {lobe.plane}", level, how])
         rows.append(
             [
                 "equivalent two-way beam angle",
