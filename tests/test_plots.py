@@ -232,3 +232,15 @@ def test_matplotlib_is_not_imported_by_the_module_alone():
         [sys.executable, "-c", code], capture_output=True, text=True, check=True
     ).stdout.strip()
     assert out == "False"
+
+
+@pytest.mark.parametrize(("near_field", "drawn"), [(0.5, True), (0.019, False)])
+def test_footprint_near_field_is_hatched_or_named(near_field, drawn):
+    # The near field is a hatched band where it can be seen (never the tint of the cone), and
+    # named in the legend as too thin to draw where it is under 1 % of the depth shown.
+    fig = plots.footprint_figure([10.0, 30.0], {3: [3.1, 9.3]}, near_field=near_field)
+    ax = fig.axes[0]
+    texts = [t.get_text() for t in ax.get_legend().get_texts()]
+    (entry,) = [t for t in texts if t.startswith("near field")]
+    assert ("too thin" in entry) is not drawn
+    assert any(p.get_hatch() == "///" for p in ax.patches) is drawn

@@ -1296,14 +1296,20 @@ def footprint_figure(
         raise InputError("footprint: no level has a width at any depth; nothing to draw")
     top = depth[-1] * s
     if near_field is not None and math.isfinite(near_field) and near_field > 0:
-        ax.axhspan(
-            0.0,
-            min(near_field * s, top * 1.05),
-            color="0.5",
-            alpha=0.12,
-            lw=0,
-            label=f"near field {_length(near_field, units)} (cone not valid)",
-        )
+        text = f"near field {_length(near_field, units)} (cone not valid there)"
+        if near_field * s >= 0.01 * top:
+            # hatched, so it cannot be mistaken for the tint inside the first cone
+            ax.axhspan(
+                0.0,
+                min(near_field * s, top * 1.05),
+                facecolor="none",
+                edgecolor="0.45",
+                hatch="///",
+                lw=0,
+                label=text,
+            )
+        else:  # too thin to see at this scale: say so instead of drawing a hairline
+            ax.plot([], [], ls="none", label=f"{text}: too thin to draw here")
     ax.plot([0, 0], [0, top], color="0.4", lw=0.8, ls="-.", label="beam axis")
     ax.set_xlim(-0.8 * widest * s, 0.8 * widest * s)
     ax.set_ylim(top * 1.05, 0.0)
