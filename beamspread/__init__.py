@@ -10,6 +10,9 @@ medium, and call :func:`analyse`::
     20.8
 """
 
+from importlib import import_module
+from typing import TYPE_CHECKING
+
 from .axis import (
     disc_axial_pressure,
     disc_near_field,
@@ -58,6 +61,29 @@ from .media import (
 from .pattern import directivity, first_null, half_angle, level_amplitude, pattern_x
 from .probes import Disc, Rectangle
 
+if TYPE_CHECKING:
+    from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
+    from .design import Design, size_disc, size_frequency, size_rectangle_side, smallest_spot
+    from .inspection import (
+        Focus,
+        SetupResult,
+        WaterPath,
+        Wedge,
+        analyse_immersion,
+        analyse_wedge,
+    )
+    from .scan import ScanPlan, plan_scan
+    from .setups import critical_angles, refract
+    from .sonar import (
+        EchoBudget,
+        SonarFigures,
+        directivity_index,
+        echo_budget,
+        equivalent_beam_angle,
+        footprint_width,
+        sonar_figures,
+    )
+
 __version__ = "0.1.0"
 
 __all__ = [
@@ -68,11 +94,14 @@ __all__ = [
     "ComputedMedium",
     "Convention",
     "Curve",
+    "Design",
     "Disc",
+    "EchoBudget",
     "Entry",
     "FieldMap",
     "FieldSettings",
     "FieldSummary",
+    "Focus",
     "InputError",
     "Material",
     "MaterialError",
@@ -81,23 +110,39 @@ __all__ = [
     "PluginError",
     "Rectangle",
     "Registry",
+    "ScanPlan",
+    "SetupResult",
+    "SonarFigures",
     "Spot",
     "TableError",
     "TransverseProfile",
     "Value",
+    "WaterPath",
     "Wave",
+    "Wedge",
     "__version__",
+    "ainslie_mccolm",
+    "air_iso9613",
     "analyse",
+    "analyse_immersion",
+    "analyse_wedge",
     "axial_profile",
     "beam_width",
     "beam_widths",
     "build_registry",
+    "critical_angles",
     "directivity",
+    "directivity_index",
     "disc_axial_pressure",
     "disc_near_field",
+    "echo_budget",
+    "equivalent_beam_angle",
     "field_amplitude",
     "field_map",
     "first_null",
+    "footprint_width",
+    "francois_garrison",
+    "fresh_water",
     "half_angle",
     "hookimpl",
     "last_maximum",
@@ -106,8 +151,58 @@ __all__ = [
     "load_table",
     "parse_table",
     "pattern_x",
+    "plan_scan",
     "rectangle_axial_pressure",
     "rectangle_near_field",
+    "refract",
     "simple_near_field",
+    "size_disc",
+    "size_frequency",
+    "size_rectangle_side",
+    "smallest_spot",
+    "sonar_figures",
     "transverse_profile",
 ]
+
+# The later tools' headline names load on first use, so that `import beamspread` (and with it
+# the command line's start-up) does not pay for modules a command may never touch.
+_LAZY = {
+    "ainslie_mccolm": "absorption",
+    "air_iso9613": "absorption",
+    "francois_garrison": "absorption",
+    "fresh_water": "absorption",
+    "Design": "design",
+    "size_disc": "design",
+    "size_frequency": "design",
+    "size_rectangle_side": "design",
+    "smallest_spot": "design",
+    "Focus": "inspection",
+    "SetupResult": "inspection",
+    "WaterPath": "inspection",
+    "Wedge": "inspection",
+    "analyse_immersion": "inspection",
+    "analyse_wedge": "inspection",
+    "ScanPlan": "scan",
+    "plan_scan": "scan",
+    "critical_angles": "setups",
+    "refract": "setups",
+    "EchoBudget": "sonar",
+    "SonarFigures": "sonar",
+    "directivity_index": "sonar",
+    "echo_budget": "sonar",
+    "equivalent_beam_angle": "sonar",
+    "footprint_width": "sonar",
+    "sonar_figures": "sonar",
+}
+
+
+def __getattr__(name: str):
+    if name in _LAZY:
+        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
+        globals()[name] = value
+        return value
+    raise AttributeError(f"module 'beamspread' has no attribute {name!r}")
+
+
+def __dir__() -> list[str]:
+    return sorted({*globals(), *_LAZY})

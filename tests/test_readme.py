@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import doctest
 import math
 import re
 import shlex
@@ -54,3 +55,14 @@ def test_readme_sonar_footprint_follows_the_cone(run):
     width = 2 * 30.0 * math.tan(math.radians(half))
     assert data["footprints"][0]["width_m"] == pytest.approx(width)
     assert f"{width:.2f} m" in README.read_text(encoding="utf-8")
+
+
+@pytest.mark.skipif(not README.exists(), reason="README.md is not beside the tests")
+def test_readme_python_examples_run():
+    text = README.read_text(encoding="utf-8")
+    blocks = re.findall(r"```pycon\n(.*?)```", text, flags=re.S)
+    assert blocks, "the README shows the Python API"
+    parser, runner = doctest.DocTestParser(), doctest.DocTestRunner()
+    for i, block in enumerate(blocks):
+        runner.run(parser.get_doctest(block, {}, f"README block {i}", str(README), 0))
+    assert runner.failures == 0
