@@ -84,6 +84,7 @@ __all__ = [
 
 SONAR_MODE = "one-way"
 SONAR_LEVELS = (3.0,)
+SONAR_BANDWIDTH = 0.1  # a resonant sonar transducer's -6 dB fractional bandwidth (common practice)
 SONAR_LEVELS_SHOWN = (3.0, 10.0)  # what --sonar shows by default: -3 dB, and -10 dB beside it
 """The sonar trade's default: the one-way -3 dB beam, quoted as a full angle."""
 

@@ -155,6 +155,15 @@ def test_size_spot_round_trips(run):
     assert data["planes"][0]["spots"][0]["width_m"] == pytest.approx(0.006, rel=1e-9)
 
 
+def test_sonar_computes_the_field_of_a_narrow_band_transducer(run):
+    # Resonant sonar transducers are narrow-band, about 0.1 fractional bandwidth (common
+    # practice): --sonar takes that as the default; a given --bandwidth still wins.
+    data = run(*SOUNDER, "--sonar", "--depth", "100mm", "--json").json()
+    assert data["field"]["bandwidth"] == 0.1
+    data = run(*SOUNDER, "--sonar", "--depth", "100mm", "--bandwidth", "0.3", "--json").json()
+    assert data["field"]["bandwidth"] == 0.3
+
+
 def test_sonar_csv_keeps_full_angles_and_footprints(run):
     r = run(*SOUNDER, "--sonar", "--bottom-depth", "10m:30m:10m", "--format", "csv")
     assert r.code == 0
@@ -198,6 +207,8 @@ def test_size_csv_and_json_agree(run):
         ((*SOUNDER, "--bottom-depth", "30m:10m:5m"), "stop"),
         ((*SOUNDER, "--bottom-depth", "-5m"), "--bottom-depth"),
         ((*SOUNDER, "--power", "100"), "--bottom-depth"),
+        ((*SOUNDER, "--sonar", "--efficiency", "0.3"), "--power"),
+        ((*SOUNDER, "--bottom-depth", "20m", "--bottom-loss", "6"), "--power"),
         ((*SOUNDER, "--condition", "salinity=80"), "salinity"),
         ((*SOUNDER, "--condition", "ph=12"), "ph"),
     ],

@@ -217,10 +217,17 @@ def beam(
           --temperature 12 --condition depth=30m --one-way --level 3
     """
     from ..beam import DEFAULT_LEVELS, analyse
-    from ..sonar import SONAR_LEVELS_SHOWN, SONAR_MODE, directivity_index
+    from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE, directivity_index
 
     probe = make_probe(diameter, length, width, frequency)
     depths = [d for group in depth_groups for d in group]
+    if sonar and not _given("bandwidth"):
+        bandwidth = SONAR_BANDWIDTH
+    if power is None and (_given("efficiency") or _given("bottom_loss")):
+        raise click.UsageError(
+            "--efficiency and --bottom-loss belong to the echo budget: give --power "
+            "and --bottom-depth too"
+        )
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
     check_plot(plot_path, force_plot)
     on_wedge = wedge is not None or wedge_speed is not None

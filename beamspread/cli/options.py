@@ -96,7 +96,7 @@ def field_options(f=None, *, sonar: bool = False):
         help="-6 dB fractional bandwidth of the pulse-echo spectrum, as measured "
         "on a small reflector in the far field; 0 is a continuous wave. The "
         "default 0.5 is a typical broadband contact probe (such probes lie near "
-        "0.4-0.8; sonar transducers are narrow, about 0.1).",
+        "0.4-0.8); with --sonar it is 0.1, as sonar transducers are narrow.",
     )(f)
     return f
 
