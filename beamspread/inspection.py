@@ -120,12 +120,15 @@ class SetupResult:
     virtual: Disc | Rectangle | Ellipse | None = None  # the element as the part sees it
     offset: float = 0.0  # m: how far the virtual element sits behind the exit point
 
-    def edges(self, path_length: float, field: FieldSettings | None, *, samples: int = 24):
+    def edges(self, path_length: float, field: FieldSettings | None, *, samples: int = 24, at=()):
         """The beam's full width in the incidence plane along the sound path, per level.
 
         Returns ``{level_db: (sound_paths, widths)}``, m: from the computed field
         of the virtual element when ``field`` is given, else the far-field cone
-        leaving the exit point at the element's effective aperture.
+        ``2 s tan(half-angle)`` from the exit point, the same widths the beam's
+        far-field rows give (and, like them, not valid inside the near field).
+        The sound paths in ``at`` (m) are sampled too, so a footprint read there
+        is computed, not interpolated.
         """
         if self.virtual is None:
             raise InputError("the beam's edges along the path need a wedge setup")
@@ -134,18 +137,18 @@ class SetupResult:
         paths = np.linspace(0.0, path_length, samples)
         out = {}
         if field is None:
-            start = self.virtual.planes[0][1]
             half = beam.planes[0].half_angles
             for level in beam.levels:
                 angle = half[level_key(level)]
                 if angle is not None:
-                    widths = start + 2.0 * paths * math.tan(math.radians(angle))
+                    widths = 2.0 * paths * math.tan(math.radians(angle))
                     out[level] = (tuple(paths), tuple(widths))
             return out
         from .field import beam_widths
 
         first = max(0.05 * (beam.near_field or beam.near_field_simple or path_length), 1e-4)
-        paths = np.linspace(first, path_length, samples)
+        extra = [float(s) for s in at if first < s < path_length]
+        paths = np.unique(np.concatenate([np.linspace(first, path_length, samples), extra]))
         table = {level: [] for level in beam.levels}
         for s in paths:
             for w in beam_widths(

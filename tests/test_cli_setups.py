@@ -77,6 +77,24 @@ def test_wedge_legs_sound_paths_and_surface_distances(run):
     )
 
 
+def test_section_and_beam_give_the_same_far_field_footprint(run):
+    # One technique, one answer: the far-field cone's edges leave the exit point at
+    # beta -+ theta and cross the depth d at d tan(beta -+ theta) (geometry), in both commands.
+    wedge = ("--wedge", "acrylic", "--refracted", "60", "--wedge-path", "12mm")
+    where = ("--thickness", "25mm", "--depth", "15mm", "--far-field-only", "--json")
+    beam = run("beam", *PROBE, *STEEL, *wedge, *where).json()
+    section = run("section", *PROBE, *STEEL, *wedge, *where).json()
+    spots = {
+        (s["leg"], s["level_db"]): s["footprint_m"]
+        for s in beam["planes"][0]["spots"]
+        if s["method"] == "far-field"
+    }
+    drawn = {(f["leg"], f["level_db"]): f["footprint_m"] for f in section["footprints"]}
+    assert drawn.keys() == spots.keys()
+    for key, width in drawn.items():
+        assert width == pytest.approx(spots[key], rel=1e-9)
+
+
 def test_normal_incidence_wedge_is_the_contact_beam(run):
     # The first tool's contact result in the limit of a normal-incidence wedge with no path.
     common = (

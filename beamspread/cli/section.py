@@ -30,9 +30,10 @@ def section_geometry(result, thickness, depth, settings, wedge_path):
 
     beta = result.refraction.refracted(result.beam.wave.wave)
     length = 2 * thickness / math.cos(beta) * 1.4  # past the second leg's return to the surface
+    at = () if depth is None else (depth / math.cos(beta), (2 * thickness - depth) / math.cos(beta))
     edges = tuple(
         BeamEdge(level, paths, widths)
-        for level, (paths, widths) in result.edges(length, settings).items()
+        for level, (paths, widths) in result.edges(length, settings, at=at).items()
     )
     return SectionGeometry(thickness, beta, 0.0, edges, depth, 2, result.beam.wave.wave)
 
@@ -203,6 +204,6 @@ def section(
             )
         click.echo(
             f"Footprint at the flaw depth {format_length(depth, units)} (positions along "
-            "the surface from the exit point):"
+            "the surface from the exit point, where the drawn edges cross the depth):"
         )
         click.echo(columns(table))

@@ -317,7 +317,15 @@ def beam_table(
                 columns([["depth", "leg", "plane", "method", *[f"{k} dB" for k in keys]], *prints])
             )
         if angled:
-            out.append("  far field: 2·(sound path)·tan(half-angle).")
+            out.append(
+                "  far field: across the axis 2·(sound path)·tan(half-angle); footprint in the "
+                "incidence plane\n  where the cone's edges from the exit point cross the depth."
+            )
+            if result.field is not None:
+                out.append(
+                    "  computed field: footprint in the incidence plane = width across the axis "
+                    "/ cos(refracted angle)."
+                )
         elif result.near_field_method.startswith("(N_water"):
             out.append(
                 "  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
