@@ -284,17 +284,25 @@ def parse_level(value: object, what: str | None = None) -> float:
     return level
 
 
-def format_length(metres: float, units: str = "mm", digits: int = 2) -> str:
+def format_length(
+    metres: float, units: str = "mm", digits: int = 2, like: float | None = None
+) -> str:
     """Format a length in metres for display in ``"mm"`` or ``"in"`` (large values in m or ft).
+
+    ``like`` (m) chooses the unit instead of the value itself, so that a column of a table
+    keeps one unit: pass the column's largest value.
 
     >>> format_length(0.0254, "in"), format_length(30.0), format_length(0.0123)
     ('1.000 in', '30.00 m', '12.30 mm')
+    >>> format_length(0.929, like=1.24)
+    '0.93 m'
     """
+    scale = abs(metres if like is None else like)
     if units == "in":
         inches = metres / _INCH
-        if abs(inches) >= 120:
+        if scale / _INCH >= 120:
             return f"{inches / 12:.{digits}f} ft"
         return f"{inches:.{digits + 1}f} in"
-    if abs(metres) >= 1.0:
+    if scale >= 1.0:
         return f"{metres:.{digits}f} m"
     return f"{metres * 1e3:.{digits}f} mm"

@@ -205,6 +205,8 @@ def beam_table(
         out.append(f"Footprint on a flat bottom: 2·depth·tan(half-angle), {mode}")
         head = ["water depth", "plane", *[f"{k} dB" for k in keys]]
         rows = []
+        deepest = max(f.depth for f in figures.footprints)
+        widest = max((f.width for f in figures.footprints if f.width is not None), default=None)
         for depth in sorted({f.depth for f in figures.footprints}):
             for pl in result.planes:
                 prints = {
@@ -215,12 +217,12 @@ def beam_table(
                 flag = " *" if prints[keys[0]].inside_near_field else ""
                 rows.append(
                     [
-                        format_length(depth, units) + flag,
+                        format_length(depth, units, like=deepest) + flag,
                         pl.name,
                         *[
                             "none"
                             if prints[k].width is None
-                            else format_length(prints[k].width, units)
+                            else format_length(prints[k].width, units, like=widest)
                             for k in keys
                         ],
                     ]
@@ -256,6 +258,17 @@ def beam_table(
         rows, prints = [], []
         inside = False
         legs = sorted({s.leg for pl in result.planes for s in pl.spots})
+        spots_all = [s for pl in result.planes for s in pl.spots]
+
+        def largest(values):
+            return max((v for v in values if v is not None), default=None)
+
+        # one unit per column: each column's lengths are shown in the unit of its largest
+        deepest = largest(result.depths)
+        longest = largest(s.sound_path for s in spots_all)
+        farthest = largest(s.surface_distance for s in spots_all)
+        widest = largest(s.width for s in spots_all)
+        widest_print = largest(s.footprint for s in spots_all)
         for depth in result.depths:
             for leg in legs:
                 for pl in result.planes:
@@ -274,22 +287,22 @@ def beam_table(
                         where = (
                             [
                                 str(leg),
-                                format_length(first.sound_path, units),
-                                format_length(first.surface_distance, units),
+                                format_length(first.sound_path, units, like=longest),
+                                format_length(first.surface_distance, units, like=farthest),
                             ]
                             if angled
                             else []
                         )
                         rows.append(
                             [
-                                format_length(depth, units),
+                                format_length(depth, units, like=deepest),
                                 *where,
                                 pl.name,
                                 label,
                                 *[
                                     "none"
                                     if spots[k].width is None
-                                    else format_length(spots[k].width, units)
+                                    else format_length(spots[k].width, units, like=widest)
                                     for k in keys
                                 ],
                             ]
@@ -297,14 +310,16 @@ def beam_table(
                         if angled:
                             prints.append(
                                 [
-                                    format_length(depth, units),
+                                    format_length(depth, units, like=deepest),
                                     str(leg),
                                     pl.name,
                                     label,
                                     *[
                                         "none"
                                         if spots[k].footprint is None
-                                        else format_length(spots[k].footprint, units)
+                                        else format_length(
+                                            spots[k].footprint, units, like=widest_print
+                                        )
                                         for k in keys
                                     ],
                                 ]
