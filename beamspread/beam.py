@@ -122,7 +122,7 @@ class BeamResult:
     levels: tuple[float, ...]
     wavelength: float
     near_field: float | None
-    near_field_simple: float
+    near_field_simple: float | None  # None where the part lies wholly in the far field
     near_field_method: str
     near_field_factor: float | None
     planes: tuple[PlaneResult, ...]

@@ -508,7 +508,7 @@ def analyse_immersion(
         levels=level_list,
         wavelength=c_p / f,
         near_field=near,
-        near_field_simple=simple_part or 0.0,
+        near_field_simple=simple_part,
         near_field_method=method,
         near_field_factor=None,
         planes=tuple(planes),

@@ -366,3 +366,13 @@ def test_cylindrical_focus_spot(run):
     assert (
         data["focus"]["zone_m"][0] < data["focus"]["axial_maximum_m"] < data["focus"]["zone_m"][1]
     )
+
+
+def test_part_wholly_in_the_far_field_has_no_simple_near_field_either(run):
+    # (N_water - WP) c_w / c_p (common practice) is negative past N_water: no near field in
+    # the part by either formula, shown as none rather than 0.00 mm.
+    args = ("beam", "--diameter", "10mm", "--frequency", "5MHz", *STEEL, "--water-path", "100mm")
+    data = run(*args, "--far-field-only", "--json").json()
+    assert data["near_field_m"] is None and data["near_field_simple_m"] is None
+    table = run(*args, "--far-field-only").stdout
+    assert "0.00 mm" not in table

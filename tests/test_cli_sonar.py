@@ -218,3 +218,16 @@ def test_sonar_bad_input(run, args, needle):
     assert r.code == 2, (r.stdout, r.stderr)
     lines = r.stderr.strip().splitlines()
     assert len(lines) == 1 and needle in lines[0]
+
+
+def test_water_results_carry_the_underwater_caution_and_state_their_conditions(run):
+    # The caution that fits the medium (the project's rule for results that can hurt): a
+    # transducer in seawater gets the underwater one even without --sonar.
+    beam = run(*SOUNDER, "--far-field-only")
+    assert "marine life" in beam.stdout and "certified personnel" not in beam.stdout
+    size = run("size", "--frequency", "200kHz", *SEA, "--full-angle", "20")
+    assert "temperature 12 degC" in size.stdout and "salinity 34 g/kg" in size.stdout
+    # without a depth there is no width table, so no note explaining one
+    pulse = run(*SOUNDER)
+    assert "Last on-axis maximum of the pulse" in pulse.stdout
+    assert "width between the outermost crossings" not in pulse.stdout

@@ -40,8 +40,7 @@ def _speed(speed: float, units: str) -> str:
     return f"{speed:.1f} m/s" if speed < 1e4 else f"{speed:.0f} m/s"
 
 
-def _probe_line(result: BeamResult, units: str) -> str:
-    p = result.probe
+def _probe_line(p, units: str) -> str:
     f = p.frequency
     freq = f"{f / 1e6:g} MHz" if f >= 1e6 else f"{f / 1e3:g} kHz"
     if isinstance(p, Disc):
@@ -52,8 +51,8 @@ def _probe_line(result: BeamResult, units: str) -> str:
     )
 
 
-def _medium_line(result: BeamResult, units: str) -> str:
-    w = result.wave
+def _wave_line(w, units: str) -> str:
+    """The medium, its conditions, the wave and its speed, with the speed's source."""
     if w.medium == "given":
         return f"speed given by the user, {_speed(w.speed, units)}, {w.wave} wave"
     name = w.medium
@@ -112,10 +111,17 @@ def field_description(settings, mode: str) -> str:
 
 def _field_line(result: BeamResult, units: str) -> str:
     f = result.field
+    pulse = field_description(f.settings, result.convention.mode)
+    if not result.depths:  # no widths to explain: only the pulse's own near field
+        if f.axial_maximum is None:
+            return ""
+        return (
+            f"Last on-axis maximum of the pulse (computed field: {pulse}): "
+            f"{format_length(f.axial_maximum, units)}."
+        )
     text = (
-        f"computed field: {field_description(f.settings, result.convention.mode)}; "
-        "width between the outermost crossings of the level below the maximum across "
-        "the beam at that depth"
+        f"computed field: {pulse}; width between the outermost crossings of the level below "
+        "the maximum across the beam at that depth"
     )
     if f.axial_maximum is not None:
         text += f"; last on-axis maximum of this pulse at {format_length(f.axial_maximum, units)}"
@@ -133,11 +139,7 @@ def beam_table(
     sonar: bool = False,
 ) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given)."""
-    out: list[str] = []
-    out.append(f"Beam of a {_probe_line(result, units)}")
-    out.extend(
-        textwrap.wrap(f"Medium: {_medium_line(result, units)}", 100, subsequent_indent="        ")
-    )
+    out: list[str] = _medium_and_probe(result.probe, result.wave, units, "Beam of a")
     out.append("")
     near = result.near_field
     contact = result.near_field_method.startswith("last on-axis maximum, exact") or (
@@ -156,7 +158,13 @@ def beam_table(
     rows = [
         ["wavelength", format_length(result.wavelength, units, 3), ""],
         ["near field", "none" if near is None else format_length(near, units), method],
-        ["near field, simple", format_length(result.near_field_simple, units), simple_label],
+        [
+            "near field, simple",
+            "none"
+            if result.near_field_simple is None
+            else format_length(result.near_field_simple, units),
+            simple_label,
+        ],
     ]
     if result.near_field_factor is not None:
         rows.append(
@@ -356,11 +364,14 @@ def beam_table(
                     _field_line(result, units), 98, initial_indent="  ", subsequent_indent="  "
                 )
             )
-    elif result.field is not None:
+    elif result.field is not None and _field_line(result, units):
         out.append("")
         out.extend(textwrap.wrap(_field_line(result, units), 100))
     out.append("")
-    out.extend(textwrap.wrap(SONAR_CAUTION if sonar or figures else CAUTION, 100))
+    in_water_or_air = result.wave.state in ("liquid", "gas")
+    out.extend(
+        textwrap.wrap(SONAR_CAUTION if sonar or figures or in_water_or_air else CAUTION, 100)
+    )
     return "\n".join(out)
 
 
@@ -390,15 +401,10 @@ def _profile_rows(coordinate, amplitude, units, limit=41):
     return rows, step
 
 
-def _medium_and_probe(probe, wave, units) -> list[str]:
-    class _Shim:  # the line helpers read these attributes of a result
-        pass
-
-    shim = _Shim()
-    shim.probe, shim.wave = probe, wave
-    lines = [f"Computed field of a {_probe_line(shim, units)}"]
+def _medium_and_probe(probe, wave, units, lead: str = "Computed field of a") -> list[str]:
+    lines = [f"{lead} {_probe_line(probe, units)}"]
     lines.extend(
-        textwrap.wrap(f"Medium: {_medium_line(shim, units)}", 100, subsequent_indent="        ")
+        textwrap.wrap(f"Medium: {_wave_line(wave, units)}", 100, subsequent_indent="        ")
     )
     return lines
 
@@ -505,9 +511,8 @@ def design_table(found, wave, units="mm") -> str:
         )
     out = [
         f"Solution: {answer}",
-        f"for -{found.level_db if found.level_db > 0 else -found.level_db:g} dB, "
-        f"{found.mode}, in {wave.medium if wave.medium != 'given' else 'the given medium'} "
-        f"({wave.speed:.1f} m/s)",
+        f"for -{found.level_db if found.level_db > 0 else -found.level_db:g} dB, {found.mode}",
+        *textwrap.wrap(f"Medium: {_wave_line(wave, units)}", 100, subsequent_indent="        "),
         "",
         columns([["quantity", "value"], *rows]),
         "",
