@@ -4,10 +4,12 @@ Continuous wave and broadband, one-way and pulse-echo, by the Fast Nearfield
 Method (see :mod:`beamspread.field.engine`), and what follows from it: the
 on-axis profile and its last maximum, transverse profiles, beam widths at any
 level and depth, and maps in a plane through the axis
-(:mod:`beamspread.field.profiles`). numpy only.
+(:mod:`beamspread.field.profiles`); the paraxial field of a focused element and
+its widths (:mod:`beamspread.field.focused`). numpy only.
 """
 
 from .engine import MAX_POINTS, MODES, field_amplitude, pressure
+from .focused import focused_amplitude, focused_beam_widths, focused_pressure
 from .profiles import (
     AxialProfile,
     BeamWidth,
@@ -37,6 +39,9 @@ __all__ = [
     "beam_widths",
     "field_amplitude",
     "field_map",
+    "focused_amplitude",
+    "focused_beam_widths",
+    "focused_pressure",
     "gaussian_spectrum",
     "last_maximum",
     "make_spectrum",
