@@ -24,7 +24,13 @@ Models and their limits
 * Focus: a disc is focused spherically (O'Neil's exact on-axis field of a
   spherical cap), a rectangle cylindrically in its length plane (the Fresnel,
   paraxial, on-axis form, from two half-lengths out); the diffraction focal
-  spot; the paraxial focal depth in the part.
+  spot; the paraxial focal depth in the part. The widths at depth come from
+  the paraxial (Fresnel) field of the focused element
+  (:mod:`beamspread.field.focused`) at the same equivalent water path
+  ``WP + d * c_part / c_water``, which is where the paraxial focal depth
+  ``(F - WP) c_water / c_part`` comes from too. A focused probe has no
+  far-field width: the flat element's cone does not describe a converging
+  beam, so none is given.
 """
 
 from __future__ import annotations
@@ -437,6 +443,10 @@ def analyse_immersion(
         )
     level_list = in_water.levels
     depth_list = tuple(dict.fromkeys(check_positive(d, "depth", "m") for d in depths))
+    focus_result = None
+    if focus is not None:
+        focus_result = _focus(probe, focus, in_water, water, c_p, level_list[0], mode, warnings)
+        warnings.extend(_focused_field_warnings(probe, focus, wp, c_w, c_p, depth_list, field))
     planes = []
     for plane in in_water.planes:
         half = {}
@@ -455,6 +465,22 @@ def analyse_immersion(
         spots = []
         for depth in depth_list:
             equivalent = wp + depth * c_p / c_w
+            if focus is not None:  # no far-field row: the flat element's cone does not converge
+                if field is not None:
+                    spots.extend(
+                        _focused_spots(
+                            probe,
+                            c_w,
+                            focus,
+                            depth,
+                            equivalent,
+                            level_list,
+                            plane.name,
+                            mode,
+                            field,
+                        )
+                    )
+                continue
             valid = n_w is None or equivalent >= n_w
             for lv in level_list:
                 key = level_key(lv)
@@ -475,7 +501,7 @@ def analyse_immersion(
                         footprint=width,
                     )
                 )
-            if field is not None and focus is None:
+            if field is not None:
                 spots.extend(
                     field_spots(
                         probe, c_w, depth, level_list, plane.name, mode, field, at=equivalent
@@ -486,13 +512,6 @@ def analyse_immersion(
     transmission = None
     if not direct and water.density is not None and part.density is not None:
         transmission = setups.transmission_coefficient(water.density * c_w, part.density * c_p)
-    focus_result = None
-    if focus is not None:
-        focus_result = _focus(probe, focus, in_water, water, c_p, level_list[0], mode, warnings)
-        warnings.append(
-            "with a focus, the widths at depth are those of the flat element's "
-            "far field: they do not describe the converging beam before the focus"
-        )
     simple_part = None
     if wp < in_water.near_field_simple:
         simple_part = (in_water.near_field_simple - wp) * c_w / c_p
@@ -515,7 +534,7 @@ def analyse_immersion(
         depths=depth_list,
         warnings=tuple(warnings),
     )
-    if field is not None and focus is None:
+    if field is not None:
         from .beam import FieldSummary
 
         beam = replace(beam, field=FieldSummary(field, None))
@@ -527,6 +546,64 @@ def analyse_immersion(
         focus=focus_result,
         warnings=tuple(warnings),
     )
+
+
+def _focused_spots(probe, c_water, focus, depth, equivalent, levels, plane, mode, settings):
+    """Widths of the focused element's computed field at ``depth`` in the part.
+
+    The field is that in the couplant at the equivalent water path
+    ``equivalent`` (m), with the lateral scale unchanged (see the module notes).
+    """
+    from .field import focused_beam_widths
+
+    found = focused_beam_widths(
+        probe,
+        c_water,
+        focus.focal_length,
+        equivalent,
+        levels,
+        plane=plane,
+        bandwidth=settings.bandwidth,
+        mode=mode,
+        frequencies=settings.frequencies,
+        spectrum=settings.spectrum,
+    )
+    spots = []
+    for w in found:
+        width = None if math.isnan(w.width) else w.width
+        spots.append(
+            Spot(
+                depth,
+                -w.level_db,
+                width,
+                None,
+                method="field",
+                sound_path=depth,
+                surface_distance=0.0,
+                footprint=width,
+            )
+        )
+    return spots
+
+
+def _focused_field_warnings(probe, focus, wp, c_water, c_part, depths, field) -> list[str]:
+    """What limits the focused element's widths at these depths (or why there are none)."""
+    if not depths:
+        return []
+    if field is None:
+        return [
+            "a focused probe's widths at depth come from its computed field only (the "
+            "flat element's far-field cone does not describe a converging beam): none are given"
+        ]
+    size = probe.longest_side
+    close = [d for d in depths if wp + d * c_part / c_water < size]
+    if close:
+        where = "" if wp == 0 else " (the water path and the depth counted as couplant)"
+        return [
+            f"depth {_mm(close[0])} lies within one element size ({_mm(size)}) of the "
+            f"face{where}: the paraxial field of the focus is rough there"
+        ]
+    return []
 
 
 def _focus(
@@ -565,11 +642,13 @@ def _focus(
             setups.focused_rectangle_axial_pressure(z, probe.length, probe.width, big_f, lam)
             ** power
         )
-        if a / big_f > 0.3:
-            warnings.append(
-                f"the cylindrical focus is strong (half-length / F = "
-                f"{a / big_f:.2f}): the Fresnel form of its field is rough here"
-            )
+    if a / big_f > 0.3:
+        what = "radius" if disc else "half-length"
+        kind = "spherical" if disc else "cylindrical"
+        warnings.append(
+            f"the {kind} focus is strong ({what} / F = {a / big_f:.2f}): the "
+            "Fresnel (paraxial) form of its field is rough here"
+        )
     i = int(np.argmax(amp))
     target = amp[i] * 10 ** (-level / 20)
     above = amp >= target
@@ -598,8 +677,9 @@ def _focus(
             poor = rim >= 1 or math.degrees(math.asin(rim)) > 20
             if poor:
                 warnings.append(
-                    "the paraxial focal depth in the part is a poor estimate: the "
-                    "rim rays refract steeply (or totally reflect) at the surface"
+                    "the paraxial focal depth in the part, and any computed width "
+                    "there, is a poor estimate: the rim rays refract steeply (or "
+                    "totally reflect) at the surface"
                 )
         if z[i] > wp:
             axial = (float(z[i]) - wp) * water.speed / c_part

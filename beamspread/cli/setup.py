@@ -103,6 +103,11 @@ def run_setup(
         )
         extra = {"wedge": {"name": name, "speed_m_s": speed, "path_m": wedge_path or 0.0}}
     else:
+        if focus is not None and settings is None and depths:
+            raise click.UsageError(
+                "--far-field-only: a focused probe has no far-field width (the flat "
+                "element's cone does not converge); drop it to get the computed widths at --depth"
+            )
         couplant_wave = (
             resolved.wave
             if water_path is None and focus is not None
@@ -145,7 +150,7 @@ def run_setup(
     else:
         from ..report.text import beam_table, setup_lines
 
-        table = beam_table(result.beam, units).split("\n")
+        table = beam_table(result.beam, units, focused=result.focus is not None).split("\n")
         head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
         click.echo("\n".join(table[:head] + setup_lines(result, extra, units) + table[head:]))
 

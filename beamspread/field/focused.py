@@ -338,9 +338,11 @@ def focused_beam_widths(
     -----
     The half-plane is sampled from the axis out to the geometric edge of the
     converging (or diverging) cone, :math:`a|1 - z/F|`, plus four diffraction
-    widths :math:`\\lambda z / a` at the lowest frequency, at most
-    :math:`\\lambda z / 8a` apart at the highest (so each lobe gets several
-    samples), the extent doubled until the far end lies below every level.
+    widths :math:`\\lambda z / a` (a jinc's first null lies at
+    :math:`0.61\\lambda z / a`), at least 64 samples and at most
+    :math:`\\lambda z / 8a` apart (four a lobe), :math:`\\lambda` at the centre
+    frequency as :func:`beamspread.field.beam_widths` takes it; the extent is
+    doubled until the far end lies below every level.
     The largest sample off the axis is refined by a golden-section search; each
     outermost crossing is bracketed by the samples and refined by the Illinois
     (modified regula falsi) method to 1e-10 of the aperture.
@@ -364,16 +366,15 @@ def focused_beam_widths(
     levels = [_level(level) for level in levels_db]
     spec = make_spectrum(spectrum, probe.frequency, bandwidth, frequencies)
     half = 0.5 * dict(probe.planes)[plane]
-    lam_short = speed / float(spec.frequencies.max())
-    lam_long = speed / float(spec.frequencies.min())
+    lam = speed / probe.frequency
     z = np.array([depth])
 
     def amplitude(offsets):
         return _amplitude(probe, speed, big_f, np.atleast_1d(offsets), z, plane, spec, mode)[0]
 
     converge = 0.0 if plane == "width" or math.isinf(big_f) else depth / big_f
-    spacing = lam_short * depth / (8.0 * half)
-    extent = half * abs(1.0 - converge) + 4.0 * lam_long * depth / half
+    spacing = lam * depth / (8.0 * half)
+    extent = half * abs(1.0 - converge) + 4.0 * lam * depth / half
     tol = 1e-10 * half
     widths: dict[float, float] = {}
     pending = sorted(set(levels))

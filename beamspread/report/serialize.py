@@ -540,5 +540,8 @@ def setup_to_dict(setup) -> dict[str, Any]:
             "zone_in_part_m": None if f.zone_in_part is None else list(f.zone_in_part),
             "zone_rule_of_thumb_m": f.zone_rule_of_thumb,
             "paraxial_poor": f.paraxial_poor,
+            "width_method": "computed field only: the paraxial (Fresnel) field of the focused "
+            "element at the equivalent water path (water path + depth c_part / c_water); no "
+            "far-field width, the flat element's cone does not describe a converging beam",
         }
     return _clean(out)

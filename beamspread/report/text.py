@@ -137,8 +137,13 @@ def beam_table(
     figures=None,
     budgets=None,
     sonar: bool = False,
+    focused: bool = False,
 ) -> str:
-    """The human-readable report of ``beamspread beam`` (with its sonar figures if given)."""
+    """The human-readable report of ``beamspread beam`` (with its sonar figures if given).
+
+    ``focused``: the result is a focused probe's, whose widths come from its
+    computed field alone; the notes under the width table say so.
+    """
     out: list[str] = _medium_and_probe(result.probe, result.wave, units, "Beam of a")
     out.append("")
     near = result.near_field
@@ -349,6 +354,8 @@ def beam_table(
                     "  computed field: footprint in the incidence plane = width across the axis "
                     "/ cos(refracted angle)."
                 )
+        elif focused:
+            out.extend(_focused_notes(result))
         elif result.near_field_method.startswith("(N_water"):
             out.append(
                 "  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
@@ -373,6 +380,25 @@ def beam_table(
         textwrap.wrap(SONAR_CAUTION if sonar or figures or in_water_or_air else CAUTION, 100)
     )
     return "\n".join(out)
+
+
+def _focused_notes(result: BeamResult) -> list[str]:
+    """Why a focused probe's width table has no far-field row, and what its rows are."""
+    immersed = result.near_field_method.startswith("(N_water")
+    where = (
+        "at the equivalent water path (water path + z·c_part/c_water)" if immersed else "at depth z"
+    )
+    lines = [
+        "  no far-field row: 2·z·tan(half-angle) is the flat element's cone (as are the "
+        "half-angles above), which does not describe a focused, converging beam.",
+    ]
+    if result.field is not None:
+        lines.append(f"  computed field of the focused element: paraxial (Fresnel), {where}.")
+    return [
+        line
+        for text in lines
+        for line in textwrap.wrap(text, 100, initial_indent="", subsequent_indent="  ")
+    ]
 
 
 def _bar(level_db: float, floor: float = -40.0, width: int = 32) -> str:
