@@ -12,6 +12,14 @@ plane across the passes) over the depths and :math:`f` the overlap fraction
 (common practice; codes and procedures commonly ask for 10 % to 25 %). The
 depth where the beam is narrowest governs.
 
+Widths come from the computed field (near field included) or from the
+far-field cone :math:`2 z \tan\theta`. The cone does not hold inside the
+near field, and it only widens with depth, so when the range starts inside
+the near field the step is set there by a width that does not hold. Such a
+plan is still made (as ``beam`` still gives a far-field spot there), but each
+depth is marked (``far_field_valid``) and a warning names the depths and the
+near field, pointing to the computed field, which holds there.
+
 Nothing here prints or reads files; lengths are in m, the overlap a fraction.
 """
 
@@ -20,7 +28,7 @@ from __future__ import annotations
 import math
 import re
 from collections.abc import Mapping
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -51,6 +59,10 @@ class ScanPlan:
     ``depths`` and ``widths`` are the samples considered (m), in depth order;
     ``level_db`` (positive, dB down) and ``plane`` say which width was used,
     where known; ``method`` is ``"field"``, ``"far-field"`` or ``"given"``.
+    ``near_field`` is the last on-axis maximum (m; None where unknown or
+    there is none); with far-field widths, ``far_field_valid`` says for each
+    depth whether it lies beyond the near field, where the cone holds (None
+    for other methods). ``warnings`` say what does not hold.
     """
 
     index_step: float
@@ -63,6 +75,16 @@ class ScanPlan:
     plane: str | None = None
     method: str = "given"
     rule: str = RULE
+    near_field: float | None = None
+    far_field_valid: tuple[bool, ...] | None = None
+    warnings: tuple[str, ...] = ()
+
+    @property
+    def governing_far_field_valid(self) -> bool | None:
+        """Whether the far-field width that sets the step holds (None: not a far-field plan)."""
+        if self.far_field_valid is None:
+            return None
+        return self.far_field_valid[self.depths.index(self.governing_depth)]
 
 
 def check_overlap(overlap) -> float:
@@ -292,9 +314,24 @@ def plan_scan_for(
 
     ``method`` is ``"field"`` (the computed field, near field included; extra
     keywords go to :func:`field_widths`) or ``"far-field"``.
+
+    The plan carries the probe's near field in the medium. Far-field widths
+    inside it are marked invalid and warned about (the cone does not hold
+    there); computed widths closer than 0.05 N to the face are warned about
+    as ``analyse`` does (the field is not validated there).
+
+    Examples
+    --------
+    >>> from beamspread.probes import Disc
+    >>> plan = plan_scan_for(Disc(0.010, 5e6), 5920.0, 0.010, 0.050, 0.1, method="far-field")
+    >>> round(plan.near_field * 1e3, 2), plan.governing_far_field_valid
+    (20.82, False)
+    >>> plan.warnings[0].split(":")[0]
+    'depths 10 mm to 20.67 mm lie inside the near field (20.82 mm)'
     """
     check_overlap(overlap)
     plane = _plane(probe, plane)
+    speed = check_positive(speed, "speed", "m/s")
     if method == "field":
         widths = field_widths(
             probe,
@@ -313,4 +350,43 @@ def plan_scan_for(
         )
     else:
         raise InputError(f"method: {method!r} is unknown; use field or far-field")
-    return plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
+    plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
+    near, near_simple = _near_field(probe, speed / probe.frequency)
+    warnings = []
+    valid = None
+    if method == "far-field":
+        valid = tuple(near is None or d >= near for d in plan.depths)
+        inside = [d for d, ok in zip(plan.depths, valid, strict=True) if not ok]
+        if inside:
+            which = (
+                f"depth {_mm(inside[0])} lies"
+                if len(inside) == 1
+                else f"depths {_mm(inside[0])} to {_mm(inside[-1])} lie"
+            )
+            warnings.append(
+                f"{which} inside the near field ({_mm(near)}): the far-field width does "
+                f"not hold there, and the step is set by the width at "
+                f"{_mm(plan.governing_depth)}; the computed field (method 'field') holds there"
+            )
+    elif plan.depths[0] < 0.05 * near_simple:
+        warnings.append(
+            f"depth {_mm(plan.depths[0])} lies closer than 0.05 N ({_mm(0.05 * near_simple)}) "
+            "to the face, where the computed field is not validated"
+        )
+    return replace(plan, near_field=near, far_field_valid=valid, warnings=tuple(warnings))
+
+
+def _near_field(probe, wavelength: float) -> tuple[float | None, float]:
+    """The last on-axis maximum (None where there is none) and D^2/4 lambda, m, as ``analyse``."""
+    from . import axis
+
+    simple = float(axis.simple_near_field(probe.longest_side, wavelength))
+    if probe.shape == "disc":
+        near = float(axis.disc_near_field(probe.diameter, wavelength))
+    else:
+        near = axis.rectangle_near_field(probe.length, probe.width, wavelength)
+    return (None if math.isnan(near) else near), simple
+
+
+def _mm(metres: float) -> str:
+    return f"{metres * 1e3:.4g} mm"

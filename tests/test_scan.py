@@ -110,3 +110,34 @@ def test_rectangle_plane_and_bad_inputs():
         field_widths(probe, 5920.0, 0.1, 0.08)
     with pytest.raises(InputError, match="depths"):
         field_widths(probe, 5920.0, 0.08, 0.1, count=0)
+
+
+def test_far_field_widths_inside_the_near_field_are_marked_and_warned():
+    # Reference: a disc's last on-axis maximum lies at (D^2 - lambda^2) / (4 lambda)
+    # (Kinsler, Frey et al., Fundamentals of Acoustics, the baffled piston; from memory).
+    probe = Disc(0.010, 5e6)
+    lam = 5920.0 / 5e6
+    near = (0.010**2 - lam**2) / (4 * lam)
+    plan = plan_scan_for(probe, 5920.0, 0.010, 0.050, 0.25, count=5, method="far-field")
+    assert plan.near_field == pytest.approx(near, rel=1e-12)
+    assert plan.far_field_valid == tuple(d >= near for d in plan.depths)
+    assert plan.far_field_valid == (False, False, True, True, True)
+    assert plan.governing_depth == pytest.approx(0.010)
+    assert plan.governing_far_field_valid is False
+    (warning,) = plan.warnings
+    assert warning.startswith("depths 10 mm to 20 mm lie inside the near field (20.82 mm)")
+    beyond = plan_scan_for(probe, 5920.0, 0.030, 0.050, 0.25, count=3, method="far-field")
+    assert beyond.governing_far_field_valid is True and beyond.warnings == ()
+
+
+def test_field_plans_carry_the_near_field_and_warn_only_very_close_to_the_face():
+    probe = Disc(0.010, 5e6)
+    plan = plan_scan_for(probe, 5920.0, 0.016, 0.030, 0.1, count=3, refine=False)
+    assert plan.far_field_valid is None and plan.governing_far_field_valid is None
+    assert plan.near_field is not None and plan.warnings == ()
+    # Below 0.05 N = 0.05 D^2 / (4 lambda) the computed field is not validated
+    # (the limit beam's results use for the same engine).
+    simple = 0.010**2 / (4 * 5920.0 / 5e6)
+    close = plan_scan_for(probe, 5920.0, 0.5 * 0.05 * simple, 0.030, 0.1, count=3, refine=False)
+    (warning,) = close.warnings
+    assert "closer than 0.05 N" in warning

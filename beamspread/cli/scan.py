@@ -130,7 +130,8 @@ def scan_plan(
         mode=mode,
         **extra,
     )
-    emit_warnings(resolved.warnings)
+    warnings = [*resolved.warnings, *plan.warnings]
+    emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import dumps, probe_to_dict, wave_to_dict
 
@@ -142,35 +143,56 @@ def scan_plan(
                     "index_step_m": plan.index_step,
                     "governing_depth_m": plan.governing_depth,
                     "governing_width_m": plan.governing_width,
+                    "governing_far_field_valid": plan.governing_far_field_valid,
                     "overlap": plan.overlap,
                     "level_db": -abs(level),
                     "plane": plan.plane,
                     "method": plan.method,
                     "mode": mode,
+                    "near_field_m": plan.near_field,
                     "depths_m": list(plan.depths),
                     "widths_m": list(plan.widths),
+                    "far_field_valid": (
+                        None if plan.far_field_valid is None else list(plan.far_field_valid)
+                    ),
                     "rule": plan.rule,
-                    "warnings": resolved.warnings,
+                    "warnings": warnings,
                 }
             )
         )
         return
-    from ..report.text import CAUTION, columns
+    import textwrap
 
-    click.echo(
-        f"Scan plan over {format_length(start, units)} to {format_length(stop, units)}, "
-        f"-{abs(level):g} dB {mode} width ({plan.method}), plane {plan.plane}, overlap "
-        f"{plan.overlap:.0%}"
-    )
-    click.echo(
+    from ..report.text import CAUTION, SONAR_CAUTION, _medium_and_probe, columns
+
+    wave = resolved.wave
+    mark = " *" if plan.governing_far_field_valid is False else ""
+    near = "none" if plan.near_field is None else format_length(plan.near_field, units)
+    lines = [
+        *_medium_and_probe(probe, wave, units, lead="Scan plan for a"),
+        *textwrap.wrap(
+            f"Depths {format_length(start, units)} to {format_length(stop, units)}; "
+            f"-{abs(level):g} dB {mode} width ({plan.method}), plane {plan.plane}; overlap "
+            f"{plan.overlap:.0%}",
+            100,
+        ),
+        "",
         columns(
             [
                 ["quantity", "value"],
                 ["index step", format_length(plan.index_step, units)],
-                ["narrowest width", format_length(plan.governing_width, units)],
+                ["narrowest width", format_length(plan.governing_width, units) + mark],
                 ["at depth", format_length(plan.governing_depth, units)],
+                ["near field", near],
             ]
+        ),
+        f"  {plan.rule}",
+    ]
+    if mark:
+        lines.append(
+            f"  * inside the near field ({near}): the far-field width does not hold there."
         )
-    )
-    click.echo(f"  {plan.rule}")
-    click.echo(CAUTION)
+    lines.append("")
+    caution = SONAR_CAUTION if wave.state in ("liquid", "gas") else CAUTION
+    lines.extend(textwrap.wrap(caution, 100))
+    click.echo("\n".join(lines))
