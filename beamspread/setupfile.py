@@ -32,11 +32,18 @@ The format is beamspread's own. Quantities are strings with their unit
     thickness = "25 mm"
 
     [inspection]             # optional
-    depths = ["20 mm", "40 mm"]
+    depths = ["20 mm", "40 mm", "50 mm:90 mm:10 mm"]   # a depth, or START:STOP:STEP
     levels = ["-6 dB", "-20 dB"]
 
+    [bottom]                 # optional: a bare transducer in water over a flat bottom
+    depths = ["10 m:40 m:10 m"]   # water depths (--bottom-depth), or START:STOP:STEP
+    power = "100 W"               # electrical power, for an echo budget (--power)
+    efficiency = 0.5              # electro-acoustic, above 0 and at most 1 (--efficiency)
+    loss = "10 dB"                # the bottom's reflection loss, 0 or more (--bottom-loss)
+
     [conventions]            # optional
-    mode = "pulse-echo"      # or "one-way"
+    sonar = true             # the sonar trade's conventions and figures (--sonar)
+    mode = "pulse-echo"      # or "one-way" (default: the command's, one-way with sonar)
     bandwidth = 0.5          # -6 dB fractional bandwidth; 0 is a continuous wave
     spectrum = "gaussian"
     frequencies = 32
@@ -103,12 +110,26 @@ _KEYS = (
     _Key("thickness", "part", "thickness", "length", "--thickness"),
     _Key("depths", "inspection", "depths", "lengths", "--depth"),
     _Key("levels", "inspection", "levels", "levels", "--level"),
+    _Key("bottom_depths", "bottom", "depths", "water-depths", "--bottom-depth"),
+    _Key("power", "bottom", "power", "power", "--power"),
+    _Key("efficiency", "bottom", "efficiency", "efficiency", "--efficiency"),
+    _Key("bottom_loss", "bottom", "loss", "loss", "--bottom-loss"),
+    _Key("sonar", "conventions", "sonar", "flag", "--sonar"),
     _Key("mode", "conventions", "mode", "choice", None, ("pulse-echo", "one-way")),
     _Key("bandwidth", "conventions", "bandwidth", "fraction", "--bandwidth"),
     _Key("spectrum", "conventions", "spectrum", "choice", "--spectrum", ("gaussian", "flat")),
     _Key("frequencies", "conventions", "frequencies", "count", "--frequencies"),
 )
-_SECTIONS = ("probe", "medium", "wedge", "immersion", "part", "inspection", "conventions")
+_SECTIONS = (
+    "probe",
+    "medium",
+    "wedge",
+    "immersion",
+    "part",
+    "inspection",
+    "bottom",
+    "conventions",
+)
 _BY_FIELD = {k.field: k for k in _KEYS}
 _BY_OPTION = {k.option: k for k in _KEYS if k.option}
 _MODE_FLAGS = {"--pulse-echo": "pulse-echo", "--one-way": "one-way"}
@@ -138,6 +159,23 @@ def _check(key: _Key, value):
         if isinstance(value, bool) or not isinstance(value, int) or not 1 <= value <= 256:
             raise InputError(f"{name}: {value!r} is not allowed; give a whole number 1 to 256")
         return value
+    if kind == "flag":
+        if not isinstance(value, bool):
+            raise InputError(f"{name}: {value!r} is not allowed; write true or false")
+        return value
+    if kind == "efficiency":
+        if (
+            isinstance(value, bool)
+            or not isinstance(value, (int, float))
+            or not (math.isfinite(value) and 0.0 < value <= 1.0)
+        ):
+            raise InputError(
+                f"{name}: {value!r} is not allowed; give a number above 0 and at most 1 (e.g. 0.5)"
+            )
+        return float(value)
+    if kind in ("power", "loss"):
+        _in_unit(name, kind, value)
+        return value
     if kind == "conditions":
         if not isinstance(value, dict):
             raise InputError(f'{name}: give a table such as {{ salinity = "35" }}')
@@ -149,9 +187,10 @@ def _check(key: _Key, value):
                 raise InputError(f'{name}.{cname}: give the value as a string, e.g. "35"')
             out.append((str(cname), text))
         return tuple(out)
-    if kind in ("lengths", "levels"):
+    if kind in ("lengths", "levels", "water-depths"):
         if not isinstance(value, (list, tuple)):
-            raise InputError(f'{name}: give a list, e.g. ["20 mm", "40 mm"]')
+            example = '"10 m", "20 m"' if kind == "water-depths" else '"20 mm", "40 mm"'
+            raise InputError(f"{name}: give a list, e.g. [{example}]")
         return tuple(_one(name, kind, v) for v in value)
     return _one(name, kind, value)
 
@@ -162,14 +201,15 @@ def _one(name: str, kind: str, value):
             raise InputError(f"{name}: {value!r} is not a level in dB")
         parse_level(value, name)
         return str(value)  # kept as written, as text
-    kind = "length" if kind == "lengths" else kind
+    if kind in ("lengths", "water-depths"):
+        return _depths(name, kind, value)
     if not isinstance(value, str):
         raise InputError(
             f"{name}: {value!r} has no unit; write it as a string with its unit, "
             f'e.g. "{_EXAMPLES[kind]}"'
         )
-    m = re.fullmatch(r"\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s*(.*?)\s*", value)
-    if m is not None and not m.group(1):
+    m = re.fullmatch(_NUMBER + r"\s*(.*?)\s*", value)
+    if m is not None and not m.group(2):
         raise InputError(f'{name}: {value!r} has no unit; write e.g. "{_EXAMPLES[kind]}"')
     number = parse_quantity(value, kind, what=name)
     if kind != "temperature" and not number > 0 and not (kind == "angle" and number == 0):
@@ -177,13 +217,75 @@ def _one(name: str, kind: str, value):
     return value
 
 
+def _depths(name: str, kind: str, value):
+    """A depth, or a range START:STOP:STEP, each part a length with its unit; kept as written."""
+    example = _EXAMPLES[kind]
+    if not isinstance(value, str):
+        raise InputError(
+            f"{name}: {value!r} has no unit; write it as a string with its unit, "
+            f'e.g. "{example}" or "{example}:{_RANGES[kind]}"'
+        )
+    parts = value.split(":")
+    if len(parts) not in (1, 3):
+        raise InputError(
+            f"{name}: {value!r} is neither a depth nor START:STOP:STEP "
+            f'(e.g. "{example}:{_RANGES[kind]}")'
+        )
+    numbers = []
+    for part in parts:
+        m = re.fullmatch(_NUMBER + r"\s*(.*?)\s*", part)
+        if m is not None and not m.group(2):
+            raise InputError(f'{name}: {value!r} has no unit; write e.g. "{example}"')
+        number = parse_quantity(part, "length", what=name)
+        if not number > 0:
+            raise InputError(f"{name}: {value!r} is not allowed; a depth must be above 0")
+        numbers.append(number)
+    if len(numbers) == 3:
+        from .sonar import depth_range
+
+        try:
+            depth_range(*numbers)
+        except InputError as exc:
+            raise InputError(f"{name}: {value!r}: {exc}") from None
+    return value
+
+
+_NUMBER = r"\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)"
 _EXAMPLES = {
     "length": "10 mm",
+    "lengths": "10 mm",
+    "water-depths": "10 m",
     "frequency": "5 MHz",
     "speed": "5920 m/s",
     "temperature": "20 degC",
     "angle": "45 deg",
+    "power": "100 W",
+    "loss": "10 dB",
 }
+_RANGES = {"lengths": "50 mm:5 mm", "water-depths": "40 m:10 m"}
+_POWER_UNITS = {"W": 1.0, "kW": 1e3}
+
+
+def _in_unit(name: str, kind: str, value) -> float:
+    """A power (W or kW, above 0) in W, or a loss (dB, 0 or more) in dB, from its text."""
+    units = "W or kW" if kind == "power" else "dB"
+    m = re.fullmatch(_NUMBER + r"\s*(.*?)\s*", value) if isinstance(value, str) else None
+    if m is None:
+        raise InputError(
+            f"{name}: {value!r} is not allowed; write it as a string with its unit ({units}), "
+            f'e.g. "{_EXAMPLES[kind]}"'
+        )
+    unit = m.group(2)
+    if not unit:
+        raise InputError(f'{name}: {value!r} has no unit; write e.g. "{_EXAMPLES[kind]}"')
+    factor = _POWER_UNITS.get(unit) if kind == "power" else (1.0 if unit == "dB" else None)
+    if factor is None:
+        raise InputError(f"{name}: unknown {kind} unit {unit!r} in {value!r}; allowed: {units}")
+    number = float(m.group(1)) * factor
+    if not math.isfinite(number) or (number <= 0 if kind == "power" else number < 0):
+        allowed = "above 0" if kind == "power" else "0 or more"
+        raise InputError(f"{name}: {value!r} is not allowed; it must be {allowed}")
+    return number
 
 
 @dataclass(frozen=True)
@@ -217,7 +319,12 @@ class Setup:
     thickness: str | None = None
     depths: tuple[str, ...] = ()
     levels: tuple[str, ...] = ()
-    mode: str = "pulse-echo"
+    bottom_depths: tuple[str, ...] = ()
+    power: str | None = None
+    efficiency: float | None = None
+    bottom_loss: str | None = None
+    sonar: bool | None = None  # None and False alike: not the sonar conventions
+    mode: str | None = None  # None: the command's default (pulse-echo; one-way with sonar)
     bandwidth: float | None = None
     spectrum: str | None = None
     frequencies: int | None = None
@@ -232,6 +339,8 @@ class Setup:
             if f.name == "conditions":
                 value = dict(value)
             object.__setattr__(self, f.name, _check(_BY_FIELD[f.name], value))
+        if self.sonar is False:
+            object.__setattr__(self, "sonar", None)
         if self.shape == "disc":
             if self.diameter is None or self.length is not None or self.width is not None:
                 raise InputError("probe: a disc takes a diameter (and no length or width)")
@@ -248,14 +357,32 @@ class Setup:
             raise InputError("wedge: give either its material or its speed, not both")
         if self.incident is not None and self.refracted is not None:
             raise InputError("wedge: give either the incident or the refracted angle, not both")
+        if self.power is None and (self.efficiency is not None or self.bottom_loss is not None):
+            raise InputError(
+                "bottom: efficiency and loss belong to the echo budget; give its power too"
+            )
+        if self.power is not None and not self.bottom_depths:
+            raise InputError("bottom: the echo budget (power) needs the bottom's depths")
+        in_water = self.sonar or self.bottom_depths
+        on_setup = any(
+            v is not None for v in (self.wedge, self.wedge_speed, self.water_path, self.focus)
+        )
+        if in_water and on_setup:
+            section = "bottom" if self.bottom_depths else "conventions"
+            raise InputError(
+                f"{section}: sonar and a bottom describe a bare transducer in water, not "
+                "a wedge, a water path or a focus"
+            )
 
     # -------------------------------------------------------------- options
 
     def to_options(self) -> dict[str, object]:
         """Command-line option -> value (strings with units; lists for repeatable options).
 
-        The mode is a flag: ``{"--pulse-echo": True}`` or ``{"--one-way": True}``.
-        Values not set are left out.
+        The mode is a flag: ``{"--pulse-echo": True}`` or ``{"--one-way": True}``,
+        and so is ``{"--sonar": True}``; the power and the bottom loss are bare
+        numbers in W and dB, as the command line takes them. Values not set
+        are left out (the command's defaults then apply).
         """
         out: dict[str, object] = {}
         for key in _KEYS:
@@ -264,11 +391,16 @@ class Setup:
                 continue
             if key.kind == "conditions":
                 out[key.option] = [f"{name}={text}" for name, text in value]
-            elif key.kind in ("lengths", "levels"):
+            elif key.kind in ("lengths", "levels", "water-depths"):
                 out[key.option] = [str(v) for v in value]
+            elif key.kind == "flag":
+                out[key.option] = True
+            elif key.kind in ("power", "loss"):  # the command line takes bare W and dB
+                out[key.option] = f"{_in_unit(_where(key), key.kind, value):.12g}"
             else:
                 out[key.option] = str(value)
-        out["--one-way" if self.mode == "one-way" else "--pulse-echo"] = True
+        if self.mode is not None:
+            out["--one-way" if self.mode == "one-way" else "--pulse-echo"] = True
         return out
 
     def to_args(self) -> list[str]:
@@ -292,8 +424,10 @@ class Setup:
 
         Values are strings with units as typed; numbers are taken in the SI
         unit the command line converts to (m, Hz, m/s, degC; angles in deg)
-        and written in mm, MHz, m/s, degC or deg to 12 digits. Unknown
-        options are refused; the shape follows from --diameter or --length.
+        and written in mm, MHz, m/s, degC or deg to 12 digits (water depths
+        in m). --power and --bottom-loss, bare numbers on the command line,
+        are written in W and dB. Unknown options are refused; the shape
+        follows from --diameter or --length.
         """
         values: dict[str, object] = {"title": title, "description": description}
         for option, value in options.items():
@@ -307,15 +441,17 @@ class Setup:
                 raise InputError(
                     f"option {option}: a setup file cannot record it; it records {known}"
                 )
-            if value is None or value == () or value == []:
+            if value is None or value == () or value == [] or value is False:
                 continue
-            if key.kind == "conditions":
+            if key.kind == "flag":
+                values[key.field] = True
+            elif key.kind == "conditions":
                 pairs = []
                 for item in value:
                     name, text = item if isinstance(item, tuple) else str(item).split("=", 1)
                     pairs.append((name.strip(), str(text).strip()))
                 values[key.field] = tuple(pairs)
-            elif key.kind in ("lengths", "levels"):
+            elif key.kind in ("lengths", "levels", "water-depths"):
                 values[key.field] = tuple(_text(key, v) for v in value)
             else:
                 values[key.field] = _text(key, value)
@@ -328,6 +464,9 @@ class Setup:
 _SI_UNITS = {
     "length": (1e3, "mm"),
     "lengths": (1e3, "mm"),
+    "water-depths": (1.0, "m"),
+    "power": (1.0, "W"),
+    "loss": (1.0, "dB"),
     "frequency": (1e-6, "MHz"),
     "speed": (1.0, "m/s"),
     "temperature": (1.0, "degC"),
@@ -337,12 +476,15 @@ _SI_UNITS = {
 
 def _text(key: _Key, value):
     """A value for the file: strings as they are, SI numbers with their unit."""
-    if isinstance(value, str) and key.kind in ("fraction", "count"):
+    if isinstance(value, str) and key.kind in ("fraction", "efficiency", "count"):
         try:
-            return float(value) if key.kind == "fraction" else int(value)
+            return int(value) if key.kind == "count" else float(value)
         except ValueError:
             raise InputError(f"{key.option}: {value!r} is not a number") from None
-    if isinstance(value, str) or key.kind in ("fraction", "count", "levels"):
+    if isinstance(value, str) and key.kind in ("power", "loss"):
+        bare = re.fullmatch(_NUMBER + r"\s*", value)
+        return f"{bare.group(1)} {_SI_UNITS[key.kind][1]}" if bare else value
+    if isinstance(value, str) or key.kind in ("fraction", "efficiency", "count", "levels"):
         return value
     if key.kind in _SI_UNITS and isinstance(value, (int, float)) and not isinstance(value, bool):
         if not math.isfinite(value):

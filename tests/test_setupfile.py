@@ -45,9 +45,23 @@ SMALL = Setup(
     water_path="30 mm",
     couplant="water",
 )
+SONAR = Setup(  # an invented echo sounder over a flat bottom
+    frequency="200 kHz",
+    diameter="25 mm",
+    material="seawater",
+    temperature="12 degC",
+    conditions=(("salinity", "34"),),
+    bottom_depths=("10 m:40 m:10 m", "55 m"),
+    power="150 W",
+    efficiency=0.4,
+    bottom_loss="12 dB",
+    sonar=True,
+    mode="one-way",
+    bandwidth=0.1,
+)
 
 
-@pytest.mark.parametrize("setup", [FULL, SMALL], ids=["full", "small"])
+@pytest.mark.parametrize("setup", [FULL, SMALL, SONAR], ids=["full", "small", "sonar"])
 def test_round_trip_through_a_file(tmp_path, setup):
     path = save_setup(setup, tmp_path / "s.toml")
     assert load_setup(path) == setup
@@ -57,7 +71,7 @@ def test_round_trip_through_a_file(tmp_path, setup):
     assert data["probe"]["frequency"] == setup.frequency
 
 
-@pytest.mark.parametrize("setup", [FULL, SMALL], ids=["full", "small"])
+@pytest.mark.parametrize("setup", [FULL, SMALL, SONAR], ids=["full", "small", "sonar"])
 def test_round_trip_through_the_options(setup):
     options = setup.to_options()
     again = Setup.from_options(options, title=setup.title, description=setup.description)
@@ -79,7 +93,8 @@ def test_options_name_the_command_line():
     assert SMALL.to_options()["--water-path"] == "30 mm"
     args = SMALL.to_args()
     assert args[args.index("--couplant") + 1] == "water"
-    assert "--pulse-echo" in args
+    # No mode recorded: none is passed, and the command's own default applies.
+    assert "--pulse-echo" not in args and "--one-way" not in args
 
 
 def test_si_numbers_from_a_command_line_keep_their_value():
@@ -179,3 +194,85 @@ def test_save_refuses_to_overwrite_without_force(tmp_path):
     assert sorted(p.name for p in tmp_path.iterdir()) == ["s.toml"]
     with pytest.raises(InputError, match="no such setup file"):
         load_setup(tmp_path / "missing.toml")
+
+
+def test_sonar_and_bottom_are_recorded_in_our_keys():
+    data = tomllib.loads(dumps_setup(SONAR))
+    assert data["conventions"] == {"sonar": True, "mode": "one-way", "bandwidth": 0.1}
+    assert data["bottom"] == {
+        "depths": ["10 m:40 m:10 m", "55 m"],
+        "power": "150 W",
+        "efficiency": 0.4,
+        "loss": "12 dB",
+    }
+    options = SONAR.to_options()
+    # The command line takes --power in W and --bottom-loss in dB as bare numbers.
+    assert options["--sonar"] is True
+    assert options["--bottom-depth"] == ["10 m:40 m:10 m", "55 m"]
+    assert (options["--power"], options["--efficiency"], options["--bottom-loss"]) == (
+        "150",
+        "0.4",
+        "12",
+    )
+    # A file may say 2 kW (SI prefix: 2000 W); the command line gets 2000, and a
+    # command line's bare 2000 is written back as 2000 W.
+    assert Setup(**{**_fields(SONAR), "power": "2 kW"}).to_options()["--power"] == "2000"
+    assert Setup.from_options({**options, "--power": "2000"}).power == "2000 W"
+
+
+def _fields(setup):
+    from dataclasses import fields
+
+    return {f.name: getattr(setup, f.name) for f in fields(setup)}
+
+
+def test_sonar_false_and_no_mode_mean_the_commands_defaults():
+    plain = Setup(frequency="1 MHz", diameter="10 mm", speed="1480 m/s", sonar=False)
+    assert plain.sonar is None and plain.mode is None
+    assert plain.to_options() == {
+        "--diameter": "10 mm",
+        "--frequency": "1 MHz",
+        "--speed": "1480 m/s",
+    }
+    assert "[conventions]" not in dumps_setup(plain)
+
+
+def test_depth_ranges_keep_their_units():
+    setup = Setup(
+        frequency="5 MHz", diameter="10 mm", speed="5920 m/s", depths=("10 mm:50 mm:10 mm",)
+    )
+    assert parse_setup(dumps_setup(setup)).depths == ("10 mm:50 mm:10 mm",)
+
+
+@pytest.mark.parametrize(
+    "old, new, message",
+    [
+        ('power = "150 W"', 'power = "150"', "bottom.power.*has no unit"),
+        ('power = "150 W"', "power = 150", "bottom.power.*with its unit"),
+        ('power = "150 W"', 'power = "150 hp"', "bottom.power.*unknown power unit 'hp'"),
+        ('power = "150 W"', 'power = "0 W"', "bottom.power.*above 0"),
+        ("efficiency = 0.4", "efficiency = 1.5", "bottom.efficiency.*at most 1"),
+        ('loss = "12 dB"', 'loss = "-3 dB"', "bottom.loss.*0 or more"),
+        ('"55 m"', '"55"', "bottom.depths.*has no unit"),
+        ('"10 m:40 m:10 m"', '"40 m:10 m:10 m"', "bottom.depths.*lies before the start"),
+        ('"10 m:40 m:10 m"', '"10 m:40 m"', "bottom.depths.*START:STOP:STEP"),
+        ("sonar = true", 'sonar = "yes"', "conventions.sonar.*true or false"),
+    ],
+)
+def test_wrong_bottom_and_sonar_values_are_named_with_their_line(old, new, message):
+    text = dumps_setup(SONAR)
+    assert old in text
+    bad = text.replace(old, new, 1)
+    with pytest.raises(InputError, match=message) as info:
+        parse_setup(bad, "t.toml")
+    line = next(i for i, s in enumerate(bad.splitlines(), 1) if new in s)
+    assert str(info.value).startswith(f"t.toml:{line}:")
+
+
+def test_bottom_combinations_are_refused():
+    with pytest.raises(InputError, match="give its power too"):
+        Setup(**{**_fields(SONAR), "power": None})
+    with pytest.raises(InputError, match="needs the bottom's depths"):
+        Setup(**{**_fields(SONAR), "bottom_depths": ()})
+    with pytest.raises(InputError, match="bare transducer in water"):
+        Setup(**{**_fields(SONAR), "wedge": "acrylic"})

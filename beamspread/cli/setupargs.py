@@ -3,8 +3,17 @@
 The group splices the file's options into the command line *before* the
 options typed, so a typed option wins (the last of a single-valued option
 counts) and repeatable ones (``--depth``, ``--level``, ``--condition``) add
-to the file's. Options a command does not take are left out. ``--save``
-records the options of the command line as typed, with their units.
+to the file's.
+
+A command that cannot model the setup's wedge, water path or focus refuses
+the file (it would compute another technique and present it as this one);
+other options it does not take (depths, levels, the bottom) are left out
+with a warning. A command without ``--setup`` (``size``, ``report``, ...)
+refuses ``--setup`` and ``--save`` with one line.
+
+``--save`` records the options of the command line as typed, with their
+units, and the mode every command defaults to (pulse-echo; with ``--sonar``,
+one-way and its narrow-band pulse), so another command computes the same beam.
 """
 
 from __future__ import annotations
@@ -62,9 +71,14 @@ def _with_unit(value, param):
     import re
 
     from ..units import KINDS
-    from .params import Angle, Quantity
+    from .params import Angle, DepthList, Quantity
 
     number = r"\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*"
+    if isinstance(value, str) and isinstance(param.type, DepthList):
+        return ":".join(
+            f"{part.strip()} {param.type.unit}" if re.fullmatch(number, part) else part
+            for part in value.split(":")
+        )
     if not isinstance(value, str) or not re.fullmatch(number, value):
         return value
     if isinstance(param.type, Quantity) and KINDS[param.type.kind].default:
@@ -101,9 +115,90 @@ def _typed_options(args: list[str], command: click.Command) -> dict[str, object]
         value = _with_unit(value, param)
         if getattr(param, "multiple", False):
             options.setdefault(name, []).append(value)
+        elif is_flag:  # the last of --pulse-echo/--one-way counts: keep the order typed
+            for flag in (*param.opts, *param.secondary_opts):
+                options.pop(flag, None)
+            options[name] = value
         else:
             options[name] = value
     return options
+
+
+# What a setup can record that changes the beam itself, with the options that record it.
+# A command that cannot model one refuses the setup instead of computing another technique.
+_TECHNIQUES = (
+    (
+        "an angle-beam wedge",
+        ("--wedge", "--wedge-speed", "--incident", "--refracted", "--wedge-path"),
+    ),
+    ("a water path", ("--water-path", "--couplant")),
+    ("a focus", ("--focus",)),
+)
+_READ_AS = {"report": "beam"}  # report reads a setup file as beam's options
+
+
+def _reads_setups(command: click.Command) -> bool:
+    return any(p.name == "setup_path" for p in command.params)
+
+
+def _commands_that(can) -> list[str]:
+    """The commands reading setup files for which ``can(accepted options)`` holds."""
+    from . import _COMMANDS, cli
+
+    names = []
+    for other in sorted(_COMMANDS):
+        command = cli.get_command(None, _READ_AS.get(other, other))
+        if _reads_setups(command) and can(_accepted(command)):
+            names.append(other)
+    return names
+
+
+def _listed(names: list[str], last: str = "or") -> str:
+    return names[0] if len(names) == 1 else f"{', '.join(names[:-1])} {last} {names[-1]}"
+
+
+def _refuse_unreadable(name: str, setup_path, save_path) -> None:
+    """A command without --setup and --save: one line saying what to do instead."""
+    which = " and ".join(o for o, v in ((_SETUP, setup_path), (_SAVE, save_path)) if v)
+    if setup_path is not None:
+        others = f"setup files are read by {_listed(_commands_that(lambda a: True), 'and')}"
+    else:
+        writers = [n for n in _commands_that(lambda a: True) if n not in _READ_AS]
+        others = f"setup files are written by {_listed(writers, 'and')}"
+    if name == "report":
+        message = (
+            "report takes the setup file as its argument, not --setup or --save: "
+            "beamspread report FILE --output REPORT.pdf"
+        )
+    elif name == "size":
+        message = (
+            f"size does not take {which}: it solves for the element that a setup "
+            f"file records; give it the medium and the target on its command line ({others})"
+        )
+    else:
+        message = f"{name} does not take {which}; {others}"
+    raise click.UsageError(message)
+
+
+def _refuse_techniques(name: str, path: str, options: dict, accepted) -> None:
+    """Refuse a setup whose wedge, water path or focus the command cannot model."""
+    missing = [
+        (what, [o for o in opts if o in options])
+        for what, opts in _TECHNIQUES
+        if any(o in options for o in opts) and not all(o in accepted for o in opts)
+    ]
+    if not missing:
+        return
+    needed = {o for _, opts in missing for o in opts}
+    details = ", ".join(f"{o} {options[o]}" for _, opts in missing for o in opts)
+    straight = not any(o in accepted for _, opts in _TECHNIQUES for o in opts)
+    can = _commands_that(lambda accepted: needed <= set(accepted))
+    raise click.UsageError(
+        f"{path} records {' and '.join(what for what, _ in missing)} ({details}), which "
+        f"{name} cannot model"
+        + (" (it computes a contact beam straight from the probe's face)" if straight else "")
+        + (f"; use {_listed(can)} with this setup" if can else "")
+    )
 
 
 def expand(command: click.Command, name: str, args: list[str]):
@@ -121,14 +216,18 @@ def expand(command: click.Command, name: str, args: list[str]):
         return args, None
     if "-h" in args or "--help" in args:
         return args, None
+    if not _reads_setups(command):
+        _refuse_unreadable(name, setup_path, save_path)
     from ..setupfile import Setup, load_setup, save_setup
 
     spliced: list[str] = []
     if setup_path is not None:
         setup = load_setup(setup_path)
         accepted = _accepted(command)
+        options = setup.to_options()
+        _refuse_techniques(name, setup_path, options, accepted)
         unused = []
-        for option, value in setup.to_options().items():
+        for option, value in options.items():
             param = accepted.get(option)
             if param is None:
                 unused.append(option)
@@ -164,6 +263,13 @@ def expand(command: click.Command, name: str, args: list[str]):
     if not target.parent.is_dir():
         raise click.UsageError(f"--save: the folder {str(target.parent)!r} does not exist")
     typed = _typed_options(full, command)
+    if "--pulse-echo" not in typed and "--one-way" not in typed:
+        # Every command's default, written down so that the file says which it is.
+        typed["--one-way" if "--sonar" in typed else "--pulse-echo"] = True
+    if "--sonar" in typed and "--bandwidth" not in typed:
+        from ..sonar import SONAR_BANDWIDTH
+
+        typed["--bandwidth"] = SONAR_BANDWIDTH  # --sonar's pulse, for commands without --sonar
     setup = Setup.from_options(typed)  # checked now: a bad value fails before computing
 
     def save() -> None:

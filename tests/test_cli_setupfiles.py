@@ -1,0 +1,282 @@
+"""Setup files on the command line: exact round trips, techniques a command cannot model
+refused, commands without setup files refused, and scan plans that say what does not hold."""
+
+from __future__ import annotations
+
+import sys
+
+import pytest
+
+if sys.version_info >= (3, 11):
+    import tomllib
+else:  # Python 3.10
+    import tomli as tomllib
+
+# The README's sonar command (an invented echo sounder).
+SOUNDER = (
+    "--diameter",
+    "25mm",
+    "--frequency",
+    "200kHz",
+    "--material",
+    "seawater",
+    "--temperature",
+    "12",
+    "--condition",
+    "salinity=34",
+    "--sonar",
+    "--bottom-depth",
+    "10m:40m:10m",
+)
+ANGLE = (
+    "--diameter",
+    "10mm",
+    "--frequency",
+    "5MHz",
+    "--material",
+    "reference-steel",
+    "--wedge",
+    "acrylic",
+    "--refracted",
+    "60",
+)
+IMMERSION = (
+    "--diameter",
+    "10mm",
+    "--frequency",
+    "5MHz",
+    "--material",
+    "reference-steel",
+    "--water-path",
+    "40mm",
+    "--focus",
+    "60mm",
+)
+DISC = ("--diameter", "10mm", "--frequency", "5MHz", "--material", "reference-steel")
+SIZE = ("size", "--frequency", "5MHz", "--material", "steel", "--spot", "6mm", "--at", "40mm")
+
+
+def _saved(run, tmp_path, *args, name="s.toml"):
+    path = tmp_path / name
+    r = run(*args, "--save", str(path))
+    assert r.code == 0, r.stderr
+    return path, r
+
+
+@pytest.mark.parametrize("form", [("--json",), ()], ids=["json", "table"])
+def test_the_readme_sonar_command_is_repeated_exactly(run, tmp_path, form):
+    # Reference: the original command line; its replay from the file must print the same.
+    path, first = _saved(run, tmp_path, "beam", *SOUNDER, *form)
+    again = run("beam", "--setup", str(path), *form)
+    assert again.code == 0, again.stderr
+    assert again.stdout == first.stdout
+    data = tomllib.loads(path.read_text(encoding="utf-8"))
+    assert data["conventions"]["sonar"] is True
+    assert data["bottom"]["depths"] == ["10m:40m:10m"]
+    if form:
+        replay = again.json()
+        assert replay["convention"]["mode"] == "one-way"
+        assert [f["depth_m"] for f in replay["footprints"]][:1] == [10.0]
+
+
+def test_the_echo_budget_is_recorded_and_repeated(run, tmp_path):
+    args = ("--power", "150", "--efficiency", "0.4", "--bottom-loss", "12")
+    path, first = _saved(run, tmp_path, "beam", *SOUNDER, *args, "--json")
+    data = tomllib.loads(path.read_text(encoding="utf-8"))
+    assert data["bottom"] == {
+        "depths": ["10m:40m:10m"],
+        "power": "150 W",
+        "efficiency": 0.4,
+        "loss": "12 dB",
+    }
+    again = run("beam", "--setup", str(path), "--json")
+    assert again.code == 0, again.stderr
+    assert again.json() == first.json()
+
+
+def test_bare_depth_ranges_are_saved_with_the_units_the_command_gave_them(run, tmp_path):
+    path, _ = _saved(
+        run,
+        tmp_path,
+        "beam",
+        "--diameter",
+        "25mm",
+        "--frequency",
+        "200kHz",
+        "--material",
+        "seawater",
+        "--bottom-depth",
+        "10:30:10",
+        "--far-field-only",
+    )
+    assert tomllib.loads(path.read_text())["bottom"]["depths"] == ["10 m:30 m:10 m"]
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--depth", "10:30:10", name="d.toml")
+    assert tomllib.loads(path.read_text())["inspection"]["depths"] == ["10 mm:30 mm:10 mm"]
+
+
+def test_a_sonar_setup_gives_other_commands_its_one_way_narrow_band_beam(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    depths = ("--from", "50mm", "--to", "150mm", "--count", "4", "--json")
+    r = run("scan-plan", "--setup", str(path), *depths)
+    assert r.code == 0, r.stderr
+    assert "--bottom-depth" in r.stderr and "--sonar" in r.stderr and "does not use" in r.stderr
+    # Reference: the same plan asked for explicitly with --sonar's conventions
+    # (one-way, a 0.1 bandwidth).
+    explicit = run("scan-plan", *SOUNDER[:10], "--one-way", "--bandwidth", "0.1", *depths)
+    assert r.json()["mode"] == "one-way"
+    assert r.json()["widths_m"] == explicit.json()["widths_m"]
+
+
+def _one_line_refusal(r):
+    assert r.code == 2
+    lines = r.stderr.strip().splitlines()
+    assert len(lines) == 1 and lines[0].startswith("beamspread: error: ")
+    assert r.stdout == ""
+    return lines[0]
+
+
+@pytest.mark.parametrize(
+    "command",
+    [
+        ("scan-plan", "--from", "10mm", "--to", "50mm"),
+        ("map", "--depth-points", "8", "--lateral-points", "8"),
+        ("axis", "--points", "8"),
+        ("across", "--depth", "30mm", "--points", "8"),
+    ],
+    ids=lambda c: c[0],
+)
+def test_a_wedge_is_refused_by_commands_that_cannot_model_it(run, tmp_path, command):
+    path, _ = _saved(run, tmp_path, "beam", *ANGLE, "--far-field-only")
+    line = _one_line_refusal(run(command[0], "--setup", str(path), *command[1:]))
+    assert "angle-beam wedge (--wedge acrylic, --refracted 60 deg)" in line
+    assert f"which {command[0]} cannot model" in line
+    assert line.endswith("use beam, report or section with this setup")
+
+
+def test_the_commands_that_can_model_a_wedge_take_it(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *ANGLE, "--far-field-only")
+    r = run("section", "--setup", str(path), "--thickness", "25mm", "--far-field-only", "--json")
+    assert r.code == 0, r.stderr
+    out = tmp_path / "r.png"
+    assert run("report", str(path), "--output", str(out)).code == 0
+
+
+@pytest.mark.parametrize("command", ["section", "scan-plan"])
+def test_a_water_path_and_focus_are_refused_where_they_cannot_be_modelled(run, tmp_path, command):
+    path, _ = _saved(run, tmp_path, "beam", *IMMERSION, "--far-field-only")
+    extra = ("--from", "10mm", "--to", "20mm") if command == "scan-plan" else ()
+    line = _one_line_refusal(run(command, "--setup", str(path), *extra))
+    assert "a water path and a focus (--water-path 40mm, --focus 60mm)" in line
+    assert line.endswith("use beam or report with this setup")
+
+
+def test_options_that_do_not_change_the_beam_only_warn(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--depth", "30mm", "--far-field-only")
+    r = run("axis", "--setup", str(path), "--points", "8", "--json")
+    assert r.code == 0
+    assert "axis does not use the setup's --depth" in r.stderr
+
+
+@pytest.mark.parametrize(
+    "args, words",
+    [
+        (("size", "--spot", "6mm", "--at", "40mm", "--setup", "X"), "size does not take --setup"),
+        ((*SIZE, "--save", "X"), "size does not take --save"),
+        (("report", "--setup", "X", "--output", "r.pdf"), "report takes the setup file as its"),
+        (("materials", "list", "--setup", "X"), "materials does not take --setup"),
+    ],
+    ids=["size-setup", "size-save", "report", "materials"],
+)
+def test_commands_without_setup_files_refuse_them(run, tmp_path, args, words):
+    path, _ = _saved(run, tmp_path, "beam", *ANGLE, "--far-field-only")
+    target = str(path) if "--setup" in args else str(tmp_path / "new.toml")
+    line = _one_line_refusal(run(*[target if a == "X" else a for a in args]))
+    assert words in line
+    assert not (tmp_path / "new.toml").exists()
+
+
+def test_scan_plan_round_trip(run, tmp_path):
+    args = ("--from", "20mm", "--to", "60mm", "--count", "4", "--level", "12", "--json")
+    path, first = _saved(
+        run, tmp_path, "scan-plan", *DISC, "--one-way", "--bandwidth", "0.3", *args
+    )
+    again = run("scan-plan", "--setup", str(path), *args)
+    assert again.code == 0, again.stderr
+    assert again.json() == first.json()
+
+
+def test_scan_plan_far_field_inside_the_near_field_is_marked(run):
+    r = run(
+        "scan-plan",
+        *DISC,
+        "--from",
+        "10mm",
+        "--to",
+        "50mm",
+        "--count",
+        "5",
+        "--overlap",
+        "25%",
+        "--method",
+        "far-field",
+        "--json",
+    )
+    assert r.code == 0
+    data = r.json()
+    # Reference: a disc's last on-axis maximum lies at (D^2 - lambda^2) / (4 lambda)
+    # (Kinsler, Frey et al., Fundamentals of Acoustics, the baffled piston; from memory).
+    lam = 5920.0 / 5e6
+    near = (0.010**2 - lam**2) / (4 * lam)
+    assert data["near_field_m"] == pytest.approx(near, rel=1e-12)
+    assert data["far_field_valid"] == [d >= near for d in data["depths_m"]]
+    assert data["far_field_valid"] == [False, False, True, True, True]  # 10, 20 mm inside 20.8
+    assert data["governing_depth_m"] == pytest.approx(0.010)
+    assert data["governing_far_field_valid"] is False
+    warning = "depths 10 mm to 20 mm lie inside the near field (20.82 mm)"
+    assert warning in r.stderr and any(warning in w for w in data["warnings"])
+    table = run("scan-plan", *DISC, "--from", "10mm", "--to", "50mm", "--method", "far-field")
+    assert "* inside the near field (20.82 mm)" in table.stdout
+    assert "narrowest width   1.22 mm *" in table.stdout
+
+
+def test_scan_plan_far_field_beyond_the_near_field_is_not_marked(run):
+    r = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--method", "far-field", "--json")
+    data = r.json()
+    assert data["governing_far_field_valid"] is True and all(data["far_field_valid"])
+    assert "near field" not in r.stderr and data["warnings"] == []
+    field = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3", "--json")
+    assert field.json()["far_field_valid"] is None
+    assert field.json()["governing_far_field_valid"] is None
+
+
+def test_scan_plan_text_is_wrapped_and_names_its_medium(run):
+    r = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3")
+    assert r.code == 0
+    lines = r.stdout.splitlines()
+    assert max(len(line) for line in lines) <= 100  # the width beam's table uses
+    assert lines[0] == "Scan plan for a disc element, diameter 10.00 mm, 5 MHz"
+    assert lines[1].startswith("Medium: reference-steel: longitudinal wave, 5920.0 m/s")
+    assert "not a measured beam profile" in r.stdout
+    sonar = run("scan-plan", *SOUNDER[:10], "--from", "0.1m", "--to", "0.3m", "--count", "3")
+    assert "Underwater sound" in sonar.stdout
+
+
+def test_a_save_message_is_prefixed(run, tmp_path):
+    _, r = _saved(
+        run, tmp_path, "scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3"
+    )
+    assert r.stderr.strip().splitlines()[-1].startswith("beamspread: saved the setup to ")
+
+
+def test_the_readme_shows_the_file_its_sonar_command_saves(run, tmp_path):
+    import re
+    import textwrap
+    from pathlib import Path
+
+    readme = Path(__file__).resolve().parent.parent / "README.md"
+    if not readme.exists():
+        pytest.skip("README.md is not beside the tests")
+    blocks = re.findall(r"```toml\n(.*?)```", readme.read_text(encoding="utf-8"), flags=re.S)
+    (block,) = [b for b in blocks if "[bottom]" in b]
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    assert path.read_text(encoding="utf-8") == textwrap.dedent(block)
