@@ -137,12 +137,14 @@ def beam_table(
     figures=None,
     budgets=None,
     sonar: bool = False,
-    focused: bool = False,
+    focused: bool | None = None,
 ) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given).
 
     ``focused``: the result is a focused probe's, whose widths come from its
-    computed field alone; the notes under the width table say so.
+    computed field alone; the notes under the width table say so. By default
+    a result with depths but no far-field width is taken as a focused one
+    (no other setup leaves the far-field rows out).
     """
     out: list[str] = _medium_and_probe(result.probe, result.wave, units, "Beam of a")
     out.append("")
@@ -257,6 +259,10 @@ def beam_table(
                     indent=4,
                 )
             )
+    if focused is None:
+        focused = bool(result.depths) and not any(
+            s.method == "far-field" for pl in result.planes for s in pl.spots
+        )
     if result.depths:
         out.append("")
         angled = any(s.surface_distance for pl in result.planes for s in pl.spots)
@@ -337,7 +343,8 @@ def beam_table(
                                     ],
                                 ]
                             )
-        out.append(columns([head, *rows]))
+        if rows:
+            out.append(columns([head, *rows]))
         if prints:
             out.append("")
             out.append("Footprint on the horizontal plane at the depth")
@@ -394,6 +401,8 @@ def _focused_notes(result: BeamResult) -> list[str]:
     ]
     if result.field is not None:
         lines.append(f"  computed field of the focused element: paraxial (Fresnel), {where}.")
+    else:
+        lines.append("  no computed field was asked for (far field only), so no width is given.")
     return [
         line
         for text in lines
