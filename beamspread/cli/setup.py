@@ -130,6 +130,10 @@ def run_setup(
         extra = {"couplant": {"name": water.name, "speed_m_s": water.speed, "path_m": water.path}}
     warnings.extend(result.warnings)
     warnings = list(dict.fromkeys(warnings))
+    if plot_path is not None and result.focus is not None and result.refraction is None:
+        warnings.append(
+            "--plot draws the flat element's far-field directivity: the focus is not in it"
+        )
     if plot_path is not None:
         _plot(plot_path, result, settings, thickness, depths, units)
     emit_warnings(warnings)
