@@ -162,6 +162,10 @@ def test_table_output_states_its_convention(run):
             "not both",
         ),
         (("beam", "--length", "5", "--frequency", "5", "--speed", "5920"), "--width"),
+        # unit slips: Hz typed bare (read as MHz), km/s typed bare (read as m/s), a kilometre disc
+        (("beam", "--diameter", "10", "--frequency", "2250000", "--speed", "5920"), "2250000Hz"),
+        (("beam", "--diameter", "10", "--frequency", "5", "--speed", "5.9"), "5.9km/s"),
+        (("beam", "--diameter", "1e6mm", "--frequency", "5", "--speed", "5920"), "10 m"),
         ((*BASE, "--level", "0"), "level"),
         ((*BASE, "--level", "loud"), "loud"),
         ((*BASE, "--depth", "0"), "--depth"),

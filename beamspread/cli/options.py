@@ -10,7 +10,7 @@ import click
 
 from ..errors import InputError
 from ..units import from_si, parse_quantity
-from .params import CONDITION, FREQUENCY, LENGTH, SPEED, TEMPERATURE
+from .params import CONDITION, ELEMENT, FREQUENCY, SPEED, TEMPERATURE
 
 __all__ = [
     "emit_warnings",
@@ -32,12 +32,12 @@ def probe_options(f):
         required=True,
         help="Centre frequency: Hz, kHz, MHz (bare number: MHz).",
     )(f)
-    f = click.option("--width", type=LENGTH, help="Rectangular element: the other side.")(f)
+    f = click.option("--width", type=ELEMENT, help="Rectangular element: the other side.")(f)
     f = click.option(
-        "--length", type=LENGTH, help="Rectangular element: the side in the plotted plane."
+        "--length", type=ELEMENT, help="Rectangular element: the side in the plotted plane."
     )(f)
     f = click.option(
-        "--diameter", type=LENGTH, help="Disc element diameter: m, mm, um, in (bare number: mm)."
+        "--diameter", type=ELEMENT, help="Disc element diameter: m, mm, um, in (bare number: mm)."
     )(f)
     return f
 

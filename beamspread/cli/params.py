@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import re
+
 import click
 
 from ..errors import InputError
@@ -13,10 +15,20 @@ __all__ = ["CONDITION", "LEVEL", "Condition", "Level", "Quantity"]
 class Quantity(click.ParamType):
     """A number with an optional unit suffix; bare numbers take the kind's default unit."""
 
-    def __init__(self, kind: str, positive: bool = True, zero: bool = False) -> None:
+    def __init__(
+        self,
+        kind: str,
+        positive: bool = True,
+        zero: bool = False,
+        plausible: tuple[float, float, str] | None = None,
+        bare_hint: str = "",
+    ) -> None:
         self.kind = kind
         self.positive = positive
         self.zero = zero  # with positive: 0 is allowed too
+        # (low, high, "what that range is") in SI: outside, a mistake rather than a probe
+        self.plausible = plausible
+        self.bare_hint = bare_hint  # the unit a bare number was probably meant in
         self.name = kind
 
     def get_metavar(self, param, ctx=None) -> str:
@@ -32,10 +44,25 @@ class Quantity(click.ParamType):
         if self.positive and (result < 0 or (result == 0 and not self.zero)):
             allowed = "0 or more" if self.zero else "above 0"
             self.fail(f"{value!r} is not allowed; it must be {allowed}", param, ctx)
+        if self.plausible is not None and result != 0:
+            low, high, what = self.plausible
+            if not low <= abs(result) <= high:
+                text = str(value).strip()
+                bare = _BARE.match(text) is not None
+                hint = (
+                    f"; a bare number is in {KINDS[self.kind].default}: did you mean "
+                    f"{text}{self.bare_hint}?"
+                    if bare and self.bare_hint
+                    else ""
+                )
+                self.fail(f"{value!r} is outside {what}{hint}", param, ctx)
         return result
 
     def __repr__(self) -> str:
         return f"Quantity({self.kind!r})"
+
+
+_BARE = re.compile(r"^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$")
 
 
 class Level(click.ParamType):
@@ -135,10 +162,19 @@ ANGLE = Angle()
 DEPTHS = DepthList("m")  # water depths, bare numbers in m
 RANGE_DEPTHS = DepthList("mm")  # depths in a part, bare numbers in mm
 CONDITION = Condition()
-LENGTH = Quantity("length")
-PATH_LENGTH = Quantity("length", zero=True)  # a path that may vanish
-FREQUENCY = Quantity("frequency")
-SPEED = Quantity("speed")
+# What beamspread models: from infrasonic sonar to acoustic microscopy, and every medium from
+# heavy gases (about 130 m/s) to diamond (about 18000 m/s). A value outside is a slip of units.
+LENGTH = Quantity("length", plausible=(1e-6, 2e4, "the 1 um to 20 km beamspread models"))
+PATH_LENGTH = Quantity(
+    "length", zero=True, plausible=(1e-6, 2e4, "the 1 um to 20 km beamspread models")
+)
+ELEMENT = Quantity("length", plausible=(1e-5, 10.0, "the 10 um to 10 m of transducer elements"))
+FREQUENCY = Quantity(
+    "frequency", plausible=(1.0, 2e9, "the 1 Hz to 2 GHz beamspread models"), bare_hint="Hz"
+)
+SPEED = Quantity(
+    "speed", plausible=(50.0, 25000.0, "the 50 to 25000 m/s of real media"), bare_hint="km/s"
+)
 TEMPERATURE = Quantity("temperature", positive=False)
 
 UNIT_HELP = {kind: f"{k.units} (bare number: {k.default})" for kind, k in KINDS.items()}

@@ -5,7 +5,7 @@ from __future__ import annotations
 import click
 
 from .options import emit_warnings, medium_options, output_options, pass_output, resolve_wave
-from .params import FREQUENCY, LENGTH, LEVEL
+from .params import ELEMENT, FREQUENCY, LENGTH, LEVEL
 
 
 def _angle(text: str, name: str) -> float:
@@ -30,11 +30,11 @@ def _angle(text: str, name: str) -> float:
     help="Centre frequency (solve the diameter, or a rectangle's side).",
 )
 @click.option(
-    "--diameter", type=LENGTH, default=None, help="Disc diameter (solve the frequency instead)."
+    "--diameter", type=ELEMENT, default=None, help="Disc diameter (solve the frequency instead)."
 )
 @click.option(
     "--other-side",
-    type=LENGTH,
+    type=ELEMENT,
     default=None,
     help="For a rectangle: the side across the target plane; solves the side in it.",
 )
