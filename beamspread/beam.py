@@ -17,6 +17,7 @@ from . import axis, pattern
 from .errors import InputError
 from .media.model import Wave
 from .probes import Disc, Probe, Rectangle, check_positive
+from .units import length_text as _mm
 from .units import parse_level
 
 __all__ = [
@@ -129,10 +130,6 @@ class BeamResult:
     depths: tuple[float, ...] = ()
     warnings: tuple[str, ...] = field(default_factory=tuple)
     field: FieldSummary | None = None
-
-
-def _mm(metres: float) -> str:
-    return f"{metres * 1e3:.4g} mm"
 
 
 def _levels(levels: Iterable[float | str]) -> tuple[float, ...]:

@@ -35,6 +35,7 @@ import numpy as np
 from . import axis, pattern, sonar
 from .errors import InputError
 from .probes import Rectangle
+from .units import length_text as _mm
 from .units import parse_level
 
 __all__ = ["Design", "size_disc", "size_frequency", "size_rectangle_side", "smallest_spot"]
@@ -175,10 +176,6 @@ def _inside_near_field(kind: str, depth: np.ndarray, near: np.ndarray) -> np.nda
         return np.zeros(near.shape, dtype=bool)
     with np.errstate(invalid="ignore"):
         return np.isfinite(near) & (depth < near)
-
-
-def _mm(metres: float) -> str:
-    return f"{metres * 1e3:.4g} mm"
 
 
 def _spot_message(depth, spot_w, solution, near, smallest) -> str:

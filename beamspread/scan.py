@@ -34,6 +34,7 @@ import numpy as np
 
 from .errors import InputError
 from .probes import check_positive
+from .units import length_text as _mm
 
 __all__ = [
     "RULE",
@@ -386,7 +387,3 @@ def _near_field(probe, wavelength: float) -> tuple[float | None, float]:
     else:
         near = axis.rectangle_near_field(probe.length, probe.width, wavelength)
     return (None if math.isnan(near) else near), simple
-
-
-def _mm(metres: float) -> str:
-    return f"{metres * 1e3:.4g} mm"

@@ -20,6 +20,7 @@ __all__ = [
     "KINDS",
     "format_length",
     "from_si",
+    "length_text",
     "parse_density",
     "parse_frequency",
     "parse_length",
@@ -282,6 +283,17 @@ def parse_level(value: object, what: str | None = None) -> float:
             "give a level from above 0 up to 200 dB below the peak"
         )
     return level
+
+
+def length_text(metres: float) -> str:
+    """A length for messages, four significant figures: mm below a metre, m above.
+
+    >>> length_text(0.02082), length_text(21.11)
+    ('20.82 mm', '21.11 m')
+    """
+    if abs(metres) >= 1.0:
+        return f"{metres:.4g} m"
+    return f"{metres * 1e3:.4g} mm"
 
 
 def format_length(
