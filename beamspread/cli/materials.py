@@ -166,7 +166,7 @@ def list_(materials_dirs, as_json):
         )
     click.echo(columns(table, indent=0))
     click.echo(
-        f"\n{len(rows)} entries. * computed from conditions, shown at their defaults "
+        f"\n{_entries(len(rows))}. * computed from conditions, shown at their defaults "
         "(beamspread materials show NAME)."
     )
 
@@ -258,7 +258,7 @@ def check(file):
 
     table = load_table(file)
     names = ", ".join(m.name for m in table.materials)
-    click.echo(f"{file}: ok, {len(table.materials)} entries ({names})")
+    click.echo(f"{file}: ok, {_entries(len(table.materials))} ({names})")
 
 
 @materials.command()
@@ -280,3 +280,7 @@ def paths(materials_dirs, as_json):
     for row in rows:
         state = "" if row["exists"] else "  (does not exist)"
         click.echo(f"{row['source']}: {row['path']}{state}")
+
+
+def _entries(count: int) -> str:
+    return f"{count} entry" if count == 1 else f"{count} entries"
