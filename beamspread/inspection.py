@@ -553,9 +553,16 @@ def _focused_spots(probe, c_water, focus, depth, equivalent, levels, plane, mode
 
     The field is that in the couplant at the equivalent water path
     ``equivalent`` (m), with the lateral scale unchanged (see the module notes).
+    Within one element size of the face the paraxial field does not hold (and
+    its quadrature grows without bound): no width is given there.
     """
     from .field import focused_beam_widths
 
+    if equivalent < probe.longest_side:
+        return [
+            Spot(depth, -lv, None, None, method="field", sound_path=depth, surface_distance=0.0)
+            for lv in levels
+        ]
     found = focused_beam_widths(
         probe,
         c_water,
@@ -601,7 +608,8 @@ def _focused_field_warnings(probe, focus, wp, c_water, c_part, depths, field) ->
         where = "" if wp == 0 else " (the water path and the depth counted as couplant)"
         return [
             f"depth {_mm(close[0])} lies within one element size ({_mm(size)}) of the "
-            f"face{where}: the paraxial field of the focus is rough there"
+            f"face{where}: the paraxial field of the focus does not hold there, so no "
+            "computed width is given"
         ]
     return []
 

@@ -248,9 +248,9 @@ def test_focus_with_far_field_only_and_depths_is_refused(run):
     assert len(lines) == 1 and "--far-field-only" in lines[0] and "focused" in lines[0]
 
 
-def test_focus_close_to_the_face_is_warned(run):
+def test_no_width_within_one_element_size_of_the_face(run):
     # A focus straight in water, a depth within one element size of the face: the Fresnel
-    # approximation is rough there.
+    # approximation does not hold there, so that depth gets no width (and a warning says why).
     r = run(
         "beam",
         "--diameter",
@@ -265,6 +265,10 @@ def test_focus_close_to_the_face_is_warned(run):
         "5mm",
         "--depth",
         "50mm",
+        "--json",
     )
     assert r.code == 0
-    assert "paraxial field of the focus is rough" in r.stderr and "5 mm" in r.stderr
+    spots = r.json()["planes"][0]["spots"]
+    assert all(s["width_m"] is None for s in spots if s["depth_m"] == 0.005)
+    assert all(s["width_m"] > 0 for s in spots if s["depth_m"] == 0.05)
+    assert "does not hold there" in r.stderr and "5 mm" in r.stderr

@@ -58,12 +58,12 @@ approximation and the lens's quadratic phase. M. Abramowitz and I. A. Stegun,
 from __future__ import annotations
 
 import math
-from functools import lru_cache
 
 import numpy as np
 
 from ..errors import InputError
 from ..probes import Disc, Rectangle, check_positive
+from ._boundary import _legendre
 from .engine import check_mode
 from .profiles import BeamWidth, _level
 from .spectrum import check_bandwidth, make_spectrum
@@ -72,6 +72,7 @@ __all__ = ["focused_amplitude", "focused_beam_widths", "focused_pressure"]
 
 _BUDGET = 1 << 18  # real elements of one (depth x frequency x offset x node) block
 _MAX_ROUNDS = 12  # the scan across the beam doubles its extent at most this often
+_MAX_NODES = 16384  # Gauss-Legendre nodes across the half-aperture
 
 
 def _j0(x: np.ndarray) -> np.ndarray:
@@ -107,16 +108,26 @@ def _j0(x: np.ndarray) -> np.ndarray:
     return np.where(small, series, f0 * np.cos(theta) / np.sqrt(big))
 
 
-@lru_cache(maxsize=64)
-def _gauss(n: int) -> tuple[np.ndarray, np.ndarray]:
-    """Gauss-Legendre nodes and weights on [0, 1]."""
-    t, w = np.polynomial.legendre.leggauss(n)
-    return 0.5 * (t + 1.0), 0.5 * w
-
-
 def _node_count(phase: float) -> int:
+    """Gauss-Legendre nodes for a total phase: multiples of 8 up to 64, then rungs 1.25x apart.
+
+    Few distinct sizes, so the cached rules are reused (past 100 nodes each costs O(n^2) to
+    build); past _MAX_NODES the depth is too close to the face for this model to be of use.
+    """
     n = math.ceil(0.5 * phase) + 24
-    return 8 * math.ceil(n / 8)  # a few sizes only, so the cached rules are reused
+    if n <= 64:
+        return 8 * math.ceil(n / 8)
+    rung = 64.0
+    while rung < n:
+        rung *= 1.25
+    count = 8 * math.ceil(rung / 8)
+    if count > _MAX_NODES:
+        raise InputError(
+            f"the focused element's field here would need {count} quadrature nodes (at most "
+            f"{_MAX_NODES}): the depth is too close to the face, by thousands of wavelengths "
+            "of phase across the element, for its paraxial field to be of use"
+        )
+    return count
 
 
 def _integrals(half, kind, alpha, beta):
@@ -128,7 +139,7 @@ def _integrals(half, kind, alpha, beta):
     ``"line"`` (:math:`\\int_{-a}^{a} ... e^{i\\beta\\xi} d\\xi`).
     """
     phase = float(np.max(np.abs(alpha))) * half * half + float(np.max(np.abs(beta))) * half
-    t, w = _gauss(_node_count(phase))
+    t, w = _legendre(_node_count(phase))
     rho = half * t
     weight = half * w * (rho if kind == "disc" else 2.0)
     arg = alpha[..., None] * (rho * rho)  # (D, F, n)
