@@ -1,4 +1,4 @@
-"""Bessel function J1 in plain numpy, so the command line need not import scipy.
+"""Bessel functions J0 and J1 in plain numpy, so the command line need not import scipy.
 
 The command line must start fast, and ``scipy.special`` alone costs several
 times the import of numpy. J1 is evaluated from Bessel's integral
@@ -56,3 +56,36 @@ def jinc(x: np.ndarray | float) -> np.ndarray:
     x2 = x * x
     series = 1.0 - x2 / 8.0 * (1.0 - x2 / 24.0 * (1.0 - x2 / 48.0))
     return np.where(small, series, 2.0 * j1(safe) / safe)
+
+
+def j0(x: np.ndarray | float) -> np.ndarray:
+    """Bessel J0 of real ``x``: Abramowitz and Stegun 9.4.1 (|x| <= 3) and 9.4.3 (|x| > 3)."""
+    x = np.abs(np.asarray(x, dtype=float))
+    small = x <= 3.0
+    t = np.where(small, x, 3.0) * (1.0 / 3.0)
+    t *= t
+    series = 1.0 + t * (
+        -2.2499997
+        + t * (1.2656208 + t * (-0.3163866 + t * (0.0444479 + t * (-0.0039444 + t * 0.0002100))))
+    )
+    big = np.where(small, 3.0, x)
+    y = 3.0 / big
+    f0 = 0.79788456 + y * (
+        -0.00000077
+        + y
+        * (-0.00552740 + y * (-0.00009512 + y * (0.00137237 + y * (-0.00072805 + y * 0.00014476))))
+    )
+    theta = (
+        big
+        - 0.78539816
+        + y
+        * (
+            -0.04166397
+            + y
+            * (
+                -0.00003954
+                + y * (0.00262573 + y * (-0.00054125 + y * (-0.00029333 + y * 0.00013558)))
+            )
+        )
+    )
+    return np.where(small, series, f0 * np.cos(theta) / np.sqrt(big))

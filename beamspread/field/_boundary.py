@@ -45,7 +45,7 @@ _MAX_NODES = 16384  # about 5000 wavelengths of phase along one piece
 
 
 @cache
-def _legendre(n: int) -> tuple[np.ndarray, np.ndarray]:
+def gauss_legendre(n: int) -> tuple[np.ndarray, np.ndarray]:
     """Gauss-Legendre nodes and weights mapped to [0, 1].
 
     Up to 100 nodes numpy's rule (an eigenvalue problem, O(n^3)); beyond, Newton's method on
@@ -78,24 +78,30 @@ def _legendre(n: int) -> tuple[np.ndarray, np.ndarray]:
     return 0.5 * (nodes + 1.0), 0.5 * weights
 
 
-def _node_count(phase: np.ndarray, length_ratio: np.ndarray, rule: tuple) -> np.ndarray:
-    """Nodes for each piece from its phase change and the ratio length / foot width."""
-    per_radian, base = rule
-    with np.errstate(divide="ignore", invalid="ignore"):
-        foot = _FOOT * np.sqrt(np.where(np.isfinite(length_ratio), length_ratio, 0.0))
-    n = np.ceil(np.maximum(per_radian * phase + base, foot))
-    n = np.maximum(n, _MIN)
+def node_ladder(n: np.ndarray, what: str = "the computed field here") -> np.ndarray:
+    """Node counts raised to multiples of _STEP and, past _LADDER_START, to the next rung.
+
+    Raises InputError past _MAX_NODES, naming ``what`` would need them.
+    """
+    n = np.maximum(np.asarray(n, dtype=float), _MIN)
     if n.size and float(np.max(n)) > _MAX_NODES:
         raise InputError(
-            f"the computed field here would need {float(np.max(n)):.3g} quadrature nodes on one "
-            f"boundary piece (at most {_MAX_NODES}): the element is too many wavelengths across "
-            "or the point too close to its face; check the units, or use the far-field formulas "
-            "alone (--far-field-only)"
+            f"{what} would need {float(np.max(n)):.3g} quadrature nodes on one piece (at most "
+            f"{_MAX_NODES}): the element is too many wavelengths across or the point too close "
+            "to its face; check the units, or use the far-field formulas alone (--far-field-only)"
         )
     big = n > _LADDER_START
     rung = np.ceil(np.log(np.where(big, n, _LADDER_START) / _LADDER_START) / np.log(1.25))
     n = np.where(big, _LADDER_START * 1.25**rung, n)
     return (np.ceil(n / _STEP) * _STEP).astype(np.int64)
+
+
+def _node_count(phase: np.ndarray, length_ratio: np.ndarray, rule: tuple) -> np.ndarray:
+    """Nodes for each piece from its phase change and the ratio length / foot width."""
+    per_radian, base = rule
+    with np.errstate(divide="ignore", invalid="ignore"):
+        foot = _FOOT * np.sqrt(np.where(np.isfinite(length_ratio), length_ratio, 0.0))
+    return node_ladder(np.ceil(np.maximum(per_radian * phase + base, foot)))
 
 
 def _assemble(
@@ -143,7 +149,7 @@ def _assemble(
     offset[order] = first - row_start[pieces[order]]
     for n in np.unique(counts):
         index = np.flatnonzero(counts == n)
-        t, w = _legendre(int(n))
+        t, w = gauss_legendre(int(n))
         span = (stop - start)[index, None]
         nodes = start[index, None] + span * t
         qn, wn = rule(index, nodes, span * w)

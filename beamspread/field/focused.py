@@ -61,73 +61,30 @@ import math
 
 import numpy as np
 
+from .._bessel import j0
 from ..errors import InputError
 from ..probes import Disc, Rectangle, check_positive
-from ._boundary import _legendre
+from ..units import parse_level
+from ._boundary import gauss_legendre, node_ladder
 from .engine import check_mode
-from .profiles import BeamWidth, _level
+from .profiles import BeamWidth
 from .spectrum import check_bandwidth, make_spectrum
 
 __all__ = ["focused_amplitude", "focused_beam_widths", "focused_pressure"]
 
 _BUDGET = 1 << 18  # real elements of one (depth x frequency x offset x node) block
 _MAX_ROUNDS = 12  # the scan across the beam doubles its extent at most this often
-_MAX_NODES = 16384  # Gauss-Legendre nodes across the half-aperture
-
-
-def _j0(x: np.ndarray) -> np.ndarray:
-    """Bessel J0 of real ``x``: Abramowitz and Stegun 9.4.1 (|x| <= 3) and 9.4.3 (|x| > 3)."""
-    x = np.abs(x)
-    small = x <= 3.0
-    t = np.where(small, x, 3.0) * (1.0 / 3.0)
-    t *= t
-    series = 1.0 + t * (
-        -2.2499997
-        + t * (1.2656208 + t * (-0.3163866 + t * (0.0444479 + t * (-0.0039444 + t * 0.0002100))))
-    )
-    big = np.where(small, 3.0, x)
-    y = 3.0 / big
-    f0 = 0.79788456 + y * (
-        -0.00000077
-        + y
-        * (-0.00552740 + y * (-0.00009512 + y * (0.00137237 + y * (-0.00072805 + y * 0.00014476))))
-    )
-    theta = (
-        big
-        - 0.78539816
-        + y
-        * (
-            -0.04166397
-            + y
-            * (
-                -0.00003954
-                + y * (0.00262573 + y * (-0.00054125 + y * (-0.00029333 + y * 0.00013558)))
-            )
-        )
-    )
-    return np.where(small, series, f0 * np.cos(theta) / np.sqrt(big))
 
 
 def _node_count(phase: float) -> int:
-    """Gauss-Legendre nodes for a total phase: multiples of 8 up to 64, then rungs 1.25x apart.
-
-    Few distinct sizes, so the cached rules are reused (past 100 nodes each costs O(n^2) to
-    build); past _MAX_NODES the depth is too close to the face for this model to be of use.
-    """
-    n = math.ceil(0.5 * phase) + 24
-    if n <= 64:
-        return 8 * math.ceil(n / 8)
-    rung = 64.0
-    while rung < n:
-        rung *= 1.25
-    count = 8 * math.ceil(rung / 8)
-    if count > _MAX_NODES:
-        raise InputError(
-            f"the focused element's field here would need {count} quadrature nodes (at most "
-            f"{_MAX_NODES}): the depth is too close to the face, by thousands of wavelengths "
-            "of phase across the element, for its paraxial field to be of use"
-        )
-    return count
+    """Gauss-Legendre nodes for a total phase change across the half-aperture."""
+    return int(
+        node_ladder(
+            np.array([math.ceil(0.5 * phase) + 24]),
+            "the focused element's field here (the depth is too close to the face for its "
+            "paraxial field to be of use)",
+        )[0]
+    )
 
 
 def _integrals(half, kind, alpha, beta):
@@ -139,7 +96,7 @@ def _integrals(half, kind, alpha, beta):
     ``"line"`` (:math:`\\int_{-a}^{a} ... e^{i\\beta\\xi} d\\xi`).
     """
     phase = float(np.max(np.abs(alpha))) * half * half + float(np.max(np.abs(beta))) * half
-    t, w = _legendre(_node_count(phase))
+    t, w = gauss_legendre(_node_count(phase))
     rho = half * t
     weight = half * w * (rho if kind == "disc" else 2.0)
     arg = alpha[..., None] * (rho * rho)  # (D, F, n)
@@ -147,7 +104,7 @@ def _integrals(half, kind, alpha, beta):
     e_im = -weight * np.sin(arg)
     d, f, r = beta.shape
     out = np.empty((d, f, r), dtype=complex)
-    kernel = _j0 if kind == "disc" else np.cos
+    kernel = j0 if kind == "disc" else np.cos
     step = max(1, _BUDGET // (f * rho.size))
     for i in range(0, d):
         for j in range(0, r, step):
@@ -374,7 +331,7 @@ def focused_beam_widths(
     bandwidth = check_bandwidth(bandwidth)
     mode = check_mode(mode)
     depth = check_positive(depth, "depth", "m")
-    levels = [_level(level) for level in levels_db]
+    levels = [parse_level(level) for level in levels_db]
     spec = make_spectrum(spectrum, probe.frequency, bandwidth, frequencies)
     half = 0.5 * dict(probe.planes)[plane]
     lam = speed / probe.frequency

@@ -24,6 +24,7 @@ from .._search import golden_max
 from ..axis import simple_near_field
 from ..errors import InputError
 from ..probes import check_positive
+from ..units import parse_level
 from .engine import _grid_amplitude, check_mode
 from .spectrum import check_bandwidth
 
@@ -314,18 +315,6 @@ def beam_width(
     )[0]
 
 
-def _level(level_db) -> float:
-    try:
-        level = abs(float(level_db))
-    except (TypeError, ValueError):
-        raise InputError(f"level: {level_db!r} is not a number") from None
-    if not math.isfinite(level) or level == 0.0:
-        raise InputError(
-            f"level: {level_db!r} dB is not allowed; it must be a finite level below 0 dB"
-        )
-    return level
-
-
 def beam_widths(
     probe,
     speed: float,
@@ -342,7 +331,7 @@ def beam_widths(
     speed, bandwidth, mode = _options(speed, bandwidth, mode)
     plane = _plane(probe, plane)
     depth = check_positive(depth, "depth", "m")
-    levels = [_level(level) for level in levels_db]
+    levels = [parse_level(level) for level in levels_db]
     aperture = dict(probe.planes)[plane]
     wavelength = speed / probe.frequency
     spacing = 0.25 * min(math.sqrt(wavelength * depth), wavelength * depth / aperture)
