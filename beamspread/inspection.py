@@ -54,6 +54,7 @@ from .beam import (
 from .errors import InputError
 from .media.model import Wave
 from .probes import Disc, Ellipse, Rectangle, check_positive
+from .units import length_text as _mm
 
 __all__ = [
     "Focus",
@@ -177,10 +178,6 @@ class SetupResult:
 
 def _deg(rad: float) -> str:
     return f"{math.degrees(rad):.2f} deg"
-
-
-def _mm(metres: float) -> str:
-    return f"{metres * 1e3:.4g} mm"
 
 
 def _levels(levels):
