@@ -225,3 +225,31 @@ def test_setup_options_a_command_cannot_use_are_named(run, tmp_path):
     r = run("axis", "--setup", str(saved), "--points", "20", "--json")
     assert r.code == 2
     assert "--wedge" in r.stderr and "cannot model" in r.stderr
+
+
+def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):
+    # A disc's near field (its last on-axis maximum) is known in closed form,
+    # N = (D^2 - lambda^2) / (4 lambda) (Kinsler & Frey, the baffled piston's axial field);
+    # a pulse's own last maximum is marked too.
+    from beamspread.report import plots
+
+    seen = {}
+    monkeypatch.setattr(plots, "plot_map", lambda field_map, path, **kw: seen.update(kw))
+    for bandwidth in ("0", "0.5"):
+        seen.clear()
+        r = run(
+            "map",
+            *DISC,
+            "--bandwidth",
+            bandwidth,
+            "--depth-points",
+            "20",
+            "--lateral-points",
+            "16",
+            "--plot",
+            str(tmp_path / f"map{bandwidth}.png"),
+        )
+        assert r.code == 0, r.stderr
+        wavelength = 5920.0 / 5e6
+        assert seen["near_field"] == pytest.approx((0.01**2 - wavelength**2) / (4 * wavelength))
+        assert (seen["axial_maximum"] is None) is (bandwidth == "0")

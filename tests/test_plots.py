@@ -8,6 +8,7 @@ the computed width at the depth of that pixel row.
 
 from __future__ import annotations
 
+import itertools
 import math
 import re
 import zlib
@@ -244,3 +245,185 @@ def test_footprint_near_field_is_hatched_or_named(near_field, drawn):
     (entry,) = [t for t in texts if t.startswith("near field")]
     assert ("too thin" in entry) is not drawn
     assert any(p.get_hatch() == "///" for p in ax.patches) is drawn
+
+
+# ----------------------------------------------------------------- what a reader must see
+
+
+def _display_points(line) -> np.ndarray:
+    """A line's finite points in display coordinates (pixels), through its own transform."""
+    xy = np.column_stack([line.get_xdata(), line.get_ydata()]).astype(float)
+    xy = xy[np.all(np.isfinite(xy), axis=1)]
+    return line.get_transform().transform(xy) if xy.size else xy.reshape(0, 2)
+
+
+def _j1_root(value: float) -> float:
+    """x where the disc's pattern 2 J1(x)/x falls to ``value`` (with scipy.special.j1)."""
+    from scipy.optimize import brentq
+    from scipy.special import j1
+
+    return brentq(lambda x: 2 * j1(x) / x - value, 1e-6, 3.8317)
+
+
+@pytest.mark.parametrize(("angles", "level_db"), [("half", 6.0), ("full", 3.0)])
+def test_directivity_states_half_and_full_angles_against_the_disc_pattern(angles, level_db):
+    # The one-way far field of a baffled disc is 2 J1(x)/x with x = pi D sin(theta) / lambda
+    # (Kinsler & Frey, Fundamentals of Acoustics, the baffled circular piston); the level's
+    # half-angle is found here with scipy, not with beamspread.pattern.
+    diameter, wavelength = 0.05, 1489.8 / 200e3
+    x = _j1_root(10 ** (-level_db / 20))
+    half = math.degrees(math.asin(x * wavelength / (math.pi * diameter)))
+    fig = plots.directivity_figure(
+        {"diameter": diameter}, wavelength, "disc", levels_db=(level_db,), angles=angles
+    )
+    labels = [t.get_text() for t in fig.legends[0].get_texts()]
+    (one_way,) = [t for t in labels if "one-way" in t]
+    assert f"\u00b1{half:.2f}\u00b0" in one_way and f"full {2 * half:.2f}\u00b0" in one_way
+    title = " ".join(t.get_text() for t in fig.texts)
+    assert ("full angles" in title) is (angles == "full")
+    assert ("half-angles" in title) is (angles == "half")
+    # The lead value is the convention asked for.
+    first = one_way.split(": ", 1)[1]
+    assert first.startswith(
+        f"{_MINUS}{level_db:g} dB " + ("full" if angles == "full" else "\u00b1")
+    )
+
+
+_MINUS = "\u2212"
+
+
+def test_axis_markers_at_the_ends_are_drawn_whole(tmp_path):
+    # A profile falling through -6 dB in its very last step: the crossing sits at the last depth.
+    depth = np.linspace(0.01, 0.06, 51)
+    amplitude = np.ones_like(depth)
+    amplitude[-1] = 10 ** (-6.01 / 20)
+    profile = plots_profile(depth, amplitude)
+    fig = plots.axis_figure(profile, levels_db=(6,))
+    fig.draw_without_rendering()
+    ax = fig.axes[0]
+    box = ax.get_window_extent()
+    (markers,) = [line for line in ax.lines if line.get_marker() == "o"]
+    radius = (markers.get_markersize() + markers.get_markeredgewidth()) / 2 * fig.dpi / 72
+    for x, y in _display_points(markers):
+        assert box.x0 + radius <= x <= box.x1 - radius
+        assert box.y0 + radius <= y <= box.y1 - radius
+
+
+def plots_profile(depth, amplitude):
+    from beamspread.field import AxialProfile
+
+    return AxialProfile(depth=depth, amplitude=amplitude, mode="one-way", bandwidth=0.0)
+
+
+def _computed_like_section(flaw_depth=0.015):
+    """Edges like the computed field's: samples begin a little way into the part, already wide."""
+    paths = np.linspace(0.003, 0.14, 30)
+    edges = (
+        plots.BeamEdge(6, paths, 0.009 + 2 * paths * math.tan(math.radians(4.5))),
+        plots.BeamEdge(20, paths, 0.016 + 2 * paths * math.tan(math.radians(7.7))),
+    )
+    return plots.SectionGeometry(0.025, math.radians(60), 0.0, edges, flaw_depth=flaw_depth)
+
+
+def test_section_edges_start_on_the_surface_and_everything_is_inside_the_axes():
+    g = _computed_like_section()
+    fig = plots.section_figure(g)
+    fig.draw_without_rendering()
+    ax = next(a for a in fig.axes if a.get_title())  # the section; the other holds the legend
+    (x0, x1), (y1, y0) = ax.get_xlim(), ax.get_ylim()  # depth grows downward
+    for line in ax.lines:
+        x, y = np.asarray(line.get_xdata(), float), np.asarray(line.get_ydata(), float)
+        ok = np.isfinite(x) & np.isfinite(y)
+        assert np.all((x[ok] >= x0) & (x[ok] <= x1)), line.get_label()
+        assert np.all((y[ok] >= y0) & (y[ok] <= y1)), line.get_label()
+    box = ax.get_window_extent()
+    for line in ax.lines:  # the footprint bars and the exit mark are shifted in points
+        for px, py in _display_points(line):
+            assert box.x0 - 0.5 <= px <= box.x1 + 0.5 and box.y0 - 0.5 <= py <= box.y1 + 0.5
+    # Each level's two edges leave the scanning surface (depth 0) and never rise above it.
+    tol = 1e-9
+    edges = [line for line in ax.lines if len(line.get_xdata()) > 3]
+    held = [line for line in edges if line.get_alpha() is not None]
+    assert held  # these edges begin in the part: their first stretch is held, drawn lighter
+    for i in range(len(g.edges)):
+        colour = plots._PALETTE[1 + i]
+        mine = [line for line in edges if line.get_color() == colour]
+        assert all(_data(line)[:, 1].min() >= -tol for line in mine)
+        assert sum(abs(_data(line)[0, 1]) < tol for line in mine) == 2  # one start per side
+    # The shading lies between the main level's two edges: its vertices are their points.
+    (shade,) = [p for p in ax.patches if p.get_alpha() == 0.12]
+    main = np.concatenate([_data(line) for line in edges if line.get_color() == plots._PALETTE[1]])
+    for vx, vy in shade.get_xy():
+        assert vy >= -tol
+        assert np.min(np.hypot(main[:, 0] - vx, main[:, 1] - vy)) < tol
+
+
+def _data(line) -> np.ndarray:
+    xy = np.column_stack([line.get_xdata(), line.get_ydata()]).astype(float)
+    return xy[np.all(np.isfinite(xy), axis=1)]
+
+
+def test_section_footprints_are_inside_the_range_on_rows_of_their_own():
+    g = _computed_like_section()
+    prints = plots.section_footprints(g)
+    assert {(fp.leg, fp.level_db) for fp in prints} == {(1, 6), (1, 20), (2, 6), (2, 20)}
+    fig = plots.section_figure(g)
+    fig.draw_without_rendering()
+    ax = next(a for a in fig.axes if a.get_title())  # the section; the other holds the legend
+    low, high = ax.get_xlim()
+    assert all(low < fp.near * 1e3 and fp.far * 1e3 < high for fp in prints)
+    bars = [line for line in ax.lines if line.get_marker() == "|"]
+    assert len(bars) == len(prints)
+    rows = [_display_points(bar)[0][1] for bar in bars]
+    # No two bars share a row: legs 1 and 2 of one level never run together.
+    gaps = np.diff(np.sort(rows)) * 72 / fig.dpi
+    assert np.all(gaps >= 3.5), gaps
+    _, flaw = ax.transData.transform((0.0, g.flaw_depth * 1e3))
+    for fp, y in zip(prints, rows, strict=True):
+        assert bool(y > flaw) is (fp.leg == 1)  # leg 1 above the flaw-depth line, leg 2 below
+    (strip,) = [a for a in fig.axes if a is not ax]
+    legend = [t.get_text() for t in strip.get_legend().get_texts()]
+    assert any("leg 1 above, leg 2 below" in t for t in legend)
+
+
+def test_footprint_width_labels_are_clear_of_every_line(tmp_path):
+    # Widths of an invented -3 dB and -10 dB cone, labelled at four depths.
+    depths = [10.0, 20.0, 30.0, 40.0]
+    fig = plots.footprint_figure(
+        depths,
+        {3: [1.54, 3.07, 4.61, 6.14], 10: [2.61, 5.23, 7.84, 10.5]},
+        near_field=0.08,
+    )
+    fig.draw_without_rendering()
+    ax = fig.axes[0]
+    from matplotlib.text import Annotation
+
+    labels = [t for t in ax.texts if isinstance(t, Annotation)]
+    assert len(labels) == 8
+    box = ax.get_window_extent()
+    cone = [line for line in ax.lines if len(line.get_xdata()) > 2]
+    assert len(cone) == 4
+    for label in labels:
+        b = label.get_window_extent()
+        assert box.x0 <= b.x0 and b.x1 <= box.x1 and box.y0 <= b.y0 and b.y1 <= box.y1
+        for line in cone:  # sample each straight piece densely on screen
+            p = _display_points(line)
+            for (ax0, ay0), (ax1, ay1) in itertools.pairwise(p):
+                u = np.linspace(0, 1, 400)
+                xs, ys = ax0 + u * (ax1 - ax0), ay0 + u * (ay1 - ay0)
+                inside = (xs > b.x0) & (xs < b.x1) & (ys > b.y0) & (ys < b.y1)
+                assert not inside.any(), (label.get_text(), line.get_label())
+    assert all(t.get_text().startswith(_MINUS) for t in labels)  # each names its level
+
+
+def test_map_marks_and_names_the_near_field_and_the_pulse_maximum(beam_map):
+    fig = plots.map_figure(beam_map, near_field=NEAR, axial_maximum=0.9 * NEAR)
+    (legend,) = [a.get_legend() for a in fig.axes if a.get_legend()]
+    texts = [t.get_text() for t in legend.get_texts()]
+    assert any(t.startswith(f"{_MINUS}6 dB") for t in texts)
+    assert any(t.startswith(f"{_MINUS}20 dB") for t in texts)
+    assert any(t.startswith("near field N = ") for t in texts)
+    assert any(t.startswith("last on-axis maximum of the pulse") for t in texts)
+    ax = plots.new_figure().add_subplot()
+    plots.draw_map(ax, beam_map, plane="incidence")
+    assert "incidence plane" in ax.get_xlabel()

@@ -430,13 +430,28 @@ def map_(
         spectrum=settings.spectrum,
     )
     if plot_path is not None:
+        from ..field import last_maximum
         from ..report.plots import plot_map
 
+        # The near field is known for every probe (the continuous-wave last on-axis maximum);
+        # a pulse's own last on-axis maximum, where the map's beam is strongest, is marked too.
         near, _ = _near_fields(probe, wavelength)
+        pulse_maximum = None
+        if settings.bandwidth > 0:
+            pulse_maximum = last_maximum(
+                probe,
+                medium.speed,
+                bandwidth=settings.bandwidth,
+                mode=mode,
+                frequencies=settings.frequencies,
+                spectrum=settings.spectrum,
+            )
         plot_map(
             result,
             plot_path,
-            near_field=near if settings.bandwidth == 0 else None,
+            near_field=near,
+            axial_maximum=pulse_maximum,
+            near_label="near field (continuous wave)" if settings.bandwidth > 0 else "near field",
             caption=_caption(probe, medium, settings, mode),
             units=units,
         )

@@ -53,6 +53,7 @@ __all__ = [
     "check_target",
     "directivity_figure",
     "draw_map",
+    "draw_section",
     "footprint_figure",
     "map_figure",
     "new_figure",
@@ -225,7 +226,7 @@ def _outline(width: float = 2.6):
     return [patheffects.withStroke(linewidth=width, foreground="black")]
 
 
-def _polar_figure(size, caption: str, entries: int) -> tuple[Figure, float]:
+def _polar_figure(size, caption: str, rows: int) -> tuple[Figure, float]:
     """A figure holding one polar axes whose lower half-disc fills the space left.
 
     Placed by hand: a layout engine would keep room for the whole (square)
@@ -239,7 +240,7 @@ def _polar_figure(size, caption: str, entries: int) -> tuple[Figure, float]:
     FigureCanvasAgg(fig)
     width, height = size
     caption_in = _caption(fig, caption) * height
-    legend_in = (-(-entries // 2) * 7.5 * 1.55 + 6.0) / 72.0
+    legend_in = (rows * 7.5 * 1.55 + 6.0) / 72.0
     below = caption_in + legend_in + 0.38  # the angle labels under the half-disc
     above = 0.62 + 0.2  # two lines of title, the radius labels
     side = max(1.0, min(2.0 * (height - below - above), width - 1.1))  # the half-disc's width
@@ -298,6 +299,7 @@ class MapArtists:
     near_field: Any | None
     depth_lines: list[Any]
     handles: list[Any]
+    colorbar: Any | None = None
 
 
 def draw_map(
@@ -310,6 +312,12 @@ def draw_map(
     units: str = "mm",
     colorbar: bool = True,
     legend: bool = True,
+    axial_maximum: float | None = None,
+    plane: str | None = None,
+    near_label: str = "near field",
+    depth_labels: Sequence[str] | None = None,
+    depth_legend: str = "requested depths",
+    axial_label: str = "last on-axis maximum of the pulse",
 ) -> MapArtists:
     """Draw a :class:`~beamspread.field.FieldMap` into ``ax``: lateral across, depth downward.
 
@@ -317,8 +325,12 @@ def draw_map(
     :data:`FLOOR_DB` to 0 dB. The contours are drawn at ``levels_db`` below
     the maximum *at each depth* (the convention of
     :func:`beamspread.field.beam_widths`), so a contour crosses a depth line
-    at the beam's width there. ``near_field`` (m) and ``depths`` (m) are
-    marked as horizontal lines.
+    at the beam's width there. ``near_field``, ``axial_maximum`` (the last
+    on-axis maximum of a pulse, or what ``axial_label`` names) and ``depths``
+    (m) are marked as horizontal lines, each named in the legend
+    (``near_label``, ``axial_label``, ``depth_legend``) and the depths beside
+    their lines (``depth_labels``, default their lengths).
+    ``plane`` names the plane on the lateral axis (default the map's own).
     """
     s, unit = _scale(units)
     amp = np.abs(np.asarray(field_map.amplitude, dtype=float))
@@ -362,11 +374,12 @@ def draw_map(
         extent = (lateral.min(), lateral.max(), depth.min(), depth.max())
     ax.set_xlim(extent[0], extent[1])
     ax.set_ylim(extent[3], extent[2])  # depth grows downward, as the beam enters the part
-    ax.set_xlabel(f"lateral offset in the {field_map.plane} plane, {unit}")
+    ax.set_xlabel(f"lateral offset in the {plane or field_map.plane} plane, {unit}")
     ax.set_ylabel(f"depth from the probe face, {unit}")
     ax.set_title(
         f"Computed beam map: {_mode_text(field_map.mode, field_map.bandwidth)}", fontsize=10
     )
+    bar = None
     if colorbar:
         bar = ax.figure.colorbar(image, ax=ax, pad=0.02, fraction=0.06)
         bar.set_label(f"dB re the map's maximum ({field_map.mode})")
@@ -394,6 +407,9 @@ def draw_map(
         near_line = ax.axhline(
             near_field * s, color="white", lw=1.2, ls=(0, (6, 3)), path_effects=_outline()
         )
+        # The label sits on the side of the line away from the pulse's maximum, if any,
+        # so that line never runs through it.
+        below = axial_maximum is not None and 0 < axial_maximum < near_field
         ax.text(
             right,
             near_field * s,
@@ -401,7 +417,7 @@ def draw_map(
             color="white",
             fontsize=8,
             ha="right",
-            va="bottom",
+            va="top" if below else "bottom",
             path_effects=_outline(2.2),
         )
         handles.append(
@@ -410,16 +426,32 @@ def draw_map(
                 lw=1.2,
                 ls=(0, (6, 3)),
                 path_effects=_outline(),
-                label=f"near field N = {_length(near_field, units)}",
+                label=f"{near_label} N = {_length(near_field, units)}",
+            )
+        )
+    if axial_maximum is not None and math.isfinite(axial_maximum) and axial_maximum > 0:
+        ax.axhline(axial_maximum * s, color="white", lw=1.2, ls=":", path_effects=_outline())
+        handles.append(
+            _line(
+                color="white",
+                lw=1.2,
+                ls=":",
+                path_effects=_outline(),
+                label=f"{axial_label} {_length(axial_maximum, units)}",
             )
         )
     lines = []
-    for d in depths:
+    depths = list(depths)
+    if depth_labels is None:
+        depth_labels = [_length(d, units) for d in depths]
+    elif len(depth_labels) != len(depths):
+        raise InputError("map: give one label per depth line")
+    for d, text in zip(depths, depth_labels, strict=True):
         lines.append(ax.axhline(d * s, color=_MARKS, lw=1.1, path_effects=_outline(2.4)))
         ax.text(
             extent[0],
             d * s,
-            f" {_length(d, units)}",
+            f" {text}",
             color=_MARKS,
             fontsize=8,
             ha="left",
@@ -427,9 +459,7 @@ def draw_map(
             path_effects=_outline(2.2),
         )
     if lines:
-        handles.append(
-            _line(color=_MARKS, lw=1.1, path_effects=_outline(2.4), label="requested depths")
-        )
+        handles.append(_line(color=_MARKS, lw=1.1, path_effects=_outline(2.4), label=depth_legend))
     if legend:
         leg = ax.legend(
             handles=handles,
@@ -440,7 +470,7 @@ def draw_map(
             edgecolor="0.5",
         )
         leg.set_zorder(5)
-    return MapArtists(image, contours, near_line, lines, handles)
+    return MapArtists(image, contours, near_line, lines, handles, bar)
 
 
 def map_figure(
@@ -452,6 +482,8 @@ def map_figure(
     caption: str = "",
     units: str = "mm",
     size: tuple[float, float] = FIGSIZE,
+    axial_maximum: float | None = None,
+    near_label: str = "near field",
 ) -> Figure:
     """:func:`plot_map`'s picture as a Figure."""
     fig = new_figure(size, caption=caption)
@@ -464,6 +496,8 @@ def map_figure(
         depths=depths,
         units=units,
         legend=False,
+        axial_maximum=axial_maximum,
+        near_label=near_label,
     )
     _strip_legend(strip, drawn.handles)
     return fig
@@ -478,6 +512,8 @@ def plot_map(
     depths: Sequence[float] = (),
     caption: str = "",
     units: str = "mm",
+    axial_maximum: float | None = None,
+    near_label: str = "near field",
 ) -> Path:
     """Draw the beam map (see :func:`draw_map`) to ``path``; return the path.
 
@@ -496,6 +532,8 @@ def plot_map(
             depths=depths,
             caption=caption,
             units=units,
+            axial_maximum=axial_maximum,
+            near_label=near_label,
         ),
         path,
     )
@@ -572,7 +610,9 @@ def axis_figure(
                 mew=1.5,
                 label=f"{_level_text(level)} crossings: {_list(where, units)}",
             )
-    ax.set_xlim(depth[0] * s, depth[-1] * s)
+    # A little room past both ends, so a crossing at the first or last depth shows whole.
+    pad = 0.02 * (depth[-1] - depth[0]) * s
+    ax.set_xlim(depth[0] * s - pad, depth[-1] * s + pad)
     ax.set_ylim(FLOOR_DB, 3.0)
     ax.set_xlabel(f"depth on the beam axis, {unit}")
     ax.set_ylabel(f"dB re the largest on-axis amplitude ({profile.mode})")
@@ -715,12 +755,15 @@ def directivity_figure(
     max_angle: float | None = None,
     caption: str = "",
     size: tuple[float, float] = FIGSIZE,
+    angles: str = "half",
 ) -> Figure:
     """:func:`plot_directivity`'s picture as a Figure."""
     from .. import pattern
     from ..probes import check_positive
 
     kind = _pattern_shape(shape)
+    if angles not in ("half", "full"):
+        raise InputError(f"angles: {angles!r} is unknown; use half or full")
     wavelength = check_positive(wavelength, "wavelength", "m")
     planes = {
         name: check_positive(a, f"aperture of the {name} plane", "m")
@@ -749,21 +792,29 @@ def directivity_figure(
         ax = fig.axes[0]
     else:
         fig = new_figure(size, caption=caption)
-        ax = fig.add_subplot()
+        grid, strip = _with_strip(fig)
+        ax = fig.add_subplot(grid[0])
     for i, (name, aperture) in enumerate(planes.items()):
         colour = _PALETTE[i % len(_PALETTE)]
         for mode, ls in (("one-way", "-"), ("pulse-echo", "--")):
             d = pattern.directivity(theta, aperture, wavelength, kind, mode)
+            found = [
+                float(pattern.half_angle(level, aperture, wavelength, kind, mode))
+                for level in levels
+            ]
             ax.plot(
                 theta if polar else np.degrees(theta),
                 _db(d, 1.0),
                 color=colour,
                 lw=1.3,
                 ls=ls,
-                label=f"{name} plane ({_length(aperture, 'mm')}), {mode}",
+                label=f"{name} plane ({_length(aperture, 'mm')}), {mode}: "
+                + ", ".join(
+                    _angle_text(level, half, angles)
+                    for level, half in zip(levels, found, strict=True)
+                ),
             )
-            for level in levels:
-                half = float(pattern.half_angle(level, aperture, wavelength, kind, mode))
+            for level, half in zip(levels, found, strict=True):
                 if math.isnan(half) or math.degrees(half) > top:
                     continue
                 where = np.array([-half, half])
@@ -784,10 +835,12 @@ def directivity_figure(
         mfc="white",
         mec="0.3",
         mew=1.3,
-        label=", ".join(_level_text(v) for v in levels) + " half-angles",
+        label=", ".join(_level_text(v) for v in levels)
+        + " points, one each side of the axis at the half-angle: a pair spans the full angle",
     )
     handles = [*ax.get_legend_handles_labels()[0], marker]
-    title = f"Far-field directivity, {kind} pattern: one-way and pulse-echo"
+    named = "full angles (2 x half-angle)" if angles == "full" else "half-angles from the axis"
+    title = f"Far-field directivity, {kind} pattern, one-way and pulse-echo: {named}"
     if polar:
         ax.set_theta_zero_location("S")  # the beam points down, as on the map
         ax.set_thetamin(-top)
@@ -807,7 +860,7 @@ def directivity_figure(
         fig.legend(
             handles=handles,
             loc="lower center",
-            ncol=2,
+            ncol=1,
             fontsize=7.5,
             frameon=False,
             bbox_to_anchor=(0.5, legend_bottom),
@@ -819,7 +872,7 @@ def directivity_figure(
         ax.set_ylabel("dB re the on-axis amplitude")
         ax.set_title(title, fontsize=10)
         ax.grid(True, color="0.88", lw=0.6)
-        ax.legend(handles=handles, loc="lower center", fontsize=7.5, framealpha=0.9)
+        _strip_legend(strip, handles, ncol=1)  # below the plot: the labels are long
     return fig
 
 
@@ -833,6 +886,7 @@ def plot_directivity(
     levels_db=(6.0,),
     max_angle: float | None = None,
     caption: str = "",
+    angles: str = "half",
 ) -> Path:
     """Draw the far-field pattern, one-way and pulse-echo, in dB to ``path``; return the path.
 
@@ -848,9 +902,13 @@ def plot_directivity(
     polar : bool
         A polar half-plane (beam axis downward, radius in dB) or a Cartesian plot.
     levels_db : sequence
-        Half-angles marked at these levels, in each mode.
+        Levels marked, in each mode, at +- the half-angle; the legend gives each
+        angle's value both ways (half-angle and full angle).
     max_angle : float, optional
         Largest angle drawn, deg (default 90 in polar, else three first-null angles).
+    angles : {"half", "full"}
+        The convention the picture leads with (title and the first value in the
+        legend): ``"full"`` where the tables beside it give full angles (sonar).
     """
     check_target(path)
     return save_figure(
@@ -862,9 +920,20 @@ def plot_directivity(
             levels_db=levels_db,
             max_angle=max_angle,
             caption=caption,
+            angles=angles,
         ),
         path,
     )
+
+
+def _angle_text(level: float, half: float, angles: str) -> str:
+    """``-3 dB full 8.78° (±4.39°)`` or ``-3 dB ±4.39° (full 8.78°)``; none past 90°."""
+    if math.isnan(half):
+        return f"{_level_text(level)} none"
+    h = math.degrees(half)
+    if angles == "full":
+        return f"{_level_text(level)} full {2 * h:.2f}\u00b0 (\u00b1{h:.2f}\u00b0)"
+    return f"{_level_text(level)} \u00b1{h:.2f}\u00b0 (full {2 * h:.2f}\u00b0)"
 
 
 # ----------------------------------------------------------------- the angle beam on a plate
@@ -1015,19 +1084,38 @@ class SectionFootprint:
         return self.far - self.near
 
 
-def _edge_polyline(geometry: SectionGeometry, edge: BeamEdge, side: float, samples: int = 400):
+def _edge_polyline(
+    geometry: SectionGeometry,
+    edge: BeamEdge,
+    side: float,
+    samples: int = 400,
+    *,
+    to_surface: bool = False,
+):
     """Unfolded (x, y) of one edge, sampled densely; NaN beyond the last leg drawn.
 
     The exact points where the edge meets the back wall (and, for two legs,
     returns to the surface) are added, so the fold has a sharp corner.
+
+    With ``to_surface`` the edge starts on the scanning surface, as the beam
+    in the part does: an edge whose first sample lies below the surface is
+    continued back up to it at its first width (the third array returned,
+    ``held``, is True there), and whatever lies above the surface (in the
+    wedge) is NaN. Without it, only the given samples are used.
     """
-    s = np.linspace(edge.sound_path[0], edge.sound_path[-1], samples)
+    b = geometry.refracted
+    first = edge.sound_path[0]
+    start = first
+    if to_surface:  # the held line meets the surface where s cos b - o sin b = 0
+        start = min(first, side * 0.5 * edge.width[0] * math.tan(b))
+    s = np.unique(np.concatenate([np.linspace(start, edge.sound_path[-1], samples), [first]]))
 
     def at(s):
         return geometry.unfolded(s, side * 0.5 * np.interp(s, edge.sound_path, edge.width))
 
     t = geometry.thickness
-    for wall in (t, 2.0 * t)[: geometry.legs]:
+    walls = ((0.0,) if to_surface else ()) + (t, 2.0 * t)[: geometry.legs]
+    for wall in walls:
         _, y = at(s)
         d = y - wall
         idx = np.flatnonzero((d[:-1] <= 0) != (d[1:] <= 0))
@@ -1036,7 +1124,12 @@ def _edge_polyline(geometry: SectionGeometry, edge: BeamEdge, side: float, sampl
             s = np.unique(np.concatenate([s, hit]))
     x, y = at(s)
     beyond = y > geometry.legs * t * (1.0 + 1e-12)
-    return np.where(beyond, np.nan, x), np.where(beyond, np.nan, y)
+    if to_surface:
+        beyond |= y < -1e-12 * t
+    x, y = np.where(beyond, np.nan, x), np.where(beyond, np.nan, y)
+    if to_surface:
+        return x, y, s < first
+    return x, y
 
 
 def _cross_level(x: np.ndarray, y: np.ndarray, level: float) -> list[float]:
@@ -1074,30 +1167,58 @@ def section_footprints(geometry: SectionGeometry) -> list[SectionFootprint]:
     return out
 
 
-def section_figure(
-    geometry: SectionGeometry,
-    *,
-    caption: str = "",
-    units: str = "mm",
-    size: tuple[float, float] | None = None,
-) -> Figure:
-    """:func:`plot_section`'s picture as a Figure (default: 7 in wide, as tall as needed)."""
+@dataclass(frozen=True)
+class _Traced:
+    """What the section shows, in metres: each edge's two sides (folded) and the x range."""
+
+    edges: list  # [(edge, [(x, depth, held), (x, depth, held)])]
+    footprints: list[SectionFootprint]
+    left: float
+    right: float
+
+
+def _trace_section(g: SectionGeometry) -> _Traced:
+    edges = []
+    xs = [g.exit_point, *g.unfolded(np.linspace(0.0, g.path_length, g.legs + 1), 0.0)[0]]
+    for edge in g.edges:
+        sides = []
+        for side in (-1.0, 1.0):
+            x, y, held = _edge_polyline(g, edge, side, to_surface=True)
+            sides.append((x, g.fold(y), held))
+            if np.any(np.isfinite(x)):
+                xs += [float(np.nanmin(x)), float(np.nanmax(x))]
+        edges.append((edge, sides))
+    prints = section_footprints(g)
+    xs += [v for fp in prints for v in (fp.near, fp.far)]
+    low, high = min(xs), max(xs)
+    margin = 0.03 * (high - low) + 0.1 * g.thickness
+    return _Traced(edges, prints, low - margin, high + margin)
+
+
+def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> list:
+    """Draw the angle beam on the plate's section into ``ax``; return the legend handles.
+
+    The plate to scale (depth downward), the exit point, the beam axis and
+    each level's edges through the legs (mirrored at the back wall), the main
+    level's beam shaded between its edges, and at the flaw depth each level's
+    footprint on each leg (:func:`section_footprints`): leg 1's bars just
+    above the flaw-depth line, leg 2's just below, one row per level, so that
+    no two run together. The x range holds every edge and footprint drawn.
+
+    Every edge starts on the scanning surface: an edge from the computed
+    field, whose samples begin a little way into the part, is continued back
+    to the surface at its first width, drawn lighter; nothing is drawn above
+    the surface, and the shading stays between the edges.
+    """
     from matplotlib.patches import Rectangle as Box
+    from matplotlib.transforms import offset_copy
 
     s, unit = _scale(units)
     g = geometry
     t = g.thickness
     beta = g.refracted
-    reach = g.legs * t * math.tan(beta)
-    margin = max(0.25 * t, 0.08 * max(reach, t))
-    left = g.exit_point - margin
-    right = g.exit_point + max(reach, 0.5 * t) + margin
-    if size is None:  # the plate to scale in about 6.3 in of width, plus the rest
-        size = (FIGSIZE[0], min(7.0, max(FIGSIZE[1], 6.3 * 1.1 * t / (right - left) + 2.6)))
-
-    fig = new_figure(size, caption=caption)
-    grid, strip = _with_strip(fig)
-    ax = fig.add_subplot(grid[0])
+    traced = _trace_section(g)
+    left, right = traced.left, traced.right
     plate = Box(
         (left * s, 0.0),
         (right - left) * s,
@@ -1122,23 +1243,28 @@ def section_figure(
             label=f"beam axis, {math.degrees(beta):.1f}\u00b0 {g.wave}",
         )
     )
-    colours = {}
-    for i, edge in enumerate(g.edges):
+    colours, rows = {}, {}
+    any_held = False
+    for i, (edge, sides) in enumerate(traced.edges):
         colour = colours[edge.level_db] = _PALETTE[1 + i % (len(_PALETTE) - 1)]
+        rows[edge.level_db] = i
         ls = _STYLES[i % len(_STYLES)]
-        sides = []
-        for side in (-1.0, 1.0):
-            x, y = _edge_polyline(g, edge, side)
-            yf = g.fold(y)
-            (line,) = ax.plot(x * s, yf * s, color=colour, lw=1.3, ls=ls, zorder=3)
+        for x, y, held in sides:
+            n = int(held.sum())  # the held stretch comes first, and joins the rest at index n
+            if n:
+                any_held = True
+                (line,) = ax.plot(
+                    x[: n + 1] * s, y[: n + 1] * s, color=colour, lw=1.3, ls=ls, alpha=0.45
+                )
+                line.set_clip_path(plate)
+            (line,) = ax.plot(x[n:] * s, y[n:] * s, color=colour, lw=1.3, ls=ls, zorder=3)
             line.set_clip_path(plate)  # an edge that leaves the plate is not drawn outside
-            ok = np.isfinite(x)
-            sides.append((x[ok], yf[ok]))
         if i == 0:  # shade the main beam between its first pair of edges
-            (x1, y1), (x2, y2) = sides
+            (x1, y1, _), (x2, y2, _) = sides
+            ok1, ok2 = np.isfinite(x1), np.isfinite(x2)
             (shade,) = ax.fill(
-                np.concatenate([x1, x2[::-1]]) * s,
-                np.concatenate([y1, y2[::-1]]) * s,
+                np.concatenate([x1[ok1], x2[ok2][::-1]]) * s,
+                np.concatenate([y1[ok1], y2[ok2][::-1]]) * s,
                 color=colour,
                 alpha=0.12,
                 lw=0,
@@ -1148,15 +1274,25 @@ def section_figure(
         handles.append(
             _line(color=colour, lw=1.3, ls=ls, label=f"{_level_text(edge.level_db)} beam edges")
         )
-    ax.plot(
+    if any_held:
+        handles.append(
+            _line(
+                color="0.3",
+                lw=1.3,
+                alpha=0.45,
+                label="lighter: held at the first computed width",
+            )
+        )
+    ax.plot(  # the triangle's tip on the exit point
         [g.exit_point * s],
         [0.0],
         marker="v",
-        ms=9,
+        ms=8,
         color=_PALETTE[0],
         zorder=4,
         ls="none",
         clip_on=False,
+        transform=offset_copy(ax.transData, fig=ax.figure, y=4.0, units="points"),
     )
     handles.append(
         _line(
@@ -1175,36 +1311,44 @@ def section_figure(
                 color=_MARKS,
                 lw=1.0,
                 ls=(0, (2, 2)),
-                label=f"flaw depth {_length(g.flaw_depth, units)}; footprints:",
+                label=f"flaw depth {_length(g.flaw_depth, units)}; footprints "
+                "(leg 1 above, leg 2 below):",
             )
         )
-        for fp in section_footprints(g):
+        for fp in traced.footprints:
             colour = colours[fp.level_db]
+            up = 2.5 + 4.0 * rows[fp.level_db]  # points off the line: a row per level
+            shifted = offset_copy(
+                ax.transData, fig=ax.figure, y=up if fp.leg == 1 else -up, units="points"
+            )
             ax.plot(
                 [fp.near * s, fp.far * s],
                 [y, y],
                 color=colour,
                 lw=2.2,
                 marker="|",
-                ms=11,
-                mew=2.2,
+                ms=5,
+                mew=1.8,
                 solid_capstyle="butt",
                 zorder=4,
+                transform=shifted,
             )
             handles.append(
                 _line(
                     color=colour,
                     lw=2.2,
                     marker="|",
-                    ms=9,
-                    mew=2.2,
+                    ms=7,
+                    mew=1.8,
                     label=f"  leg {fp.leg}, {_level_text(fp.level_db)}: "
                     f"{_length(fp.width, units)} "
                     f"(path {_length(fp.sound_path, units)})",
                 )
             )
     ax.set_xlim(left * s, right * s)
-    ax.set_ylim(t * s * 1.04, -0.06 * t * s)
+    # Room above the surface for the exit point's mark: 10 points at about 6.3 in of width.
+    above = max(0.06 * t, 10.0 * (right - left) / (6.3 * 72.0))
+    ax.set_ylim(t * s * 1.04, -above * s)
     ax.set_aspect("equal", adjustable="box")  # the section to scale
     ax.set_xlabel(f"surface distance from the exit point's origin, {unit}")
     ax.set_ylabel(f"depth, {unit}")
@@ -1214,6 +1358,25 @@ def section_figure(
         + (f", edges at {levels}" if levels else ""),
         fontsize=10,
     )
+    return handles
+
+
+def section_figure(
+    geometry: SectionGeometry,
+    *,
+    caption: str = "",
+    units: str = "mm",
+    size: tuple[float, float] | None = None,
+) -> Figure:
+    """:func:`plot_section`'s picture as a Figure (default: 7 in wide, as tall as needed)."""
+    if size is None:  # the plate to scale in about 6.3 in of width, plus the rest
+        traced = _trace_section(geometry)
+        ratio = geometry.thickness / (traced.right - traced.left)
+        rows = -(-(len(geometry.edges) * (geometry.legs + 1) + 4) // 2)  # legend rows
+        size = (FIGSIZE[0], min(7.0, 6.3 * 1.1 * ratio + 1.45 + rows * 0.15))
+    fig = new_figure(size, caption=caption)
+    grid, strip = _with_strip(fig)
+    handles = draw_section(fig.add_subplot(grid[0]), geometry, units=units)
     _strip_legend(strip, handles, fontsize=7.0)
     return fig
 
@@ -1253,6 +1416,7 @@ def footprint_figure(
     ax = fig.add_subplot()
     widest = 0.0
     labelled = np.unique(np.linspace(0, depth.size - 1, min(depth.size, 4)).round().astype(int))
+    notes: dict[int, list[tuple[str, str, float]]] = {}  # depth index -> (text, colour, half)
     for i, (key, values) in enumerate(dict(widths_by_level).items()):
         width = np.array([np.nan if v is None else float(v) for v in values])
         if width.size != depth.size:
@@ -1280,15 +1444,8 @@ def footprint_figure(
                 mew=1.5,
             )
             ax.axhline(depth[j] * s, color="0.7", lw=0.6, ls=":", zorder=0)
-            ax.annotate(
-                _length(width[j], units),
-                (half[j], depth[j] * s),
-                xytext=(4, 2 - 10 * i),
-                textcoords="offset points",
-                fontsize=7,
-                color=colour,
-                va="bottom",
-                bbox={"boxstyle": "square,pad=0.1", "fc": "white", "ec": "none", "alpha": 0.8},
+            notes.setdefault(j, []).append(
+                (f"{label}: {_length(width[j], units)}", colour, half[j])
             )
         if np.any(np.isfinite(width)):
             widest = max(widest, float(np.nanmax(width)))
@@ -1318,7 +1475,63 @@ def footprint_figure(
     ax.set_title(f"Beam footprint on a flat bottom: full width, {mode}", fontsize=10)
     ax.grid(True, color="0.9", lw=0.6)
     ax.legend(loc="upper left", fontsize=7.5, framealpha=0.9)
+    _width_labels(ax, notes, depth * s)
     return fig
+
+
+def _width_labels(ax, notes, depth) -> None:
+    """Label the widths at each marked depth, clear of every line of the cone.
+
+    The labels of one depth are stacked above its line, just right of the
+    outermost edge there: the cone widens with depth, so above the line every
+    edge lies to the left and none can cross a label. The x range grows until
+    each label fits; a depth too near the top to hold its stack, or whose stack
+    would lie under the legend, goes unlabelled.
+    """
+    fig = ax.figure
+    groups = []
+    for j, entries in notes.items():
+        outer = max(h for _, _, h in entries)
+        group = []
+        for k, (text, colour, _) in enumerate(entries):
+            group.append(
+                ax.annotate(
+                    text,
+                    (outer, depth[j]),
+                    xytext=(6, 2 + 9.5 * (len(entries) - 1 - k)),
+                    textcoords="offset points",
+                    fontsize=7,
+                    color=colour,
+                    va="bottom",
+                    zorder=4,
+                    bbox={"boxstyle": "square,pad=0.1", "fc": "white", "ec": "none"},
+                )
+            )
+        groups.append(group)
+    for _ in range(4):  # the layout moves as the range changes: settle it
+        fig.draw_without_rendering()
+        inverse = ax.transData.inverted()
+        right = max(
+            (
+                inverse.transform(a.get_window_extent().corners())[:, 0].max()
+                for g in groups
+                for a in g
+            ),
+            default=-np.inf,
+        )
+        high = ax.get_xlim()[1]
+        if right <= high:
+            break
+        high = 1.04 * right
+        ax.set_xlim(-high, high)
+    top = ax.get_window_extent().y1
+    legend = ax.get_legend()
+    hidden = legend.get_window_extent() if legend is not None else None
+    for group in groups:
+        boxes = [a.get_window_extent() for a in group]
+        if any(b.y1 > top or (hidden is not None and b.overlaps(hidden)) for b in boxes):
+            for a in group:
+                a.remove()
 
 
 def plot_footprint(
