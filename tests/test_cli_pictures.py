@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import itertools
 import json
 
 import numpy as np
@@ -253,3 +254,59 @@ def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):
         wavelength = 5920.0 / 5e6
         assert seen["near_field"] == pytest.approx((0.01**2 - wavelength**2) / (4 * wavelength))
         assert (seen["axial_maximum"] is None) is (bandwidth == "0")
+
+
+def _report_figure(run, tmp_path, monkeypatch, *args):
+    """The report's page as a Figure (and the file written), for a setup saved from ``args``."""
+    from beamspread.report import plots
+
+    setup = tmp_path / "setup.toml"
+    assert run("beam", *args, "--far-field-only", "--save", str(setup)).code == 0
+    pages = []
+    save = plots.save_figure
+    monkeypatch.setattr(
+        plots, "save_figure", lambda fig, path: pages.append(fig) or save(fig, path)
+    )
+    r = run("report", str(setup), "--output", str(tmp_path / "report.png"))
+    assert r.code == 0, r.stderr
+    (fig,) = pages
+    return fig
+
+
+def test_report_page_is_consistent_with_its_table_and_laid_out(run, tmp_path, monkeypatch):
+    import math
+
+    table = run("beam", *WELD, "--far-field-only", "--json").json()
+    fig = _report_figure(run, tmp_path, monkeypatch, *WELD)
+    renderer = fig.canvas.get_renderer()
+    (map_ax,) = [a for a in fig.axes if a.images and a.get_xlabel()]
+    # One plane, named alike on the axis and in the title (a disc on a wedge: incidence).
+    assert "incidence plane" in map_ax.get_xlabel() and "incidence plane" in map_ax.get_title()
+    # The near field drawn is the table's: in the part, measured from the exit point.
+    near_mm = table["near_field_m"] * 1e3
+    (label,) = [t.get_text() for t in map_ax.texts if t.get_text().startswith("N ")]
+    assert label.strip() == f"N {near_mm:.2f} mm"
+    # The depth line sits at the sound path of 15 mm deep at 60 degrees: 15 / cos 60 = 30 mm.
+    marks = [t.get_text().strip() for t in map_ax.texts if t.get_text().strip().startswith("path")]
+    assert f"path {15 / math.cos(math.radians(60)):.2f} mm: 15.00 mm deep, leg 1" in marks
+    # Every line type of the map is in its legend.
+    legends = [a.get_legend() for a in fig.axes if a.get_legend()]
+    texts = [t.get_text() for legend in legends for t in legend.get_texts()]
+    for needle in ("\u22126 dB re max.", "\u221220 dB re max.", f"N = {near_mm:.2f} mm"):
+        assert any(needle in t for t in texts), needle
+    # Nothing overlaps, nothing leaves the page, and no blank band is left between the parts.
+    (section,) = [a for a in fig.axes if a.get_title().startswith("Angle beam")]
+    (block,) = [t for t in fig.texts if t.get_text().startswith("Beam of")]
+    boxes = [
+        block.get_window_extent(renderer),
+        map_ax.get_tightbbox(renderer),
+        legends[0].get_window_extent(renderer),
+        section.get_tightbbox(renderer),
+        legends[1].get_window_extent(renderer),
+    ]
+    page = fig.bbox
+    for box in boxes:
+        assert page.x0 <= box.x0 and box.x1 <= page.x1 and page.y0 <= box.y0 and box.y1 <= page.y1
+    for upper, lower in itertools.pairwise(boxes):
+        gap = (upper.y0 - lower.y1) / fig.dpi  # inches; the page is laid out top to bottom
+        assert 0 <= gap < 0.5, gap
