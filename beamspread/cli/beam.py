@@ -446,5 +446,6 @@ def _plot(path, result, figures, units):
             path,
             levels_db=result.levels,
             caption=caption_of(result),
+            angles="full" if figures is not None else "half",
         )
     click.echo(f"beamspread: drew {path}", err=True)
