@@ -358,7 +358,7 @@ def beam_table(
             )
             if result.field is not None:
                 out.append(
-                    "  computed field: footprint in the incidence plane = width across the axis "
+                    "  footprint from the computed field, incidence plane: width across the axis "
                     "/ cos(refracted angle)."
                 )
         elif focused:
