@@ -277,7 +277,7 @@ def test_demo_runs(run):
     r = run("demo")
     assert r.code == 0, r.stderr
     assert r.stdout.count("Beam of a") == 3 and "Cautions" in r.stdout
-    assert "marine life" in r.stdout and "high voltage" in r.stdout
+    assert "aquatic life" in r.stdout and "high voltage" in r.stdout
 
 
 def test_cli_start_up_imports_nothing_heavy():

@@ -225,10 +225,32 @@ def test_water_results_carry_the_underwater_caution_and_state_their_conditions(r
     # transducer in seawater gets the underwater one even without --sonar.
     beam = run(*SOUNDER, "--far-field-only")
     caution = " ".join(beam.stdout.split())
-    assert "harm marine life" in caution and "certified personnel" not in caution
+    assert "harm aquatic life" in caution and "certified personnel" not in caution
     size = run("size", "--frequency", "200kHz", *SEA, "--full-angle", "20")
     assert "temperature 12 degC" in size.stdout and "salinity 34 g/kg" in size.stdout
     # without a depth there is no width table, so no note explaining one
     pulse = run(*SOUNDER)
     assert "Last on-axis maximum of the pulse" in pulse.stdout
     assert "width between the outermost crossings" not in pulse.stdout
+
+
+def test_a_rangefinder_in_air_speaks_of_ranges_and_of_hearing(run):
+    # A 40 kHz rangefinder looks at a wall, not a sea bottom: its footprint is by range, and its
+    # caution is about airborne ultrasound, not aquatic life.
+    r = run(
+        "beam",
+        "--diameter",
+        "16mm",
+        "--frequency",
+        "40kHz",
+        "--material",
+        "air",
+        "--sonar",
+        "--bottom-depth",
+        "1m:3m:1m",
+        "--far-field-only",
+    )
+    assert r.code == 0
+    assert "Footprint on a flat surface" in r.stdout and "water depth" not in r.stdout
+    text = " ".join(r.stdout.split())
+    assert "airborne ultrasound" in text and "aquatic" not in text

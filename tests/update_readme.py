@@ -2,8 +2,8 @@
 
     python tests/update_readme.py
 
-Each block's first line is the command; the rest is replaced by what the command prints,
-without its closing caution lines (the README's own Cautions section says them in full).
+Each block's first line is the command; the rest is replaced by what the command prints on
+stdout, whole (its closing caution included).
 """
 
 from __future__ import annotations
@@ -21,12 +21,7 @@ README = Path(__file__).resolve().parent.parent / "README.md"
 
 def render(command: str) -> str:
     result = CliRunner().invoke(cli, shlex.split(command)[1:])
-    lines = result.stdout.rstrip("\n").split("\n")
-    while lines and (
-        lines[-1].startswith(("Estimates from", "qualified procedure")) or not lines[-1].strip()
-    ):
-        lines.pop()
-    return "\n".join(lines)
+    return result.stdout.rstrip("\n")
 
 
 def main() -> None:

@@ -436,6 +436,7 @@ def _plot(path, result, figures, units):
             mode=result.convention.mode,
             caption=caption_of(result),
             units="m" if units == "mm" else "ft",
+            in_air=result.wave.state == "gas",
         )
     else:
         shape = "disc" if result.probe.shape == "disc" else "rectangle"

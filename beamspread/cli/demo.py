@@ -14,7 +14,8 @@ Cautions
     by certified personnel; verify beam coverage on reference blocks.
   - Ultrasonic pulsers and sonar transmitters carry high voltage: follow the
     instrument's safety instructions.
-  - Underwater sound can harm marine life and may be regulated locally."""
+  - Underwater sound can harm aquatic life and may be regulated locally; intense
+    airborne ultrasound can harm hearing and disturb animals."""
 
 # Invented scenarios: the yard, the boat and the workshop do not exist.
 SCENARIOS = (

@@ -1404,6 +1404,7 @@ def footprint_figure(
     caption: str = "",
     units: str = "m",
     size: tuple[float, float] = FIGSIZE,
+    in_air: bool = False,
 ) -> Figure:
     """:func:`plot_footprint`'s picture as a Figure."""
     s, unit = _scale(units, ("m", "ft", "mm", "in"))
@@ -1415,7 +1416,7 @@ def footprint_figure(
     fig = new_figure(size, caption=caption)
     ax = fig.add_subplot()
     widest = 0.0
-    labelled = np.unique(np.linspace(0, depth.size - 1, min(depth.size, 4)).round().astype(int))
+    labelled = np.unique(np.linspace(0, depth.size - 1, min(depth.size, 6)).round().astype(int))
     notes: dict[int, list[tuple[str, str, float]]] = {}  # depth index -> (text, colour, half)
     for i, (key, values) in enumerate(dict(widths_by_level).items()):
         width = np.array([np.nan if v is None else float(v) for v in values])
@@ -1471,10 +1472,15 @@ def footprint_figure(
     ax.set_xlim(-0.8 * widest * s, 0.8 * widest * s)
     ax.set_ylim(top * 1.05, 0.0)
     ax.set_xlabel(f"across the footprint, {unit} (width = distance between the edges)")
-    ax.set_ylabel(f"water depth below the transducer, {unit}")
-    ax.set_title(f"Beam footprint on a flat bottom: full width, {mode}", fontsize=10)
+    if in_air:
+        ax.set_ylabel(f"range to a flat surface facing the transducer, {unit}")
+        ax.set_title(f"Beam footprint on a flat surface: full width, {mode}", fontsize=10)
+    else:
+        ax.set_ylabel(f"water depth below the transducer, {unit}")
+        ax.set_title(f"Beam footprint on a flat bottom: full width, {mode}", fontsize=10)
     ax.grid(True, color="0.9", lw=0.6)
-    ax.legend(loc="upper left", fontsize=7.5, framealpha=0.9)
+    # below the plot, so it hides no marker or label of the shallow depths
+    ax.legend(loc="upper center", bbox_to_anchor=(0.5, -0.12), ncol=2, fontsize=7.5, frameon=False)
     _width_labels(ax, notes, depth * s)
     return fig
 
@@ -1543,6 +1549,7 @@ def plot_footprint(
     mode: str = "one-way",
     caption: str = "",
     units: str = "m",
+    in_air: bool = False,
 ) -> Path:
     """Draw the sonar cone and its footprint width against water depth to ``path``.
 
@@ -1560,11 +1567,19 @@ def plot_footprint(
     mode : str
         Named in the title.
     units : {"m", "ft", "mm", "in"}
+    in_air : bool
+        Label the distances as ranges to a flat surface (a rangefinder in air), not depths.
     """
     check_target(path)
     return save_figure(
         footprint_figure(
-            depths, widths_by_level, near_field=near_field, mode=mode, caption=caption, units=units
+            depths,
+            widths_by_level,
+            near_field=near_field,
+            mode=mode,
+            caption=caption,
+            units=units,
+            in_air=in_air,
         ),
         path,
     )

@@ -8,7 +8,7 @@ from ..beam import BeamResult, level_key
 from ..probes import Disc
 from ..units import format_length
 
-__all__ = ["CAUTION", "beam_table", "columns"]
+__all__ = ["AIRBORNE_CAUTION", "CAUTION", "SONAR_CAUTION", "beam_table", "caution_for", "columns"]
 
 CAUTION = (
     "Estimates from an ideal baffled-piston model, not a measured beam profile. Inspections "
@@ -16,8 +16,21 @@ CAUTION = (
 )
 SONAR_CAUTION = (
     "Estimates from an ideal baffled-piston model, not a measured beam. Underwater sound can "
-    "harm marine life and its use may be regulated locally; transmitters carry high voltage."
+    "harm aquatic life and its use may be regulated locally; transmitters carry high voltage."
 )
+AIRBORNE_CAUTION = (
+    "Estimates from an ideal baffled-piston model, not a measured beam. Intense airborne "
+    "ultrasound can harm hearing and disturb animals; transmitters carry high voltage."
+)
+
+
+def caution_for(state: str | None) -> str:
+    """The closing caution that fits the medium: a part (solid), water (liquid) or air (gas)."""
+    if state == "gas":
+        return AIRBORNE_CAUTION
+    if state == "liquid":
+        return SONAR_CAUTION
+    return CAUTION
 
 
 def columns(rows: list[list[str]], indent: int = 2, gap: int = 3) -> str:
@@ -217,8 +230,12 @@ def beam_table(
         out.extend(_sonar_lines(di, absorption, figures, units))
     if figures is not None and figures.footprints:
         out.append("")
-        out.append(f"Footprint on a flat bottom: 2·depth·tan(half-angle), {mode}")
-        head = ["water depth", "plane", *[f"{k} dB" for k in keys]]
+        if result.wave.state == "gas":
+            out.append(f"Footprint on a flat surface facing it: 2·range·tan(half-angle), {mode}")
+            head = ["range", "plane", *[f"{k} dB" for k in keys]]
+        else:
+            out.append(f"Footprint on a flat bottom: 2·depth·tan(half-angle), {mode}")
+            head = ["water depth", "plane", *[f"{k} dB" for k in keys]]
         rows = []
         deepest = max(f.depth for f in figures.footprints)
         widest = max((f.width for f in figures.footprints if f.width is not None), default=None)
@@ -382,10 +399,10 @@ def beam_table(
         out.append("")
         out.extend(textwrap.wrap(_field_line(result, units), 100))
     out.append("")
-    in_water_or_air = result.wave.state in ("liquid", "gas")
-    out.extend(
-        textwrap.wrap(SONAR_CAUTION if sonar or figures or in_water_or_air else CAUTION, 100)
-    )
+    state = result.wave.state
+    if (sonar or figures) and state not in ("liquid", "gas"):
+        state = "liquid"  # sonar work on a medium given by its speed alone: water
+    out.extend(textwrap.wrap(caution_for(state), 100))
     return "\n".join(out)
 
 
@@ -467,7 +484,7 @@ def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units
             f"  every {step}th of {len(profile.depth)} depths shown; --format csv gives them all"
         )
     out.append("")
-    out.extend(textwrap.wrap(CAUTION, 100))
+    out.extend(textwrap.wrap(caution_for(wave.state), 100))
     return "\n".join(out)
 
 
@@ -495,7 +512,7 @@ def across_table(probe, wave, settings, mode, depth, profiles, widths, units="mm
         "dB relative to the largest amplitude across the beam at this depth; widths "
         "between the outermost crossings."
     )
-    out.extend(textwrap.wrap(CAUTION, 100))
+    out.extend(textwrap.wrap(caution_for(wave.state), 100))
     return "\n".join(out)
 
 
@@ -552,7 +569,7 @@ def design_table(found, wave, units="mm") -> str:
         columns([["quantity", "value"], *rows]),
         "",
     ]
-    caution = SONAR_CAUTION if wave.state in ("liquid", "gas") else CAUTION
+    caution = caution_for(wave.state)
     out.extend(textwrap.wrap(caution, 100))
     return "\n".join(out)
 
