@@ -306,3 +306,13 @@ def test_depth_ranges_and_conflicting_outputs(run):
     )
     r = run(*BASE, "--json", "--format", "csv")
     assert r.code == 2 and "--json" in r.stderr
+
+
+def test_far_field_rows_between_one_and_three_near_fields_are_marked(run):
+    # Common practice: the far-field cone is only approximate within about 3 N of the face.
+    # Here N = 20.7 mm: 12 mm is inside N (*), 30 mm between N and 3N (~), 100 mm beyond.
+    r = run(*BASE, "--depth", "12", "--depth", "30", "--depth", "100")
+    rows = {line.split()[0]: line for line in r.stdout.splitlines() if "far field" in line}
+    assert "far field *" in rows["12.00"] and "far field ~" in rows["30.00"]
+    assert "*" not in rows["100.00"] and "~" not in rows["100.00"]
+    assert "within 3 near-field lengths" in r.stdout

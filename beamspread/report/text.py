@@ -292,7 +292,7 @@ def beam_table(
             *[f"{k} dB" for k in keys],
         ]
         rows, prints = [], []
-        inside = False
+        inside = near_three = False
         legs = sorted({s.leg for pl in result.planes for s in pl.spots})
         spots_all = [s for pl in result.planes for s in pl.spots]
 
@@ -319,6 +319,15 @@ def beam_table(
                         first = spots[keys[0]]
                         flag = " *" if first.far_field_valid is False else ""
                         inside = inside or bool(flag)
+                        reach = first.sound_path if first.sound_path is not None else depth
+                        if (
+                            method == "far-field"
+                            and not flag
+                            and result.near_field is not None
+                            and reach < 3.0 * result.near_field
+                        ):
+                            flag = " ~"
+                            near_three = True
                         label = "far field" + flag if method == "far-field" else "computed field"
                         where = (
                             [
@@ -389,6 +398,16 @@ def beam_table(
             out.append("  far field: 2·z·tan(half-angle).")
         if inside:
             out.append("  * inside the near field: the far-field width does not hold there.")
+        if near_three:
+            out.append(
+                "  ~ within 3 near-field lengths: the far-field width is only approximate there "
+                "(common practice)."
+            )
+        if result.field is not None and not focused:
+            out.append(
+                "  far-field rows: a continuous wave at the centre frequency; computed rows: the "
+                "pulse."
+            )
         if result.field is not None:
             out.extend(
                 textwrap.wrap(
