@@ -555,6 +555,8 @@ class EchoBudget:
     absorption_loss: Term
     bottom_loss: Term
     received_level: Term
+    power_w: float = math.nan  # the inputs, for the record
+    efficiency: float = math.nan
 
     @property
     def terms(self) -> tuple[Term, ...]:
@@ -637,6 +639,8 @@ def echo_budget(
     received = sl - spreading - absorption - bottom_loss_db
     return EchoBudget(
         range_m=range_m,
+        power_w=float(power),
+        efficiency=float(efficiency),
         source_level=Term(
             "source level",
             sl,

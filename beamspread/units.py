@@ -131,6 +131,8 @@ KINDS: dict[str, _Kind] = {
             "Pa": (1e-4, 0.0),
         },
     ),
+    "power": _Kind("power", "W", {"W": (1.0, 0.0), "kW": (1e3, 0.0)}),
+    "decibel": _Kind("decibel", "dB", {"dB": (1.0, 0.0)}),
     "percent": _Kind("percent", "%", {"%": (1.0, 0.0)}),
     "angle": _Kind("angle", "deg", {"deg": (1.0, 0.0), "°": (1.0, 0.0)}),
     "number": _Kind("number", "", {}),

@@ -254,3 +254,21 @@ def test_a_rangefinder_in_air_speaks_of_ranges_and_of_hearing(run):
     assert "Footprint on a flat surface" in r.stdout and "water depth" not in r.stdout
     text = " ".join(r.stdout.split())
     assert "airborne ultrasound" in text and "aquatic" not in text
+
+
+def test_echo_budget_takes_units_and_records_its_inputs(run):
+    data = run(
+        *SOUNDER,
+        "--sonar",
+        "--far-field-only",
+        "--bottom-depth",
+        "20m",
+        "--power",
+        "0.1kW",
+        "--bottom-loss",
+        "12dB",
+        "--json",
+    ).json()
+    (budget,) = data["echo_budget"]
+    assert budget["power_w"] == 100.0 and budget["efficiency"] == 0.5
+    assert budget["bottom_loss_db"] == 12.0

@@ -17,7 +17,17 @@ from .options import (
     probe_options,
     resolve_wave,
 )
-from .params import ANGLE, DEPTHS, LENGTH, LEVEL, PATH_LENGTH, RANGE_DEPTHS, SPEED
+from .params import (
+    ANGLE,
+    DECIBEL,
+    DEPTHS,
+    LENGTH,
+    LEVEL,
+    PATH_LENGTH,
+    POWER,
+    RANGE_DEPTHS,
+    SPEED,
+)
 from .setupargs import setup_file_options
 
 
@@ -135,7 +145,7 @@ def setup_options(f):
 )
 @click.option(
     "--power",
-    type=float,
+    type=POWER,
     default=None,
     metavar="WATTS",
     help="Electrical power for an echo budget at each --bottom-depth.",
@@ -150,7 +160,7 @@ def setup_options(f):
 )
 @click.option(
     "--bottom-loss",
-    type=float,
+    type=DECIBEL,
     default=10.0,
     show_default=True,
     metavar="DB",

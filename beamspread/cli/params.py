@@ -176,5 +176,7 @@ SPEED = Quantity(
     "speed", plausible=(50.0, 25000.0, "the 50 to 25000 m/s of real media"), bare_hint="km/s"
 )
 TEMPERATURE = Quantity("temperature", positive=False)
+POWER = Quantity("power", plausible=(1e-3, 1e6, "the 1 mW to 1 MW of transducer drives"))
+DECIBEL = Quantity("decibel", zero=True)
 
 UNIT_HELP = {kind: f"{k.units} (bare number: {k.default})" for kind, k in KINDS.items()}

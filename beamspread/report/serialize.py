@@ -453,6 +453,9 @@ def sonar_to_dict(
         out["echo_budget"] = [
             {
                 "range_m": b.range_m,
+                "power_w": b.power_w,
+                "efficiency": b.efficiency,
+                "bottom_loss_db": b.bottom_loss.value_db,
                 "terms": [
                     {
                         "name": t.name,

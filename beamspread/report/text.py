@@ -264,7 +264,11 @@ def beam_table(
             out.append("  * inside the near field: the far-field cone does not hold there.")
     if budgets:
         out.append("")
-        out.append("Echo budget of a flat, smooth bottom (sonar equation; the bottom as a mirror)")
+        first = budgets[0]
+        out.append(
+            "Echo budget of a flat, smooth bottom (sonar equation; the bottom as a mirror): "
+            f"P = {first.power_w:g} W, eta = {first.efficiency:g}"
+        )
         for budget in budgets:
             out.append(f"  range {format_length(budget.range_m, units)}")
             out.append(
