@@ -272,3 +272,9 @@ def test_echo_budget_takes_units_and_records_its_inputs(run):
     (budget,) = data["echo_budget"]
     assert budget["power_w"] == 100.0 and budget["efficiency"] == 0.5
     assert budget["bottom_loss_db"] == 12.0
+
+
+def test_sonar_at_megahertz_says_a_bare_frequency_is_in_mhz(run):
+    # "--frequency 200" is 200 MHz (bare numbers are MHz); with --sonar that is surely a slip.
+    r = run("beam", "--diameter", "25mm", "--frequency", "200", *SEA, "--sonar", "--far-field-only")
+    assert r.code == 0 and "a bare --frequency is in MHz" in r.stderr

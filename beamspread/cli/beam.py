@@ -309,6 +309,11 @@ def beam(
         levels=levels or (SONAR_LEVELS_SHOWN if sonar else DEFAULT_LEVELS),
     )
     warnings = [*(resolved.registry.warnings if resolved.registry else []), *result.warnings]
+    if sonar and probe.frequency > 5e6:
+        warnings.append(
+            f"--sonar at {frequency_text(probe.frequency)}: sonar and rangefinder transducers work "
+            "below a few MHz; a bare --frequency is in MHz (write 200kHz for 200 kHz)"
+        )
     absorption = resolved.absorption(probe.frequency)
     if absorption is not None:
         warnings.extend(absorption.warnings)
