@@ -302,12 +302,17 @@ def analyse(
                 "to the face, where the computed field is not validated"
             )
 
-    for depth in depth_list:
-        if near_field is not None and depth < near_field:
-            warnings.append(
-                f"depth {_mm(depth)} lies inside the near field ({_mm(near_field)}): "
-                "the far-field spot size does not hold there"
-            )
+    inside = [d for d in depth_list if near_field is not None and d < near_field]
+    if len(inside) == 1:
+        warnings.append(
+            f"depth {_mm(inside[0])} lies inside the near field ({_mm(near_field)}): "
+            "the far-field spot size does not hold there"
+        )
+    elif inside:
+        warnings.append(
+            f"{len(inside)} depths, {_mm(min(inside))} to {_mm(max(inside))}, lie inside the "
+            f"near field ({_mm(near_field)}): the far-field spot size does not hold there"
+        )
     return BeamResult(
         probe=probe,
         wave=wave,
