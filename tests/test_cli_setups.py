@@ -377,3 +377,16 @@ def test_part_wholly_in_the_far_field_has_no_simple_near_field_either(run):
     table = run(*args, "--far-field-only").stdout
     (row,) = [line for line in table.splitlines() if "near field, simple" in line]
     assert row.split()[3] == "none"
+
+
+def test_immersion_states_the_water_temperature_it_used(run):
+    # --temperature sets the couplant's temperature in immersion; the result says so, and the
+    # speed is that of water at 12 degC (IAPWS-95 through iapws, within 0.1 m/s).
+    import iapws
+
+    args = ("beam", *PROBE, *STEEL, "--water-path", "50mm", "--temperature", "12")
+    data = run(*args, "--far-field-only", "--json").json()
+    assert data["couplant"]["conditions"] == {"temperature_c": 12.0}
+    reference = iapws.IAPWS95(T=273.15 + 12.0, P=0.101325).w
+    assert data["couplant"]["speed_m_s"] == pytest.approx(reference, abs=0.1)
+    assert "water at temperature 12 degC" in run(*args, "--far-field-only").stdout

@@ -127,7 +127,23 @@ def run_setup(
             mode=mode,
             field=settings,
         )
-        extra = {"couplant": {"name": water.name, "speed_m_s": water.speed, "path_m": water.path}}
+        from ..report.serialize import unit_suffix
+
+        units_of = couplant_wave.condition_units
+        extra = {
+            "couplant": {
+                "name": water.name,
+                "speed_m_s": water.speed,
+                "path_m": water.path,
+                "conditions": {
+                    f"{k}_{unit_suffix(units_of.get(k, ''))}".rstrip("_"): v
+                    for k, v in couplant_wave.conditions.items()
+                },
+            }
+        }
+        couplant_at = ", ".join(
+            f"{k} {v:g} {units_of.get(k, '')}".rstrip() for k, v in couplant_wave.conditions.items()
+        )
     warnings.extend(result.warnings)
     warnings = list(dict.fromkeys(warnings))
     if plot_path is not None and result.focus is not None and result.refraction is None:
@@ -156,7 +172,10 @@ def run_setup(
 
         table = beam_table(result.beam, units, focused=result.focus is not None).split("\n")
         head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
-        click.echo("\n".join(table[:head] + setup_lines(result, extra, units) + table[head:]))
+        shown = extra
+        if "couplant" in extra:
+            shown = {"couplant": {**extra["couplant"], "at": couplant_at}}
+        click.echo("\n".join(table[:head] + setup_lines(result, shown, units) + table[head:]))
 
 
 def _plot(path, result, settings, thickness, depths, units):

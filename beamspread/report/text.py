@@ -627,8 +627,10 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
         lines.append(f"Setup: {kind} straight in {setup.beam.wave.medium}, no water path")
     else:
         c = extra["couplant"]
+        at = c.get("at", "")
         lines.append(
-            f"Setup: immersion in {c['name']} ({c['speed_m_s']:.1f} m/s), water path "
+            f"Setup: immersion in {c['name']}{' at ' + at if at else ''} "
+            f"({c['speed_m_s']:.1f} m/s), water path "
             f"{format_length(c['path_m'], units)}; near field in the part "
             f"{_len_or_none(setup.near_field_in_part, units)}"
             + (
