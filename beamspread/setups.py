@@ -25,6 +25,7 @@ from .probes import check_positive
 
 __all__ = [
     "Refraction",
+    "cone_footprint",
     "critical_angles",
     "effective_aperture",
     "focal_depth_in_part",
@@ -234,6 +235,62 @@ def leg_geometry(depth: float, refracted: float, thickness: float | None = None,
     else:
         raise InputError(f"leg {leg} is not allowed; use 1 or 2")
     return unfolded / math.cos(refracted), unfolded * math.tan(refracted), unfolded
+
+
+def cone_footprint(
+    unfolded_depth: float, refracted: float, half_angle: float, offset: float = 0.0
+) -> tuple[float, float | None, float, float | None]:
+    """Where the far-field cone's edges in the incidence plane cross a depth.
+
+    The cone's apex sits on the beam axis ``offset`` (m) behind the exit
+    point, at the virtual element (the wedge path's equivalent in the part,
+    common practice); its edges leave the apex at ``refracted -+ half_angle``
+    (rad) from the surface normal. Unfolded, the path is straight, so the
+    second leg is the same with ``unfolded_depth = 2 t - depth``
+    (:func:`leg_geometry`).
+
+    Returns
+    -------
+    (near, far, near_path, far_path)
+        ``near`` and ``far``: the edges' positions along the surface from the
+        exit point, m, at the unfolded depth; ``far`` is None where the edge
+        ahead of the axis runs at or above the surface (``refracted +
+        half_angle`` of 90 degrees or more) and never reaches a depth.
+        ``near_path`` and ``far_path``: the sound paths along the axis (m,
+        from the exit point) of the points across the axis where each edge
+        crosses the depth.
+
+    Notes
+    -----
+    With the apex at :math:`(-o\\sin\\beta, -o\\cos\\beta)` (along the surface,
+    depth) an edge at angle :math:`\\beta \\pm \\theta` crosses the depth
+    :math:`u` at :math:`x = (u + o\\cos\\beta)\\tan(\\beta \\pm \\theta) - o\\sin\\beta`,
+    so the footprint is
+    :math:`(u + o\\cos\\beta)\\,(\\tan(\\beta + \\theta) - \\tan(\\beta - \\theta))`;
+    the point lies :math:`(u + o\\cos\\beta)\\cos\\theta / \\cos(\\beta \\pm \\theta) - o`
+    along the axis (plane geometry).
+
+    Examples
+    --------
+    A 60 degree beam with a 5 degree half-angle, 15 mm down, the apex 10 mm behind
+    the exit point:
+
+    >>> near, far, _, _ = cone_footprint(0.015, math.radians(60), math.radians(5), 0.010)
+    >>> round((far - near) * 1e3, 2)
+    14.33
+    """
+    b, t, o = float(refracted), float(half_angle), float(offset)
+    reach = unfolded_depth + o * math.cos(b)
+    back = o * math.sin(b)
+
+    def edge(angle):
+        if angle >= _RIGHT:
+            return None, None
+        return reach * math.tan(angle) - back, reach * math.cos(t) / math.cos(angle) - o
+
+    near, near_path = edge(b - t)
+    far, far_path = edge(b + t)
+    return near, far, near_path, far_path
 
 
 def normalised_focal_length(focal_length: float, near_field: float) -> float:

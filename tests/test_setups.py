@@ -13,6 +13,7 @@ import scipy.special
 from beamspread import InputError
 from beamspread.pattern import pattern_x
 from beamspread.setups import (
+    cone_footprint,
     critical_angles,
     effective_aperture,
     focal_depth_in_part,
@@ -156,3 +157,71 @@ def test_focused_axial_maximum_lies_short_of_the_focus():
     assert float(focused_disc_axial_pressure(f, d, f, lam)) == pytest.approx(
         2 * math.pi / lam * (f - math.sqrt(f * f - (d / 2) ** 2))
     )
+
+
+def _ray_crossing(start, angle, depth):
+    """Where a ray from ``start`` (along the surface, depth) at ``angle`` from the normal,
+    heading down, meets ``depth``: plane geometry, written out independently."""
+    x0, y0 = start
+    direction = (math.sin(angle), math.cos(angle))
+    t = (depth - y0) / direction[1]
+    return x0 + t * direction[0], t
+
+
+@pytest.mark.parametrize("offset", [0.0, 0.004, 0.010])
+@pytest.mark.parametrize(("beta_deg", "theta_deg"), [(45, 3.0), (60, 5.0), (70, 7.2), (30, 12.0)])
+def test_far_field_cone_footprint_from_the_virtual_element_leg_1(beta_deg, theta_deg, offset):
+    # Geometry; the virtual element set back by the wedge path's equivalent (common practice).
+    # The apex sits `offset` up the axis behind the exit point; the edges leave it at
+    # beta -+ theta and are followed as rays to the depth.
+    beta, theta, depth = math.radians(beta_deg), math.radians(theta_deg), 0.015
+    apex = (-offset * math.sin(beta), -offset * math.cos(beta))
+    near_x, _ = _ray_crossing(apex, beta - theta, depth)
+    far_x, _ = _ray_crossing(apex, beta + theta, depth)
+    near, far, near_path, far_path = cone_footprint(depth, beta, theta, offset)
+    assert near == pytest.approx(near_x, rel=1e-12, abs=1e-15)
+    assert far == pytest.approx(far_x, rel=1e-12)
+    # the brief's closed form (d + o cos b)(tan(b + t) - tan(b - t))
+    closed = (depth + offset * math.cos(beta)) * (math.tan(beta + theta) - math.tan(beta - theta))
+    assert far - near == pytest.approx(closed, rel=1e-12)
+    if offset == 0:  # the cone from the exit point: d (tan(b + t) - tan(b - t))
+        assert far - near == pytest.approx(
+            depth * (math.tan(beta + theta) - math.tan(beta - theta)), rel=1e-12
+        )
+    # the crossing's sound path: the point (s + o) tan(theta) across the axis at path s is
+    # on the edge, at the depth (coordinates of a point off the axis)
+    for s, side, x in ((near_path, -1, near), (far_path, 1, far)):
+        across = side * (s + offset) * math.tan(theta)
+        assert s * math.cos(beta) - across * math.sin(beta) == pytest.approx(depth, rel=1e-12)
+        assert s * math.sin(beta) + across * math.cos(beta) == pytest.approx(x, rel=1e-12)
+
+
+@pytest.mark.parametrize("offset", [0.0, 0.008])
+def test_far_field_cone_footprint_on_leg_2_is_the_unfolded_one(offset):
+    # Geometry: follow each edge ray down to the back wall, mirror it there (angle of
+    # reflection equals angle of incidence) and on up to the flaw depth; the crossing equals
+    # the straight (unfolded) ray's at 2t - d.
+    beta, theta = math.radians(60), math.radians(6.0)
+    t, d = 0.025, 0.015
+    apex = (-offset * math.sin(beta), -offset * math.cos(beta))
+    ends = []
+    for angle in (beta - theta, beta + theta):
+        x_wall, _ = _ray_crossing(apex, angle, t)
+        x = x_wall + (t - d) * math.tan(angle)  # back up at the same angle
+        ends.append(x)
+    near, far, _, _ = cone_footprint(2 * t - d, beta, theta, offset)
+    assert near == pytest.approx(ends[0], rel=1e-12)
+    assert far == pytest.approx(ends[1], rel=1e-12)
+    assert far - near == pytest.approx(
+        (2 * t - d + offset * math.cos(beta)) * (math.tan(beta + theta) - math.tan(beta - theta)),
+        rel=1e-12,
+    )
+
+
+def test_far_field_cone_edge_at_or_past_the_surface_has_no_footprint():
+    # Geometry: an edge at 80 + 13 = 93 degrees from the normal heads up into the wedge.
+    near, far, near_path, far_path = cone_footprint(
+        0.010, math.radians(80), math.radians(13), 0.008
+    )
+    assert far is None and far_path is None
+    assert near is not None and near_path is not None
