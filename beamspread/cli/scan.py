@@ -161,6 +161,11 @@ def scan_plan(
             )
         )
         return
+    if fmt == "csv":
+        from ..report.serialize import scan_plan_to_csv
+
+        click.echo(scan_plan_to_csv(plan, mode), nl=False)
+        return
     import textwrap
 
     from ..report.text import CAUTION, SONAR_CAUTION, _medium_and_probe, columns

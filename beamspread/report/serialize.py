@@ -22,6 +22,8 @@ __all__ = [
     "design_to_csv",
     "dumps",
     "field_settings_to_dict",
+    "scan_plan_to_csv",
+    "section_to_csv",
     "sonar_to_dict",
     "unit_suffix",
     "wave_to_dict",
@@ -548,3 +550,87 @@ def setup_to_dict(setup) -> dict[str, Any]:
             "far-field width, the flat element's cone does not describe a converging beam",
         }
     return _clean(out)
+
+
+SECTION_CSV_COLUMNS = (
+    "mode",
+    "method",
+    "leg",
+    "level_db",
+    "depth_m",
+    "sound_path_m",
+    "surface_distance_m",
+    "near_m",
+    "far_m",
+    "footprint_m",
+    "near_sound_path_m",
+    "far_sound_path_m",
+)
+
+
+def section_to_csv(footprints, mode: str) -> str:
+    """CSV of ``beamspread section``: one row per leg and level footprint (SI units).
+
+    ``footprints`` are :class:`beamspread.inspection.WedgeFootprint`; ``near_m``
+    and ``far_m`` are where the level's edges cross the flaw depth, along the
+    surface from the exit point, empty where an edge does not reach it.
+    """
+    rows = [
+        (
+            mode,
+            p.method,
+            p.leg,
+            -abs(p.level_db),
+            p.depth,
+            p.sound_path,
+            p.surface_distance,
+            p.near,
+            p.far,
+            p.width,
+            p.near_path,
+            p.far_path,
+        )
+        for p in sorted(footprints, key=lambda p: (p.leg, abs(p.level_db)))
+    ]
+    return _csv(SECTION_CSV_COLUMNS, rows)
+
+
+SCAN_PLAN_CSV_COLUMNS = (
+    "depth_m",
+    "width_m",
+    "far_field_valid",
+    "governing",
+    "index_step_m",
+    "overlap",
+    "level_db",
+    "plane",
+    "method",
+    "mode",
+)
+
+
+def scan_plan_to_csv(plan, mode: str) -> str:
+    """CSV of ``beamspread scan-plan``: one row per depth considered (SI units).
+
+    Each row gives the width there, whether a far-field width holds there
+    (empty for computed widths), whether it is the narrowest that sets the
+    step, and the plan's index step, overlap, level, plane, method and mode.
+    """
+    valid = plan.far_field_valid or (None,) * len(plan.depths)
+    level = None if plan.level_db is None else -abs(plan.level_db)
+    rows = [
+        (
+            depth,
+            width,
+            ok,
+            depth == plan.governing_depth,
+            plan.index_step,
+            plan.overlap,
+            level,
+            plan.plane,
+            plan.method,
+            mode,
+        )
+        for depth, width, ok in zip(plan.depths, plan.widths, valid, strict=True)
+    ]
+    return _csv(SCAN_PLAN_CSV_COLUMNS, rows)
