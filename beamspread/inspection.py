@@ -15,7 +15,13 @@ Models and their limits
   A disc becomes an ellipse, a rectangle a shorter rectangle. The computed
   field is that virtual element's (:mod:`beamspread.field`): it omits the
   angle dependence of the transmission coefficient across the beam and the
-  mode-converted wave, so it is an estimate for the main lobe.
+  mode-converted wave, so it is an estimate for the main lobe. The far-field
+  cone starts at the virtual element too: across the axis its width is
+  ``2 (s + offset) tan(half-angle)`` at sound path ``s`` from the exit point.
+  A footprint in the incidence plane is where the beam's edges (at half the
+  width either side of the axis, across it) cross the depth: in closed form
+  for the cone (:func:`beamspread.setups.cone_footprint`), by root finding
+  on the computed width for the field.
 * Immersion at normal incidence: the field in the part at depth ``d`` is
   taken as the element's field in water at the equivalent water path
   ``WP + d * c_part / c_water`` (paraxial; the lateral scale is unchanged),
@@ -37,6 +43,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, replace
+from dataclasses import field as _field
 
 import numpy as np
 
@@ -62,11 +69,15 @@ __all__ = [
     "SetupResult",
     "WaterPath",
     "Wedge",
+    "WedgeFootprint",
     "analyse_immersion",
     "analyse_wedge",
 ]
 
 MAX_WATER_PATH = 2.0  # m: longer than any immersion tank or bubbler
+_SHORTEST_PATH = 1e-4  # m: computed edges are sought no nearer the exit point than this
+_LONGEST_PATH = 5.0  # m: nor farther (an edge that meets a depth only beyond never does)
+_CROSSING_TOLERANCE = 1e-7  # m: an edge crossing is found to this depth
 
 
 @dataclass(frozen=True)
@@ -113,6 +124,38 @@ class FocusResult:
 
 
 @dataclass(frozen=True)
+class WedgeFootprint:
+    """Where one level's edges in the incidence plane cross a depth on one leg.
+
+    The edges lie at half the beam's full width either side of the axis,
+    across it (perpendicular to it); ``near`` and ``far`` are where they cross
+    the depth, m along the surface from the exit point (``far`` ahead of the
+    axis); None where that edge does not reach the depth. ``near_path`` and
+    ``far_path`` are the sound paths (m along the axis, unfolded) of the
+    crossings. ``method`` is "far-field" (the cone from the virtual element)
+    or "field" (the computed field).
+    """
+
+    depth: float  # m below the scanning surface
+    leg: int
+    level_db: float  # negative: -6.0 means 6 dB down
+    method: str
+    sound_path: float  # m, exit point to the depth along the axis
+    surface_distance: float  # m, exit point to the axis at the depth
+    near: float | None
+    far: float | None
+    near_path: float | None = None
+    far_path: float | None = None
+
+    @property
+    def width(self) -> float | None:
+        """The footprint along the depth, m (None where an edge does not reach it)."""
+        if self.near is None or self.far is None:
+            return None
+        return self.far - self.near
+
+
+@dataclass(frozen=True)
 class SetupResult:
     """The beam in the part and what the setup did to it."""
 
@@ -126,16 +169,23 @@ class SetupResult:
     warnings: tuple[str, ...] = ()
     virtual: Disc | Rectangle | Ellipse | None = None  # the element as the part sees it
     offset: float = 0.0  # m: how far the virtual element sits behind the exit point
+    footprints: tuple[WedgeFootprint, ...] = ()  # incidence plane, per depth, leg, level, method
+    near_field_simple_method: str | None = None
+    # (method, warning): the warnings (also in ``warnings``) that concern only the
+    # far-field ("far-field") or the computed ("field") widths and footprints
+    method_warnings: tuple[tuple[str, str], ...] = ()
+    _widths: dict = _field(default_factory=dict, repr=False, compare=False)
 
     def edges(self, path_length: float, field: FieldSettings | None, *, samples: int = 24, at=()):
         """The beam's full width in the incidence plane along the sound path, per level.
 
         Returns ``{level_db: (sound_paths, widths)}``, m: from the computed field
         of the virtual element when ``field`` is given, else the far-field cone
-        ``2 s tan(half-angle)`` from the exit point, the same widths the beam's
-        far-field rows give (and, like them, not valid inside the near field).
-        The sound paths in ``at`` (m) are sampled too, so a footprint read there
-        is computed, not interpolated.
+        ``2 (s + offset) tan(half-angle)`` from the virtual element, the same
+        widths the beam's far-field rows give (and, like them, not valid inside
+        the near field). The sound paths in ``at`` (m) are sampled too, so a
+        footprint read there is computed, not interpolated: pass the flaw's
+        sound paths and the crossings in :attr:`footprints`.
         """
         if self.virtual is None:
             raise InputError("the beam's edges along the path need a wedge setup")
@@ -148,32 +198,129 @@ class SetupResult:
             for level in beam.levels:
                 angle = half[level_key(level)]
                 if angle is not None:
-                    widths = 2.0 * paths * math.tan(math.radians(angle))
+                    widths = 2.0 * (paths + self.offset) * math.tan(math.radians(angle))
                     out[level] = (tuple(paths), tuple(widths))
             return out
-        from .field import beam_widths
-
         first = max(0.05 * (beam.near_field or beam.near_field_simple or path_length), 1e-4)
-        extra = [float(s) for s in at if first < s < path_length]
+        extra = [float(s) for s in at if _SHORTEST_PATH <= s < path_length]
         paths = np.unique(np.concatenate([np.linspace(first, path_length, samples), extra]))
+        widths = _ComputedWidths(
+            self.virtual,
+            beam.wave.speed,
+            self.offset,
+            beam.levels,
+            beam.convention.mode,
+            field,
+            self._widths,
+        )
         table = {level: [] for level in beam.levels}
         for s in paths:
-            for w in beam_widths(
-                self.virtual,
-                beam.wave.speed,
-                s + self.offset,
-                beam.levels,
-                plane=plane,
-                bandwidth=field.bandwidth,
-                mode=beam.convention.mode,
-                frequencies=field.frequencies,
-                spectrum=field.spectrum,
-            ):
-                table[w.level_db].append(w.width)
-        for level, widths in table.items():
-            if all(math.isfinite(w) for w in widths):
-                out[level] = (tuple(paths), tuple(widths))
+            for level, width in widths(plane, s).items():
+                table[level].append(width)
+        for level, values in table.items():
+            if all(math.isfinite(w) for w in values):
+                out[level] = (tuple(paths), tuple(values))
         return out
+
+
+class _ComputedWidths:
+    """The computed field's full widths per level at sound paths from the exit point.
+
+    The virtual element's field at ``s + offset`` (see the module notes),
+    kept in ``cache`` (the result's), so a section drawn from a result reuses
+    the widths its footprints were found with.
+    """
+
+    def __init__(self, virtual, speed, offset, levels, mode, field: FieldSettings, cache: dict):
+        self.virtual, self.speed, self.offset = virtual, speed, offset
+        self.levels, self.mode, self.field, self.cache = levels, mode, field, cache
+
+    def __call__(self, plane: str, path: float) -> dict[float, float]:
+        from .field import beam_widths
+
+        key = (plane, float(path), self.field, self.mode, self.levels)
+        found = self.cache.get(key)
+        if found is None:
+            widths = beam_widths(
+                self.virtual,
+                self.speed,
+                path + self.offset,
+                self.levels,
+                plane=plane,
+                bandwidth=self.field.bandwidth,
+                mode=self.mode,
+                frequencies=self.field.frequencies,
+                spectrum=self.field.spectrum,
+            )
+            found = {level: w.width for level, w in zip(self.levels, widths, strict=True)}
+            self.cache[key] = found
+        return found
+
+
+def _edge_crossing(
+    width_at, unfolded: float, beta: float, side: float, s0: float, w0: float, slope: float
+):
+    """The sound path where one computed level edge crosses an unfolded depth.
+
+    ``width_at(s)`` is the beam's full width (m; NaN where the level is not
+    reached) at sound path ``s``; the edge's point at ``s`` lies ``side * w/2``
+    across the axis (``side`` +1 ahead of the axis, toward the surface, -1
+    behind), at the unfolded depth ``s cos(beta) - side (w/2) sin(beta)``.
+    From the axis point ``s0`` (width ``w0``) the first guess takes the width
+    as growing at ``slope`` (the far-field cone's), then secant steps search
+    outward until the crossing is bracketed and regula falsi (the Illinois
+    variant) closes on it to :data:`_CROSSING_TOLERANCE` in depth.
+
+    Returns ``(s, w)`` at the crossing, or None where the edge does not reach
+    the depth between :data:`_SHORTEST_PATH` and :data:`_LONGEST_PATH`.
+    """
+    c, n = math.cos(beta), math.sin(beta)
+
+    def depth_error(s, w):
+        return s * c - side * 0.5 * w * n - unfolded
+
+    def clamp(s):
+        return min(max(s, _SHORTEST_PATH), _LONGEST_PATH)
+
+    a, ga = s0, depth_error(s0, w0)
+    if abs(ga) <= _CROSSING_TOLERANCE:
+        return s0, w0
+    den = c - side * 0.5 * slope * n
+    guess = (unfolded + side * 0.5 * (w0 - slope * s0) * n) / den if den > 0 else math.nan
+    if not (math.isfinite(guess) and (guess - s0) * side > 0):
+        guess = s0 + side * abs(ga) / c  # the width held constant
+    b = clamp(guess)
+    bracket = None  # (p, gp, q, gq): depth errors of opposite signs, q the latest point
+    for _ in range(60):
+        wb = width_at(b)
+        if not math.isfinite(wb):
+            return None
+        gb = depth_error(b, wb)
+        if abs(gb) <= _CROSSING_TOLERANCE:
+            return b, wb
+        if bracket is not None:
+            p, gp, q, gq = bracket
+            if gb * gq < 0:
+                p, gp = q, gq
+            else:
+                gp *= 0.5  # Illinois: the stale end's weight halved
+            bracket = (p, gp, b, gb)
+        elif gb * ga < 0:
+            bracket = (a, ga, b, gb)
+        else:  # not bracketed yet: a secant step outward, or a longer stride
+            ahead = math.nan if gb == ga else b - gb * (b - a) / (gb - ga)
+            if not math.isfinite(ahead) or (ahead - b) * side <= 0:
+                ahead = b + side * 2.0 * abs(b - s0)
+            nxt = clamp(ahead)
+            if nxt == b:
+                return None  # at the end of the search and still short of the depth
+            a, ga, b = b, gb, nxt
+            continue
+        p, gp, q, gq = bracket
+        if abs(q - p) <= _CROSSING_TOLERANCE:
+            return b, wb
+        b = (p * gq - q * gp) / (gq - gp)
+    return None
 
 
 def _deg(rad: float) -> str:
@@ -274,7 +421,7 @@ def analyse_wedge(
         virtual = Rectangle(inc, probe.width, f)
         names = {"length": "length", "width": "width"}
         shape = "side"
-    from .field import beam_widths, last_maximum
+    from .field import last_maximum
 
     n_virtual = last_maximum(virtual, c_part, bandwidth=0.0, mode="one-way")
     offset = wedge.path * wedge.speed / c_part
@@ -285,14 +432,26 @@ def analyse_wedge(
             f"inside the wedge (its path counts as {_mm(offset)} of the part)"
         )
         near = None
-    simple = (
-        inc * virtual.width / (4 * wavelength)
-        if shape == "disc"
-        else (max(inc, probe.width) ** 2 / (4 * wavelength))
-    )
+    if shape == "disc":  # the disc of the virtual ellipse's area: D² cos(beta) / cos(alpha)
+        simple = inc * virtual.width / (4 * wavelength) - offset
+        simple_formula = (
+            "a disc of the virtual ellipse's area, D²·cos(refracted)/(4λ·cos(incident))"
+        )
+    else:
+        simple = max(inc, probe.width) ** 2 / (4 * wavelength) - offset
+        simple_formula = "L²/4λ, L the virtual rectangle's longer side"
     level_list = _levels(levels)
-    planes = []
-    for vname, aperture in virtual.planes:
+    warnings.extend(_incident_spread_warnings(probe, wedge.speed, r, wave, level_list, mode))
+    cache: dict = {}
+    computed = (
+        None
+        if field is None
+        else _ComputedWidths(virtual, c_part, offset, level_list, mode, field, cache)
+    )
+    legs = (1, 2) if thickness is not None else (1,)
+    planes, prints = [], []
+    for index, (vname, aperture) in enumerate(virtual.planes):
+        in_plane = index == 0  # the incidence plane: footprints where the edges cross the depth
         angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
         null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
         half = {
@@ -301,7 +460,6 @@ def analyse_wedge(
         }
         half["null"] = None if math.isnan(null) else null
         spots = []
-        legs = (1, 2) if thickness is not None else (1,)
         for depth in depth_list:
             for leg in legs:
                 path, surface, unfolded = setups.leg_geometry(depth, beta, thickness, leg)
@@ -311,11 +469,17 @@ def analyse_wedge(
                     width = footprint = None
                     if angle is not None:
                         theta = math.radians(angle)
-                        width = 2 * path * math.tan(theta)
+                        width = 2 * (path + offset) * math.tan(theta)  # from the virtual element
                         footprint = width
-                        if names[vname] in ("incidence", "length"):
-                            spread = math.tan(beta + theta) - math.tan(beta - theta)
-                            footprint = unfolded * spread if beta + theta < math.pi / 2 else None
+                    if in_plane:
+                        cone = (
+                            setups.cone_footprint(unfolded, beta, theta, offset)
+                            if angle is not None
+                            else (None, None, None, None)
+                        )
+                        found = WedgeFootprint(depth, leg, -lv, "far-field", path, surface, *cone)
+                        prints.append(found)
+                        footprint = found.width
                     spots.append(
                         Spot(
                             depth,
@@ -328,45 +492,53 @@ def analyse_wedge(
                             footprint=footprint,
                         )
                     )
-                if field is not None:
-                    found = beam_widths(
-                        virtual,
-                        c_part,
-                        path + offset,
-                        level_list,
-                        plane=vname,
-                        bandwidth=field.bandwidth,
-                        mode=mode,
-                        frequencies=field.frequencies,
-                        spectrum=field.spectrum,
-                    )
-                    for w in found:
-                        width = None if math.isnan(w.width) else w.width
-                        foot = width
-                        if width is not None and names[vname] in ("incidence", "length"):
-                            foot = width / math.cos(beta)  # small-divergence projection
-                        spots.append(
-                            Spot(
-                                depth,
-                                -w.level_db,
-                                width,
-                                None,
-                                method="field",
-                                leg=leg,
-                                sound_path=path,
-                                surface_distance=surface,
-                                footprint=foot,
-                            )
+                if computed is None:
+                    continue
+                at_path = computed(vname, path)
+                for lv in level_list:
+                    w0 = at_path[lv]
+                    width = None if math.isnan(w0) else w0
+                    foot = width
+                    if in_plane:
+                        angle = half[level_key(lv)]
+                        slope = 0.0 if angle is None else 2 * math.tan(math.radians(angle))
+                        found = _computed_footprint(
+                            lambda s, lv=lv, plane=vname: computed(plane, s)[lv],
+                            WedgeFootprint(depth, leg, -lv, "field", path, surface, None, None),
+                            unfolded,
+                            beta,
+                            w0,
+                            slope,
                         )
+                        prints.append(found)
+                        foot = found.width
+                    spots.append(
+                        Spot(
+                            depth,
+                            -lv,
+                            width,
+                            None,
+                            method="field",
+                            leg=leg,
+                            sound_path=path,
+                            surface_distance=surface,
+                            footprint=foot,
+                        )
+                    )
         planes.append(PlaneResult(names[vname], aperture, half, tuple(spots)))
+    by_method = _footprint_warnings(prints, beta, planes[0].half_angles)
     for depth in depth_list:
         path = depth / math.cos(beta)
         if near is not None and path < near:
-            warnings.append(
-                f"depth {_mm(depth)} (sound path {_mm(path)}) lies inside the near "
-                f"field in the part ({_mm(near)}): the far-field width does not "
-                "hold there"
+            by_method.append(
+                (
+                    "far-field",
+                    f"depth {_mm(depth)} (sound path {_mm(path)}) lies inside the near "
+                    f"field in the part ({_mm(near)}): the far-field width does not "
+                    "hold there",
+                )
             )
+    warnings.extend(text for _, text in by_method)
     beam = BeamResult(
         probe=probe,
         wave=part,
@@ -374,9 +546,9 @@ def analyse_wedge(
         levels=level_list,
         wavelength=wavelength,
         near_field=near,
-        near_field_simple=simple - offset,
+        near_field_simple=simple if simple > 0 else None,
         near_field_method="last on-axis maximum of the virtual element in the part, less "
-        "the wedge path's equivalent (common practice)",
+        f"the wedge path's equivalent (common practice); simple: {simple_formula}",
         near_field_factor=None,
         planes=tuple(planes),
         depths=depth_list,
@@ -396,7 +568,104 @@ def analyse_wedge(
         warnings=tuple(warnings),
         virtual=virtual,
         offset=offset,
+        footprints=tuple(prints),
+        near_field_simple_method=f"{simple_formula}, less the wedge path's equivalent "
+        "(common practice)",
+        method_warnings=tuple(by_method),
+        _widths=cache,
     )
+
+
+def _computed_footprint(width_at, where, unfolded, beta, w0, slope) -> WedgeFootprint:
+    """The computed field's footprint at one depth, leg and level (see :func:`_edge_crossing`).
+
+    ``where`` is the footprint without its ends, filled in here.
+    """
+    ends = []
+    for side in (-1.0, 1.0):
+        hit = None
+        if math.isfinite(w0):
+            hit = _edge_crossing(width_at, unfolded, beta, side, where.sound_path, w0, slope)
+        if hit is None:
+            ends.append((None, None))
+        else:
+            s, w = hit
+            ends.append((s * math.sin(beta) + side * 0.5 * w * math.cos(beta), s))
+    (near, near_path), (far, far_path) = ends
+    return replace(where, near=near, far=far, near_path=near_path, far_path=far_path)
+
+
+def _incident_spread_warnings(probe, c_wedge, r, wave, levels, mode) -> list[str]:
+    """Whether the incident beam's spread in the wedge straddles the critical angle that bounds
+    the mode used: past it, that part of the beam sends no such wave into the part.
+
+    The real element's half-angles in the wedge (its aperture in the incidence
+    plane, the wedge's wavelength) either side of the incident angle.
+    """
+    if wave == "shear":
+        bound, which = r.second_critical, "second"
+    else:
+        bound, which = r.first_critical, "first"
+    if bound is None:
+        return []
+    disc = isinstance(probe, Disc)
+    aperture = probe.diameter if disc else probe.length
+    lam = c_wedge / probe.frequency
+    angles = pattern.half_angle(levels, aperture, lam, "disc" if disc else "side", mode)
+    for level, angle in sorted(zip(levels, angles, strict=True)):
+        reach = math.pi / 2 if math.isnan(angle) else r.incident + float(angle)
+        if reach > bound:
+            spread = "spreading to 90 deg" if math.isnan(angle) else f"± {_deg(float(angle))}"
+            return [
+                f"the incident beam straddles the {which} critical angle "
+                f"({_deg(bound)}): its -{level:g} dB edges in the wedge lie at "
+                f"{_deg(r.incident)} {spread}, and past {_deg(bound)} no {wave} wave "
+                "enters, so the beam in the part is cut and weakened on its far side, "
+                "which the model does not show"
+            ]
+    return []
+
+
+def _footprint_warnings(prints, beta, half) -> list[tuple[str, str]]:
+    """(method, line): one line per level, method and edge that does not reach a depth asked for."""
+    out = []
+    for method in ("far-field", "field"):
+        for level in dict.fromkeys(p.level_db for p in prints):
+            mine = [p for p in prints if p.method == method and p.level_db == level]
+            for side in ("far", "near"):
+                missed = [p for p in mine if getattr(p, side) is None]
+                if not missed:
+                    continue
+                ahead = "ahead of" if side == "far" else "behind"
+                angle = half[level_key(level)]
+                if method == "far-field" and angle is None:
+                    continue  # no half-angle at that level: the table says none already
+                if method == "far-field":
+                    out.append(
+                        (
+                            method,
+                            f"the far-field {level:g} dB edge {ahead} the axis leaves the "
+                            f"virtual element at {_deg(beta + math.radians(angle))} from the "
+                            f"normal ({_deg(beta)} + {angle:.2f} deg), at or past the surface: "
+                            "it never comes down to a depth, so there is no far-field "
+                            f"{level:g} dB footprint",
+                        )
+                    )
+                    continue
+                places = ", ".join(f"{_mm(p.depth)} on leg {p.leg}" for p in missed)
+                why = (
+                    "it climbs toward the surface as fast as the axis descends"
+                    if side == "far"
+                    else "the depth lies inside the beam from where it enters the part"
+                )
+                out.append(
+                    (
+                        method,
+                        f"the computed {level:g} dB edge {ahead} the axis does not reach the "
+                        f"depth {places} ({why}): no computed {level:g} dB footprint there",
+                    )
+                )
+    return out
 
 
 def analyse_immersion(

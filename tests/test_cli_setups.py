@@ -78,8 +78,10 @@ def test_wedge_legs_sound_paths_and_surface_distances(run):
 
 
 def test_section_and_beam_give_the_same_far_field_footprint(run):
-    # One technique, one answer: the far-field cone's edges leave the exit point at
-    # beta -+ theta and cross the depth d at d tan(beta -+ theta) (geometry), in both commands.
+    # One technique, one answer: the far-field cone's apex is the virtual element, set back
+    # by the wedge path's equivalent o = L c_wedge / c_part (common practice); its edges leave
+    # it at beta -+ theta and cross the unfolded depth u at (u + o cos b) tan(b -+ t) - o sin b
+    # (geometry), in both commands and in the drawn section.
     wedge = ("--wedge", "acrylic", "--refracted", "60", "--wedge-path", "12mm")
     where = ("--thickness", "25mm", "--depth", "15mm", "--far-field-only", "--json")
     beam = run("beam", *PROBE, *STEEL, *wedge, *where).json()
@@ -93,6 +95,117 @@ def test_section_and_beam_give_the_same_far_field_footprint(run):
     assert drawn.keys() == spots.keys()
     for key, width in drawn.items():
         assert width == pytest.approx(spots[key], rel=1e-9)
+    beta, offset = math.radians(60), 0.012 * ACRYLIC / CS
+    for (leg, level), width in spots.items():
+        theta = math.radians(beam["planes"][0]["half_angle_deg"][f"{level:g}"])
+        unfolded = 0.015 if leg == 1 else 2 * 0.025 - 0.015
+        reach = unfolded + offset * math.cos(beta)
+        assert width == pytest.approx(
+            reach * (math.tan(beta + theta) - math.tan(beta - theta)), rel=1e-12
+        )
+        row = next(f for f in section["footprints"] if (f["leg"], f["level_db"]) == (leg, level))
+        assert row["near_m"] == pytest.approx(
+            reach * math.tan(beta - theta) - offset * math.sin(beta), rel=1e-12
+        )
+
+
+def test_far_field_width_across_the_axis_starts_at_the_virtual_element(run):
+    # The cone's apex at the virtual element (common practice): across the axis the width
+    # is 2 (s + o) tan(theta), o = wedge path c_wedge / c_part, in both planes.
+    data = run(
+        "beam",
+        *PROBE,
+        *STEEL,
+        "--wedge",
+        "acrylic",
+        "--refracted",
+        "45",
+        "--wedge-path",
+        "20mm",
+        "--depth",
+        "40mm",
+        "--far-field-only",
+        "--json",
+    ).json()
+    offset = 0.020 * ACRYLIC / CS
+    for plane in data["planes"]:
+        for spot in plane["spots"]:
+            theta = math.radians(plane["half_angle_deg"][f"{spot['level_db']:g}"])
+            s = 0.040 / math.cos(math.radians(45))
+            assert spot["sound_path_m"] == pytest.approx(s)
+            assert spot["width_m"] == pytest.approx(2 * (s + offset) * math.tan(theta), rel=1e-12)
+
+
+def test_computed_footprint_is_where_the_computed_edges_cross_the_depth(run):
+    # The brief's case: 10 mm 4 MHz disc, acrylic wedge (10 mm path), 70 deg shear, 20 mm
+    # plate, flaw at 10 mm. The footprint's ends must lie where the edges at half the computed
+    # width either side of the axis, across it, meet the depth (geometry): checked here with
+    # the field engine's widths at the crossings' sound paths, independently of the search.
+    # beam, section and the drawn section agree.
+    import beamspread
+    from beamspread.cli.section import section_geometry
+    from beamspread.field import beam_widths
+    from beamspread.report import plots
+
+    probe = ("--diameter", "10mm", "--frequency", "4MHz")
+    setup = ("--wedge", "acrylic", "--refracted", "70", "--wedge-path", "10mm")
+    where = ("--thickness", "20mm", "--depth", "10mm", "--json")
+    beam = run("beam", *probe, *STEEL, *setup, *where).json()
+    section = run("section", *probe, *STEEL, *setup, *where).json()
+    table = {
+        (s["leg"], s["level_db"]): s["footprint_m"]
+        for s in beam["planes"][0]["spots"]
+        if s["method"] == "field"
+    }
+    rows = {(f["leg"], f["level_db"]): f for f in section["footprints"]}
+    assert rows.keys() == table.keys() and len(rows) == 4
+    for key, width in table.items():
+        assert rows[key]["footprint_m"] == pytest.approx(width, rel=1e-12)
+
+    settings = beamspread.FieldSettings()
+    part = beamspread.Wave("reference-steel", "shear", CS, "ISO 22232-2:2020")
+    beta = math.radians(70)
+    result = beamspread.analyse_wedge(
+        beamspread.Disc(0.010, 4e6),
+        part,
+        CL,
+        CS,
+        beamspread.Wedge(ACRYLIC, 0.010, refracted=beta),
+        thickness=0.020,
+        depths=[0.010],
+        field=settings,
+    )
+    offset = 0.010 * ACRYLIC / CS
+    for p in (p for p in result.footprints if p.method == "field"):
+        unfolded = 0.010 if p.leg == 1 else 0.030
+        for side, s, x in ((-1, p.near_path, p.near), (1, p.far_path, p.far)):
+            (w,) = beam_widths(
+                result.virtual,
+                CS,
+                s + offset,
+                [abs(p.level_db)],
+                plane="length",
+                bandwidth=settings.bandwidth,
+                mode="pulse-echo",
+                frequencies=settings.frequencies,
+                spectrum=settings.spectrum,
+            )
+            across = side * 0.5 * w.width
+            assert s * math.cos(beta) - across * math.sin(beta) == pytest.approx(unfolded, abs=2e-7)
+            assert s * math.sin(beta) + across * math.cos(beta) == pytest.approx(x, abs=1e-6)
+        assert p.width == pytest.approx(table[(p.leg, p.level_db)], rel=1e-12)
+    # the old projection width / cos(beta) is not this rule: at -20 dB it is far off
+    w20 = next(
+        s["width_m"]
+        for s in beam["planes"][0]["spots"]
+        if (s["method"], s["leg"], s["level_db"]) == ("field", 1, -20.0)
+    )
+    assert table[(1, -20.0)] > 1.1 * w20 / math.cos(beta)
+    # the drawn section's footprints (the edges sampled at the crossings) agree, < 0.01 %
+    drawn = plots.section_footprints(section_geometry(result, 0.020, 0.010, settings, None))
+    assert len(drawn) == 4
+    for f in drawn:
+        assert f.width == pytest.approx(table[(f.leg, -f.level_db)], rel=1e-4)
 
 
 def test_normal_incidence_wedge_is_the_contact_beam(run):

@@ -25,12 +25,26 @@ from .setupargs import setup_file_options
 
 
 def section_geometry(result, thickness, depth, settings, wedge_path):
-    """The SectionGeometry of a wedge result: axis, level edges and the flaw depth."""
+    """The SectionGeometry of a wedge result: axis, level edges and the flaw depth.
+
+    The edges are sampled at the flaw's sound paths on both legs and at the
+    sound paths where the result's footprints found the edges crossing the
+    depth, so the drawn footprints are those of the table.
+    """
     from ..report.plots import BeamEdge, SectionGeometry
 
     beta = result.refraction.refracted(result.beam.wave.wave)
     length = 2 * thickness / math.cos(beta) * 1.4  # past the second leg's return to the surface
-    at = () if depth is None else (depth / math.cos(beta), (2 * thickness - depth) / math.cos(beta))
+    at = []
+    if depth is not None:
+        at = [depth / math.cos(beta), (2 * thickness - depth) / math.cos(beta)]
+        at += [
+            s
+            for p in result.footprints
+            if p.depth == depth
+            for s in (p.near_path, p.far_path)
+            if s is not None
+        ]
     edges = tuple(
         BeamEdge(level, paths, widths)
         for level, (paths, widths) in result.edges(length, settings, at=at).items()
@@ -106,6 +120,8 @@ def section(
     check_plot(plot_path, force_plot)
     if wedge is None and wedge_speed is None:
         raise click.UsageError("the section needs a wedge: --wedge NAME or --wedge-speed SPEED")
+    if wedge is not None and wedge_speed is not None:
+        raise click.UsageError("give --wedge NAME or --wedge-speed SPEED, not both")
     if thickness is None:
         raise click.UsageError("the section needs the part --thickness")
     if (incident is None) == (refracted is None):
@@ -116,15 +132,23 @@ def section(
 
     probe = make_probe(diameter, length, width, frequency)
     settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
+    method = "far-field" if settings is None else "field"
     resolved = resolve_wave(
         material, wave or "shear", speed, temperature, conditions, materials_dirs
     )
     registry = resolved.registry or load_registry(materials_dirs)
+    warnings = list(registry.warnings)
     if wedge is not None:
         w = _named_speed(registry, wedge, temperature)
+        warnings.extend(w.warnings)
         wedge_c, name = w.speed, w.medium
     else:
         wedge_c, name = wedge_speed, "given"
+    if wedge_path is None:
+        warnings.append(
+            "no --wedge-path: the near field in the part is not shortened by the wedge, "
+            "and the far-field cone starts at the exit point"
+        )
     c_long, c_shear = _part_speeds(resolved)
     mode = "one-way" if pulse_echo is False else "pulse-echo"
     result = analyse_wedge(
@@ -137,20 +161,26 @@ def section(
         depths=[depth] if depth else [],
         levels=levels or DEFAULT_LEVELS,
         mode=mode,
-        field=None,
+        field=settings,
     )
-    geometry = section_geometry(result, thickness, depth, settings, wedge_path)
-    prints = plots.section_footprints(geometry) if depth is not None else []
-    warnings = list(dict.fromkeys([*registry.warnings, *result.warnings]))
+    other = {text for m, text in result.method_warnings if m != method}
+    warnings.extend(w for w in result.warnings if w not in other)
+    warnings = list(dict.fromkeys(warnings))
+    if depth is None and fmt != "table":
+        warnings.append("no --depth: the section has no flaw depth, so no footprint is given")
     emit_warnings(warnings)
-    if plot_path is not None:
+    if plot_path is not None:  # the edges along both legs are computed for the drawing only
         from .beam import caption_of
 
+        geometry = section_geometry(result, thickness, depth, settings, wedge_path)
         plots.plot_section(
             geometry, plot_path, caption=caption_of(result.beam) + f"; wedge {name}", units=units
         )
         click.echo(f"beamspread: drew {plot_path}", err=True)
-    beta = math.degrees(geometry.refracted)
+    beta_rad = result.refraction.refracted(result.beam.wave.wave)
+    beta = math.degrees(beta_rad)
+    skip = 2 * thickness * math.tan(beta_rad)  # full skip along the surface (geometry)
+    prints = [p for p in result.footprints if p.method == method]
     rows = [
         {
             "leg": p.leg,
@@ -161,32 +191,117 @@ def section(
             "far_m": p.far,
             "footprint_m": p.width,
         }
-        for p in prints
+        for p in sorted(prints, key=lambda p: (p.leg, abs(p.level_db)))
     ]
+    wedge_dict = {"name": name, "speed_m_s": wedge_c, "path_m": wedge_path or 0.0}
     if fmt == "json":
-        from ..report.serialize import dumps, setup_to_dict
+        from ..report.serialize import (
+            beam_to_dict_convention,
+            dumps,
+            field_settings_to_dict,
+            probe_to_dict,
+            setup_to_dict,
+            wave_to_dict,
+        )
 
+        medium = wave_to_dict(resolved.wave)
+        medium["longitudinal_m_s"], medium["shear_m_s"] = c_long, c_shear
         data = {
+            "probe": probe_to_dict(probe),
+            "medium": medium,
+            "convention": {
+                **beam_to_dict_convention(result.beam),
+                **({} if settings is None else {"level_reference": FIELD_REFERENCE}),
+                "edges": method,
+                "footprint_rule": FOOTPRINT_RULE,
+            },
+            "field": None if settings is None else field_settings_to_dict(settings, mode),
+            "wedge": wedge_dict,
+            "virtual_element_offset_m": result.offset,
             "refracted_deg": beta,
             "thickness_m": thickness,
             "flaw_depth_m": depth,
-            "skip_m": geometry.skip,
-            "edges": "field" if settings else "far-field",
+            "half_skip_m": skip / 2,
+            "skip_m": skip,
+            "edges": method,
             "footprints": rows,
             **setup_to_dict(result),
+            "near_field_simple_in_part_m": result.beam.near_field_simple,
+            "near_field_method": result.beam.near_field_method,
             "warnings": warnings,
         }
         click.echo(dumps(data))
         return
-    from ..report.text import columns
+    if fmt == "csv":
+        from ..report.serialize import section_to_csv
+
+        click.echo(section_to_csv(prints, mode), nl=False)
+        return
+    click.echo(
+        _section_text(
+            result, thickness, skip, settings, wedge_dict, rows, depth, mode, plot_path, units
+        )
+    )
+
+
+FIELD_REFERENCE = "dB below the largest amplitude across the beam at the same sound path"
+FOOTPRINT_RULE = (
+    "where each level's edges, half the full width either side of the axis and across it, "
+    "cross the flaw depth (on leg 2 the unfolded depth 2t - d)"
+)
+
+
+def _section_text(
+    result, thickness, skip, settings, wedge, rows, depth, mode, plot_path, units
+) -> str:
+    """The text form: what was computed, the plate's geometry and the footprints."""
+    import textwrap
+
+    from ..report.text import (
+        _medium_and_probe,
+        caution_for,
+        columns,
+        field_description,
+        setup_lines,
+    )
     from ..units import format_length
 
-    click.echo(
-        f"Angle beam on the section: {result.beam.wave.wave} at {beta:.2f}° in a "
-        f"{format_length(thickness, units)} plate; full skip "
-        f"{format_length(geometry.skip, units)}"
+    beam = result.beam
+    lines = _medium_and_probe(beam.probe, beam.wave, units, lead="Angle beam on the section: a")
+    lines += setup_lines(result, {"wedge": wedge}, units)
+    beta = result.refraction.refracted(beam.wave.wave)
+    plate = (
+        f"Plate {format_length(thickness, units)} thick, {beam.wave.wave} at "
+        f"{math.degrees(beta):.2f}°: the axis meets the back wall "
+        f"{format_length(skip / 2, units)} and the surface again "
+        f"{format_length(skip, units)} (full skip) from the exit point"
     )
-    if rows:
+    lines += textwrap.wrap(plate, 100, subsequent_indent="       ")
+    if settings is None:
+        how = (
+            f"Edges: the far-field cone of the {mode} half-angles, its apex at the virtual "
+            f"element {format_length(result.offset, units)} behind the exit point; levels in "
+            f"{result.beam.convention.reference}"
+        )
+    else:
+        how = (
+            f"Edges: the computed field of the virtual element ({field_description(settings, mode)}"
+            f"); levels in {FIELD_REFERENCE}"
+        )
+    lines += textwrap.wrap(how, 100, subsequent_indent="       ")
+    lines.append("")
+    if depth is None:
+        drawn = "the edges alone are drawn" if plot_path else "--plot FILE draws the edges"
+        lines.append(f"No flaw depth (--depth), so no footprint: {drawn}.")
+    else:
+        lines.append(
+            f"Footprint at the flaw depth {format_length(depth, units)}, positions along the "
+            "surface from the exit point"
+        )
+
+        def length(value):
+            return "none" if value is None else format_length(value, units)
+
         table = [
             ["leg", "level", "sound path", "surface distance", "footprint from", "to", "width"]
         ]
@@ -197,13 +312,17 @@ def section(
                     f"{r['level_db']:g} dB",
                     format_length(r["sound_path_m"], units),
                     format_length(r["surface_distance_m"], units),
-                    format_length(r["near_m"], units),
-                    format_length(r["far_m"], units),
-                    format_length(r["footprint_m"], units),
+                    length(r["near_m"]),
+                    length(r["far_m"]),
+                    length(r["footprint_m"]),
                 ]
             )
-        click.echo(
-            f"Footprint at the flaw depth {format_length(depth, units)} (positions along "
-            "the surface from the exit point, where the drawn edges cross the depth):"
+        lines.append(columns(table))
+        lines += textwrap.wrap(
+            f"  footprint: {FOOTPRINT_RULE}; none where an edge does not reach it.",
+            100,
+            subsequent_indent="  ",
         )
-        click.echo(columns(table))
+    lines.append("")
+    lines += textwrap.wrap(caution_for(beam.wave.state), 100)
+    return "\n".join(lines)

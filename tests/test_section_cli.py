@@ -1,0 +1,247 @@
+"""``beamspread section`` and ``scan-plan``: what they state, their CSV, and grazing beams."""
+
+from __future__ import annotations
+
+import csv
+import io
+import math
+
+import pytest
+import scipy.optimize
+import scipy.special
+
+# ISO 22232-2:2020 reference steel 5920 / 3255 m/s; acrylic wedges 2730 m/s (common practice).
+STEEL = ("--material", "reference-steel")
+CL, CS, ACRYLIC = 5920.0, 3255.0, 2730.0
+PROBE = ("--diameter", "10mm", "--frequency", "4MHz")
+PLATE = ("--thickness", "20mm")
+
+
+def _wedge(angle: float, path: str = "10mm") -> tuple[str, ...]:
+    return ("--wedge", "acrylic", "--refracted", f"{angle:g}", "--wedge-path", path)
+
+
+def _warnings(stderr: str) -> list[str]:
+    return [line for line in stderr.splitlines() if line.startswith("beamspread: warning:")]
+
+
+@pytest.mark.parametrize(
+    ("extra", "edges", "mode"),
+    [
+        ((), "field", "pulse-echo"),
+        (("--far-field-only",), "far-field", "pulse-echo"),
+        (("--far-field-only", "--one-way"), "far-field", "one-way"),
+    ],
+)
+def test_section_states_what_it_computed(run, extra, edges, mode):
+    args = ("section", *PROBE, *STEEL, *_wedge(60), *PLATE, "--depth", "10mm", *extra)
+    data = run(*args, "--json").json()
+    assert data["probe"] == {"shape": "disc", "diameter_m": 0.010, "frequency_hz": 4e6}
+    assert data["medium"]["name"] == "reference-steel" and data["medium"]["wave"] == "shear"
+    assert data["medium"]["speed_m_s"] == CS and data["medium"]["longitudinal_m_s"] == CL
+    assert data["convention"]["mode"] == mode and data["convention"]["edges"] == edges
+    assert data["convention"]["levels_db"] == [-6.0, -20.0]
+    assert data["wedge"] == {"name": "acrylic-pmma", "speed_m_s": ACRYLIC, "path_m": 0.010}
+    # the virtual element's set-back: the wedge path's equivalent (common practice)
+    assert data["virtual_element_offset_m"] == pytest.approx(0.010 * ACRYLIC / CS)
+    if edges == "field":
+        assert data["field"]["mode"] == mode and data["field"]["bandwidth"] == 0.5
+        assert "across the beam" in data["convention"]["level_reference"]
+    else:
+        assert data["field"] is None
+        assert "on-axis" in data["convention"]["level_reference"]
+    text = run(*args).stdout
+    assert "disc element, diameter 10.00 mm, 4 MHz" in text
+    assert "Medium: reference-steel: shear wave, 3255.0 m/s" in text
+    assert "Setup: wedge acrylic-pmma (2730.0 m/s), wedge path 10.00 mm" in text
+    assert mode in text
+    assert ("computed field" if edges == "field" else "far-field cone") in text
+
+
+def test_section_csv_is_one_row_per_leg_and_level_in_si(run):
+    args = ("section", *PROBE, *STEEL, *_wedge(60), *PLATE, "--depth", "10mm")
+    data = run(*args, "--far-field-only", "--json").json()
+    r = run(*args, "--far-field-only", "--format", "csv")
+    assert r.code == 0
+    rows = list(csv.DictReader(io.StringIO(r.stdout)))
+    assert len(rows) == 4 == len(data["footprints"])
+    for row, ref in zip(rows, data["footprints"], strict=True):
+        assert row["mode"] == "pulse-echo" and row["method"] == "far-field"
+        assert int(row["leg"]) == ref["leg"] and float(row["level_db"]) == ref["level_db"]
+        assert float(row["depth_m"]) == 0.010
+        for key in ("sound_path_m", "surface_distance_m", "near_m", "far_m", "footprint_m"):
+            assert float(row[key]) == ref[key]
+        # geometry: the axis to the flaw depth on each leg (unfolded through the back wall)
+        unfolded = 0.010 if ref["leg"] == 1 else 0.030
+        assert float(row["sound_path_m"]) == pytest.approx(unfolded / math.cos(math.radians(60)))
+        assert float(row["footprint_m"]) == pytest.approx(
+            float(row["far_m"]) - float(row["near_m"])
+        )
+
+
+def test_section_without_a_depth_says_what_it_did(run):
+    args = ("section", *PROBE, *STEEL, *_wedge(60), *PLATE, "--far-field-only")
+    r = run(*args)
+    assert r.code == 0
+    assert "No flaw depth (--depth), so no footprint" in r.stdout
+    # the plate's geometry: half skip t tan(beta), full skip 2 t tan(beta) (geometry)
+    assert f"{0.020 * math.tan(math.radians(60)) * 1e3:.2f} mm" in r.stdout
+    data = run(*args, "--json").json()
+    assert data["footprints"] == [] and data["flaw_depth_m"] is None
+    assert data["skip_m"] == pytest.approx(2 * 0.020 * math.tan(math.radians(60)))
+    assert any("no --depth" in w for w in data["warnings"])
+    csv_out = run(*args, "--format", "csv")
+    assert csv_out.code == 0 and len(csv_out.stdout.strip().splitlines()) == 1  # the header
+
+
+def test_section_refuses_two_wedges(run):
+    r = run("section", *PROBE, *STEEL, *_wedge(60), "--wedge-speed", "2700", *PLATE)
+    assert r.code == 2
+    lines = r.stderr.strip().splitlines()
+    assert len(lines) == 1 and "not both" in lines[0]
+
+
+def _pulse_echo_half_angle(level_db: float, diameter: float, wavelength: float) -> float:
+    # A disc's far-field pattern 2 J1(x)/x (Kinsler & Frey), squared for pulse-echo, solved
+    # with scipy; x = pi D sin(theta) / lambda.
+    x = scipy.optimize.brentq(
+        lambda u: (2 * scipy.special.j1(u) / u) ** 2 - 10 ** (-level_db / 20), 1e-6, 3.8
+    )
+    return math.asin(x * wavelength / (math.pi * diameter))
+
+
+def test_grazing_beam_warns_of_the_second_critical_angle_and_missing_footprints(run):
+    # At 80 deg shear in steel from acrylic, Snell's law puts the incident angle 1.3 deg
+    # short of the second critical angle asin(c_wedge / c_S); the real element's -6 dB
+    # pulse-echo half-angle in the wedge (scipy, above) is wider than that.
+    args = ("beam", *PROBE, *STEEL, *_wedge(80), *PLATE, "--depth", "10mm", "--far-field-only")
+    r = run(*args, "--json")
+    data = r.json()
+    alpha = math.asin(ACRYLIC * math.sin(math.radians(80)) / CS)
+    second = math.asin(ACRYLIC / CS)
+    theta_wedge = _pulse_echo_half_angle(6.0, 0.010, ACRYLIC / 4e6)
+    assert alpha + theta_wedge > second
+    straddle = [w for w in data["warnings"] if "second critical angle" in w]
+    assert len(straddle) == 1 and "-6 dB" in straddle[0]
+    assert f"± {math.degrees(theta_wedge):.2f} deg" in straddle[0]
+    # geometry: the -20 dB edge ahead of the axis leaves at beta + theta >= 90 deg
+    theta20 = data["planes"][0]["half_angle_deg"]["-20"]
+    assert 80 + theta20 >= 90
+    for spot in data["planes"][0]["spots"]:
+        if spot["level_db"] == -20:
+            assert spot["footprint_m"] is None
+        else:
+            assert spot["footprint_m"] > 0
+    edge = [w for w in data["warnings"] if "far-field -20 dB edge" in w]
+    assert len(edge) == 1 and "never comes down" in edge[0]
+    # one line each, on stderr as in JSON
+    table = run(*args)
+    lines = _warnings(table.stderr)
+    assert any("second critical angle" in line for line in lines)
+    assert any("far-field -20 dB edge" in line for line in lines)
+    assert len(table.stderr.strip().splitlines()) == len(lines)
+    # the section shows the row, with none, rather than dropping it
+    section = run("section", *args[1:], "--json").json()
+    rows = {(f["leg"], f["level_db"]): f for f in section["footprints"]}
+    assert rows[(1, -20.0)]["footprint_m"] is None and rows[(1, -20.0)]["far_m"] is None
+    assert rows[(1, -20.0)]["near_m"] is not None
+    assert any("far-field -20 dB edge" in w for w in section["warnings"])
+    text = run("section", *args[1:]).stdout
+    (row,) = [line for line in text.splitlines() if line.strip().startswith("1     -20 dB")]
+    assert row.split()[-1] == "none"
+
+
+def test_no_critical_angle_warning_well_inside_the_window(run):
+    # 45 deg shear: the incident angle (Snell) and the -20 dB spread stay short of 57 deg.
+    data = run("beam", *PROBE, *STEEL, *_wedge(45), "--far-field-only", "--json").json()
+    alpha = math.asin(ACRYLIC * math.sin(math.radians(45)) / CS)
+    assert alpha + _pulse_echo_half_angle(20.0, 0.010, ACRYLIC / 4e6) < math.asin(ACRYLIC / CS)
+    assert not any("critical angle" in w for w in data["warnings"])
+
+
+def test_wedge_simple_near_field_is_the_disc_of_the_virtual_element_area(run):
+    # Common practice: N = D² cos(beta) / (4 lambda cos(alpha)) - L c_wedge / c_part, the
+    # near field of a disc with the virtual ellipse's area (D x D cos(beta)/cos(alpha)).
+    data = run("beam", *PROBE, *STEEL, *_wedge(70), "--far-field-only", "--json").json()
+    alpha = math.radians(data["refraction"]["incident_deg"])
+    lam = CS / 4e6
+    expected = 0.010**2 * math.cos(math.radians(70)) / (4 * lam * math.cos(alpha))
+    expected -= 0.010 * ACRYLIC / CS
+    assert data["near_field_simple_m"] == pytest.approx(expected, rel=1e-12)
+    assert "a disc of the virtual ellipse's area" in data["near_field_method"]
+    # a wedge path longer than that near field leaves none (not a negative length)
+    long = run("beam", *PROBE, *STEEL, *_wedge(70, "40mm"), "--far-field-only", "--json").json()
+    assert long["near_field_simple_m"] is None
+
+
+def test_wedge_simple_near_field_of_a_rectangle(run):
+    # Common practice: L²/4λ with L the longer side of the virtual rectangle (the length
+    # projected by cos(beta)/cos(alpha), or the width), less the wedge path's equivalent.
+    args = ("--length", "12mm", "--width", "8mm", "--frequency", "4MHz", *STEEL)
+    data = run("beam", *args, *_wedge(45, "5mm"), "--far-field-only", "--json").json()
+    alpha = math.radians(data["refraction"]["incident_deg"])
+    side = max(0.012 * math.cos(math.radians(45)) / math.cos(alpha), 0.008)
+    expected = side**2 / (4 * CS / 4e6) - 0.005 * ACRYLIC / CS
+    assert data["near_field_simple_m"] == pytest.approx(expected, rel=1e-12)
+    assert "longer side" in data["near_field_method"]
+
+
+def test_scan_plan_csv_is_one_row_per_depth_with_the_step(run):
+    args = (
+        "scan-plan",
+        *PROBE,
+        "--material",
+        "water",
+        "--from",
+        "20mm",
+        "--to",
+        "120mm",
+        "--overlap",
+        "25%",
+        "--count",
+        "5",
+        "--method",
+        "far-field",
+    )
+    data = run(*args, "--json").json()
+    r = run(*args, "--format", "csv")
+    assert r.code == 0
+    rows = list(csv.DictReader(io.StringIO(r.stdout)))
+    assert [float(row["depth_m"]) for row in rows] == data["depths_m"]
+    assert [float(row["width_m"]) for row in rows] == data["widths_m"]
+    (governing,) = [row for row in rows if row["governing"] == "true"]
+    assert float(governing["depth_m"]) == data["governing_depth_m"]
+    for row in rows:
+        assert float(row["index_step_m"]) == data["index_step_m"]
+        assert row["mode"] == "pulse-echo" and row["method"] == "far-field"
+        assert float(row["level_db"]) == -6.0 and float(row["overlap"]) == 0.25
+    # common practice: the step is the narrowest width times (1 - overlap)
+    assert float(governing["index_step_m"]) == pytest.approx(
+        min(float(row["width_m"]) for row in rows) * 0.75
+    )
+
+
+def test_grazing_beam_computed_edge_that_never_comes_down(run):
+    # At 80 deg the computed -20 dB edge ahead of the axis climbs: far out, the width grows
+    # faster than 2 cot(beta), so the edge's depth s cos b - (w/2) sin b falls with the sound
+    # path (geometry; widths from the field engine at two far paths).
+    from beamspread.field import beam_widths
+    from beamspread.probes import Ellipse
+
+    data = run("beam", *PROBE, *STEEL, *_wedge(80), *PLATE, "--depth", "10mm", "--json").json()
+    beta = math.radians(80)
+    aperture = data["effective_aperture_m"]
+    offset = 0.010 * ACRYLIC / CS
+    far = [
+        beam_widths(
+            Ellipse(aperture, 0.010, 4e6), CS, s + offset, [20.0], plane="length", bandwidth=0.5
+        )[0]
+        for s in (0.5, 1.0)
+    ]
+    growth = (far[1].width - far[0].width) / 0.5
+    assert math.cos(beta) - 0.5 * growth * math.sin(beta) < 0
+    computed = [s for s in data["planes"][0]["spots"] if s["method"] == "field"]
+    assert all(s["footprint_m"] is None for s in computed if s["level_db"] == -20)
+    assert all(s["footprint_m"] > 0 for s in computed if s["level_db"] == -6)
+    (line,) = [w for w in data["warnings"] if "computed -20 dB edge" in w]
+    assert "on leg 1" in line and "on leg 2" in line
