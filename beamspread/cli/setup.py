@@ -87,7 +87,8 @@ def run_setup(
             speed, name = wedge_speed, "given"
         if wedge_path is None:
             warnings.append(
-                "no --wedge-path: the near field in the part is not shortened by the wedge"
+                "no --wedge-path: the near field in the part is not shortened by the wedge, "
+                "and the far-field cone starts at the exit point"
             )
         result = analyse_wedge(
             probe,

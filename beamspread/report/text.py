@@ -383,13 +383,14 @@ def beam_table(
             )
         if angled:
             out.append(
-                "  far field: across the axis 2·(sound path)·tan(half-angle); footprint in the "
-                "incidence plane\n  where the cone's edges from the exit point cross the depth."
+                "  far field: across the axis 2·(sound path + wedge path·c_wedge/c_part)·"
+                "tan(half-angle), the\n  cone's apex at the virtual element; footprint in the "
+                "incidence plane where its edges cross the depth."
             )
             if result.field is not None:
                 out.append(
-                    "  footprint from the computed field, incidence plane: width across the axis "
-                    "/ cos(refracted angle)."
+                    "  footprint from the computed field, incidence plane: where the edges at half "
+                    "the width either\n  side of the axis, across it, cross the depth."
                 )
         elif focused:
             out.extend(_focused_notes(result))
