@@ -280,3 +280,142 @@ def test_the_readme_shows_the_file_its_sonar_command_saves(run, tmp_path):
     (block,) = [b for b in blocks if "[bottom]" in b]
     path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
     assert path.read_text(encoding="utf-8") == textwrap.dedent(block)
+
+
+# ------------------------------------------------- typed options replace the setup's
+#
+# Reference for each: the same command typed in full, with the typed value in place
+# of the setup's (what the README promises: options typed on the command line win).
+
+
+def _same_as_typed(run, path, typed, explicit, command="beam", extra=("--far-field-only",)):
+    replay = run(command, "--setup", str(path), *typed, *extra, "--json")
+    assert replay.code == 0, replay.stderr
+    alone = run(command, *explicit, *extra, "--json")
+    assert alone.code == 0, alone.stderr
+    assert replay.json() == alone.json()
+    return replay.json()
+
+
+@pytest.mark.parametrize("form", ["separate", "inline"])
+def test_typed_depths_replace_the_setups_depths(run, tmp_path, form):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--depth", "20mm", "--depth", "40mm")
+    typed = ("--depth", "12mm") if form == "separate" else ("--depth=12mm",)
+    data = _same_as_typed(run, path, typed, (*DISC, "--depth", "12mm"))
+    assert {s["depth_m"] for p in data["planes"] for s in p["spots"]} == {0.012}
+
+
+def test_typed_levels_replace_the_setups_levels(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--level", "6", "--level", "20")
+    data = _same_as_typed(run, path, ("--level", "3"), (*DISC, "--level", "3"))
+    assert set(data["planes"][0]["half_angle_deg"]) == {"-3", "null"}
+
+
+def test_typed_bottom_depths_replace_the_setups(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    data = _same_as_typed(
+        run, path, ("--bottom-depth", "50m"), (*SOUNDER[:-2], "--bottom-depth", "50m")
+    )
+    assert {f["depth_m"] for f in data["footprints"]} == {50.0}
+
+
+def test_a_typed_condition_replaces_the_setups_condition_of_that_name(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--condition", "depth=10m")
+    data = _same_as_typed(
+        run,
+        path,
+        ("--condition", "depth=50m"),
+        (*SOUNDER, "--condition", "depth=50m"),  # salinity=34 kept, the depth replaced
+    )
+    assert data["medium"]["conditions"]["salinity_g_kg"] == 34.0
+    assert data["medium"]["conditions"]["depth_m"] == 50.0
+
+
+@pytest.mark.parametrize(
+    "typed, explicit",
+    [
+        # a speed in place of the material, its temperature and conditions
+        (("--speed", "1500"), ("--speed", "1500")),
+        # another material: the setup's conditions were seawater's; the temperature stays
+        (("--material", "water"), ("--material", "water", "--temperature", "12")),
+    ],
+    ids=["speed", "material"],
+)
+def test_a_typed_medium_replaces_the_setups(run, tmp_path, typed, explicit):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    probe = SOUNDER[:4]  # diameter and frequency
+    rest = SOUNDER[10:]  # --sonar and the bottom
+    _same_as_typed(run, path, typed, (*probe, *explicit, *rest))
+
+
+def test_a_typed_mode_replaces_the_setups(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")  # one-way
+    data = _same_as_typed(
+        run, path, ("--pulse-echo",), (*SOUNDER, "--pulse-echo", "--bandwidth", "0.1")
+    )
+    assert data["convention"]["mode"] == "pulse-echo"
+
+
+def test_a_typed_disc_replaces_the_setups_rectangle(run, tmp_path):
+    rectangle = ("--length", "20mm", "--width", "10mm", *DISC[2:])
+    path, _ = _saved(run, tmp_path, "beam", *rectangle)
+    _same_as_typed(run, path, ("--diameter", "12mm"), ("--diameter", "12mm", *DISC[2:]))
+
+
+def test_section_takes_the_typed_flaw_depth_without_a_warning(run, tmp_path):
+    path, _ = _saved(
+        run, tmp_path, "beam", *ANGLE, "--thickness", "25mm", "--depth", "10mm", "--depth", "20mm"
+    )
+    typed = run("section", "--setup", str(path), "--depth", "18mm", "--far-field-only", "--json")
+    assert typed.code == 0, typed.stderr
+    assert typed.json()["flaw_depth_m"] == pytest.approx(0.018)
+    assert "section takes one --depth" not in typed.stderr
+    # Without a typed depth the setup's first is used, and the warning says so.
+    first = run("section", "--setup", str(path), "--far-field-only", "--json")
+    assert first.json()["flaw_depth_m"] == pytest.approx(0.010)
+    assert "section takes one --depth; the setup's first (10mm) is used" in first.stderr
+
+
+def test_save_records_the_typed_options_in_place_of_the_setups(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--depth", "20mm", "--level", "6")
+    again, _ = _saved(
+        run, tmp_path, "beam", "--setup", str(path), "--depth", "12mm", name="again.toml"
+    )
+    data = tomllib.loads(again.read_text(encoding="utf-8"))
+    assert data["inspection"] == {"depths": ["12mm"], "levels": ["6"]}
+
+
+# ------------------------------------------------- --save writes .toml files only
+
+
+@pytest.mark.parametrize("name", ["x.json", "x", "x.toml.bak"])
+def test_save_refuses_a_name_that_is_not_toml(run, tmp_path, name):
+    target = tmp_path / name
+    line = _one_line_refusal(run("beam", *DISC, "--save", str(target)))
+    assert f"--save: {str(target)!r} must end in .toml" in line
+    assert not target.exists() and list(tmp_path.iterdir()) == []
+
+
+def test_save_takes_toml_in_any_case(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, name="Setup.TOML")
+    assert tomllib.loads(path.read_text(encoding="utf-8"))["probe"]["diameter"] == "10mm"
+
+
+# ------------------------------------------------- the warning names only what is unused
+
+
+def test_map_names_only_what_it_leaves_out_of_a_sonar_setup(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    size = ("--depth-points", "6", "--lateral-points", "6", "--json")
+    r = run("map", "--setup", str(path), *size)
+    assert r.code == 0, r.stderr
+    (line,) = [w for w in r.stderr.splitlines() if w.startswith("beamspread: warning: map")]
+    assert "--bottom-depth" in line
+    assert "--sonar figures (full angles, directivity index, side lobes, absorption)" in line
+    assert "levels (-3 and -10 dB)" in line
+    assert line.endswith("it does use the one-way mode and bandwidth 0.1, recorded with --sonar")
+    # ... and that is true: the map is the one-way, 0.1-bandwidth beam typed in full.
+    explicit = run("map", *SOUNDER[:10], "--one-way", "--bandwidth", "0.1", *size)
+    assert r.json()["field"] == explicit.json()["field"]
+    assert r.json()["field"]["mode"] == "one-way" and r.json()["field"]["bandwidth"] == 0.1
+    assert r.json()["amplitude"] == explicit.json()["amplitude"]

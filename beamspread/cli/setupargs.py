@@ -1,19 +1,32 @@
 """``--setup FILE`` and ``--save FILE``: a technique read from, or written to, a setup file.
 
 The group splices the file's options into the command line *before* the
-options typed, so a typed option wins (the last of a single-valued option
-counts) and repeatable ones (``--depth``, ``--level``, ``--condition``) add
-to the file's.
+options typed, leaving out every option the command line types itself, so a
+typed option replaces the setup's:
+
+- a single-valued option (``--frequency``, ``--one-way`` for the setup's
+  ``--pulse-echo``) replaces the setup's value;
+- a repeatable option replaces the setup's whole list: ``--depth``,
+  ``--bottom-depth`` and ``--level`` typed once give those depths or levels
+  alone; ``--condition`` replaces the setup's condition of the same name and
+  keeps the others;
+- an option typed in place of another replaces it: ``--speed`` the setup's
+  material (with its conditions, and its temperature unless a named wedge or
+  a water path needs it), ``--material`` the setup's speed (and, for another
+  material, its conditions), ``--wedge-speed`` and ``--wedge`` each other,
+  ``--incident`` and ``--refracted`` each other, ``--diameter`` a rectangle's
+  sides and ``--length``/``--width`` a disc's diameter.
 
 A command that cannot model the setup's wedge, water path or focus refuses
 the file (it would compute another technique and present it as this one);
-other options it does not take (depths, levels, the bottom) are left out
-with a warning. A command without ``--setup`` (``size``, ``report``, ...)
-refuses ``--setup`` and ``--save`` with one line.
+other options it does not take (depths, levels, the bottom, the sonar
+figures) are named in a warning. A command without ``--setup`` (``size``,
+``report``, ...) refuses ``--setup`` and ``--save`` with one line.
 
 ``--save`` records the options of the command line as typed, with their
 units, and the mode every command defaults to (pulse-echo; with ``--sonar``,
 one-way and its narrow-band pulse), so another command computes the same beam.
+It writes a ``.toml`` file only, and never overwrites one.
 """
 
 from __future__ import annotations
@@ -201,6 +214,125 @@ def _refuse_techniques(name: str, path: str, options: dict, accepted) -> None:
     )
 
 
+# Options that stand in for others: typing the key replaces the setup's options listed.
+_INSTEAD = {
+    "--speed": ("--material", "--condition"),
+    "--material": ("--speed",),
+    "--wedge": ("--wedge-speed",),
+    "--wedge-speed": ("--wedge",),
+    "--incident": ("--refracted",),
+    "--refracted": ("--incident",),
+    "--diameter": ("--length", "--width"),
+    "--length": ("--diameter",),
+    "--width": ("--diameter",),
+}
+# What a setup's temperature also sets besides the part's medium (a wedge's or a couplant's
+# speed by name): with these, a typed --speed leaves the setup's --temperature in place.
+_TEMPERATURE_ELSEWHERE = ("--wedge", "--water-path")
+
+
+def _typed_values(args: list[str], accepted) -> dict[str, list]:
+    """Each parameter typed in ``args`` (by its name) -> the values typed (True for a flag)."""
+    typed: dict[str, list] = {}
+    i = 0
+    while i < len(args):
+        name, equals, inline = args[i].partition("=")
+        param = accepted.get(name) if name.startswith("--") else None
+        if param is None:
+            i += 1
+            continue
+        if getattr(param, "is_flag", False):
+            value, i = True, i + 1
+        elif equals:
+            value, i = inline, i + 1
+        else:
+            value, i = (args[i + 1] if i + 1 < len(args) else None), i + 2
+        typed.setdefault(param.name, []).append(value)
+    return typed
+
+
+def _condition_name(text) -> str:
+    return str(text).partition("=")[0].strip().lower()
+
+
+def _medium_key(name) -> str:
+    """A material's name as lookups compare it (case, spaces, '_' and '/' ignored)."""
+    import re
+
+    return re.sub(r"[\s_/]", "", str(name).lower())
+
+
+def _not_typed(options: dict, typed: dict, accepted) -> dict:
+    """The setup's options less those the command line replaces (see the module's notes)."""
+
+    def was_typed(option: str) -> bool:
+        param = accepted.get(option)
+        return param is not None and param.name in typed
+
+    out = {o: v for o, v in options.items() if o == "--condition" or not was_typed(o)}
+    for option, others in _INSTEAD.items():
+        if was_typed(option):
+            for other in others:
+                out.pop(other, None)
+    if was_typed("--speed") and not any(o in out or was_typed(o) for o in _TEMPERATURE_ELSEWHERE):
+        out.pop("--temperature", None)  # it described the setup's material, now replaced
+    if was_typed("--material") and "--material" in options:
+        material = typed[accepted["--material"].name][-1]
+        if _medium_key(material) != _medium_key(options["--material"]):
+            out.pop("--condition", None)  # the setup's conditions were its own material's
+    if "--condition" in out and was_typed("--condition"):
+        names = {_condition_name(v) for v in typed[accepted["--condition"].name]}
+        kept = [c for c in out["--condition"] if _condition_name(c) not in names]
+        if kept:
+            out["--condition"] = kept
+        else:
+            del out["--condition"]
+    return out
+
+
+def _unused_warning(name: str, unused: list[str], options: dict, accepted) -> str:
+    """The warning naming the setup's options the command leaves out, and only those.
+
+    ``--sonar`` is named for what it adds that the command does not compute (the
+    sonar figures, and its levels where the setup records none); the one-way mode
+    and the narrow-band pulse recorded with it are options of their own, which the
+    command does use: the warning says so.
+    """
+    from ..sonar import SONAR_LEVELS_SHOWN
+
+    named = [o for o in unused if o != "--sonar"]
+    parts = [f"the setup's {_listed(named, 'or')}"] if named else []
+    if "--sonar" in unused:
+        sonar = "--sonar figures (full angles, directivity index, side lobes, absorption)"
+        if "--level" not in options:  # the setup records no levels: --sonar's would apply
+            levels = " and ".join(f"-{level:g}" for level in SONAR_LEVELS_SHOWN)
+            sonar += f" and levels ({levels} dB)"
+        parts.append(f"nor its {sonar}" if named else f"the setup's {sonar}")
+    them = "it" if unused == named and len(named) == 1 else "them"
+    message = f"{name} does not use {', '.join(parts)}: its result leaves {them} out"
+    if "--sonar" in unused:
+        kept = [
+            f"the {o.removeprefix('--')} mode" if options[o] is True else f"bandwidth {options[o]}"
+            for o in ("--one-way", "--pulse-echo", "--bandwidth")
+            if o in options and o in accepted
+        ]
+        if kept:
+            message += f"; it does use {_listed(kept, 'and')}, recorded with --sonar"
+    return message
+
+
+def _check_save_suffix(save_path: str) -> None:
+    """A setup is written to a ``.toml`` file only (the name says what the file holds)."""
+    from pathlib import Path
+
+    target = Path(save_path)
+    if target.suffix.lower() != ".toml":
+        raise click.UsageError(
+            f"--save: {save_path!r} must end in .toml, as a setup file is TOML "
+            f"(e.g. {str(target.with_suffix('.toml'))!r})"
+        )
+
+
 def expand(command: click.Command, name: str, args: list[str]):
     """The command's arguments with ``--setup`` spliced in, and what ``--save`` must do.
 
@@ -221,13 +353,16 @@ def expand(command: click.Command, name: str, args: list[str]):
     from ..setupfile import Setup, load_setup, save_setup
 
     spliced: list[str] = []
+    if save_path is not None:
+        _check_save_suffix(save_path)
     if setup_path is not None:
         setup = load_setup(setup_path)
         accepted = _accepted(command)
         options = setup.to_options()
         _refuse_techniques(name, setup_path, options, accepted)
         unused = []
-        for option, value in options.items():
+        kept = _not_typed(options, _typed_values(args, accepted), accepted)
+        for option, value in kept.items():
             param = accepted.get(option)
             if param is None:
                 unused.append(option)
@@ -247,9 +382,7 @@ def expand(command: click.Command, name: str, args: list[str]):
                 )
         if unused:
             click.echo(
-                f"beamspread: warning: {name} does not use the setup's "
-                f"{', '.join(unused)}; its result leaves them out",
-                err=True,
+                f"beamspread: warning: {_unused_warning(name, unused, kept, accepted)}", err=True
             )
     full = spliced + args
     if save_path is None:
