@@ -310,3 +310,120 @@ def test_report_page_is_consistent_with_its_table_and_laid_out(run, tmp_path, mo
     for upper, lower in itertools.pairwise(boxes):
         gap = (upper.y0 - lower.y1) / fig.dpi  # inches; the page is laid out top to bottom
         assert 0 <= gap < 0.5, gap
+
+
+# An invented lake sounder: a 25 mm, 200 kHz disc in fresh water at 8 degC over 5-30 m.
+LAKE = (
+    "--diameter",
+    "25mm",
+    "--frequency",
+    "200kHz",
+    "--material",
+    "water",
+    "--temperature",
+    "8",
+    "--sonar",
+    "--bottom-depth",
+    "5m:30m:5m",
+    "--power",
+    "100",
+)
+
+
+def _page_text(fig):
+    (block,) = [t for t in fig.texts if t.get_text().startswith("Beam of")]
+    return block
+
+
+def test_report_of_a_sonar_setup_carries_beams_sonar_results_and_its_footprint(
+    run, tmp_path, monkeypatch
+):
+    import math
+
+    from scipy.optimize import brentq
+    from scipy.special import j1
+
+    from beamspread.report import plots
+
+    drawn = {}
+    make = plots.footprint_figure
+
+    def spy(depths, widths, **kw):
+        drawn.update(depths=list(depths), widths=dict(widths), **kw)
+        return make(depths, widths, **kw)
+
+    monkeypatch.setattr(plots, "footprint_figure", spy)
+    fig = _report_figure(run, tmp_path, monkeypatch, *LAKE)
+    setup = tmp_path / "setup.toml"
+    # The page carries what beam prints for the same setup (its closing caution goes
+    # to the foot of the page).
+    table = run("beam", "--setup", str(setup))
+    assert table.code == 0, table.stderr
+    block = _page_text(fig)
+    text = block.get_text()
+    assert text.rstrip("\n") == table.stdout.split("\nEstimates from")[0].rstrip("\n")
+    for needle in (
+        "Full angles of the cone",
+        "directivity index",
+        "absorption",
+        "Footprint on a flat bottom",
+        "Echo budget of a flat, smooth bottom",
+        "P = 100 W, eta = 0.5",
+        "bottom reflection loss    10.0 dB",
+    ):
+        assert needle in text, needle
+    # The picture answers the question (the bottom at 5-30 m): the footprint, no map.
+    assert drawn["depths"] == pytest.approx([5.0, 10.0, 15.0, 20.0, 25.0, 30.0])
+    assert drawn["mode"] == "one-way" and drawn["units"] == "m"
+    assert not [a for a in fig.axes if a.images and a.get_xlabel()]  # the map's axes
+    # Reference: a disc's one-way far-field directivity 2 J1(x)/x, x = k a sin(theta)
+    # (Kinsler & Frey, the baffled piston), its level points found with scipy.special.j1;
+    # the footprint is 2 z tan(theta) (common practice).
+    speed = run("beam", "--setup", str(setup), "--far-field-only", "--json").json()["medium"]
+    wavelength = speed["speed_m_s"] / 200e3
+    assert set(drawn["widths"]) == {3.0, 10.0}
+    for level, widths in drawn["widths"].items():
+        x = brentq(lambda x, lv=level: 2 * j1(x) / x - 10 ** (-lv / 20), 0.1, 3.8317)
+        theta = math.asin(x * wavelength / (math.pi * 0.025))
+        expected = [2 * z * math.tan(theta) for z in drawn["depths"]]
+        assert widths == pytest.approx(expected, rel=1e-6)
+    # Laid out: the picture below the text, above the cautions, on the page.
+    renderer = fig.canvas.get_renderer()
+    (picture,) = [a for a in fig.axes if a.images]
+    text_box = block.get_window_extent(renderer)
+    box = picture.get_window_extent(renderer)
+    (foot,) = [t for a in fig.axes for t in a.texts if t.get_text().startswith("Estimates")]
+    assert box.y1 <= text_box.y0 and foot.get_window_extent(renderer).y1 <= box.y0
+    assert fig.bbox.x0 <= box.x0 and box.x1 <= fig.bbox.x1
+
+
+def test_report_sets_a_long_echo_budget_one_row_per_range(run, tmp_path, monkeypatch):
+    import math
+
+    many = (*LAKE[:-4], "--bottom-depth", "2m:40m:2m", "--power", "1kW")
+    fig = _report_figure(run, tmp_path, monkeypatch, *many)
+    lines = _page_text(fig).get_text().splitlines()
+    start = lines.index(next(line for line in lines if line.startswith("Echo budget of")))
+    assert "P = 1000 W" in lines[start]
+    assert lines[start + 1].split()[:3] == ["range", "source", "level"]
+    rows = [line.split() for line in lines[start + 2 : start + 22]]
+    assert [float(r[0]) for r in rows] == pytest.approx([2.0 * i for i in range(1, 21)])
+    for r in rows:
+        source, spreading, absorption, loss, received = (float(v) for v in r[2::2])
+        # Reference: the sonar equation's two-way spherical spreading 20 log10(2R / 1 m)
+        # and EL = SL - TL - BL (Urick, Principles of Underwater Sound; from memory).
+        assert spreading == pytest.approx(20 * math.log10(2 * float(r[0])), abs=0.05)
+        assert received == pytest.approx(source - spreading - absorption - loss, abs=0.2)
+    assert lines[start + 22].startswith("  source level: ")  # each formula once
+
+
+def test_report_refuses_results_longer_than_a_page(run, tmp_path):
+    setup = tmp_path / "long.toml"
+    many = ("--length", "40mm", "--width", "20mm", *LAKE[2:-4], "--bottom-depth", "2m:60m:2m")
+    assert run("beam", *many, "--power", "1kW", "--far-field-only", "--save", str(setup)).code == 0
+    out = tmp_path / "long.png"
+    r = run("report", str(setup), "--output", str(out))
+    assert r.code == 2 and r.stdout == ""
+    (line,) = r.stderr.strip().splitlines()
+    assert "leave no room on one page" in line and "give fewer depths or bottom depths" in line
+    assert not out.exists()
