@@ -129,6 +129,7 @@ class BeamResult:
     planes: tuple[PlaneResult, ...]
     depths: tuple[float, ...] = ()
     warnings: tuple[str, ...] = field(default_factory=tuple)
+    near_field_simple_method: str | None = None  # where not the plain D²/4λ or L²/4λ
     field: FieldSummary | None = None
 
 

@@ -170,7 +170,6 @@ class SetupResult:
     virtual: Disc | Rectangle | Ellipse | None = None  # the element as the part sees it
     offset: float = 0.0  # m: how far the virtual element sits behind the exit point
     footprints: tuple[WedgeFootprint, ...] = ()  # incidence plane, per depth, leg, level, method
-    near_field_simple_method: str | None = None
     # (method, warning): the warnings (also in ``warnings``) that concern only the
     # far-field ("far-field") or the computed ("field") widths and footprints
     method_warnings: tuple[tuple[str, str], ...] = ()
@@ -548,7 +547,8 @@ def analyse_wedge(
         near_field=near,
         near_field_simple=simple if simple > 0 else None,
         near_field_method="last on-axis maximum of the virtual element in the part, less "
-        f"the wedge path's equivalent (common practice); simple: {simple_formula}",
+        "the wedge path's equivalent (common practice)",
+        near_field_simple_method=f"{simple_formula}, less the wedge path's equivalent",
         near_field_factor=None,
         planes=tuple(planes),
         depths=depth_list,
@@ -569,8 +569,6 @@ def analyse_wedge(
         virtual=virtual,
         offset=offset,
         footprints=tuple(prints),
-        near_field_simple_method=f"{simple_formula}, less the wedge path's equivalent "
-        "(common practice)",
         method_warnings=tuple(by_method),
         _widths=cache,
     )

@@ -133,6 +133,7 @@ def beam_to_dict(result: BeamResult) -> dict[str, Any]:
             "near_field_m": result.near_field,
             "near_field_simple_m": result.near_field_simple,
             "near_field_method": result.near_field_method,
+            "near_field_simple_method": result.near_field_simple_method,
             "near_field_factor": result.near_field_factor,
             "planes": planes,
             "field": None

@@ -174,7 +174,7 @@ def beam_table(
         simple_label = "D²/4λ" if isinstance(result.probe, Disc) else "L²/4λ, L the longer side"
     else:  # an inspection setup states its own method
         method = result.near_field_method
-        simple_label = "the same from the simple formula"
+        simple_label = result.near_field_simple_method or "the same from the simple formula"
     rows = [
         ["wavelength", format_length(result.wavelength, units, 3), ""],
         ["near field", "none" if near is None else format_length(near, units), method],
