@@ -227,7 +227,7 @@ def beam(
           --temperature 12 --condition depth=30m --one-way --level 3
     """
     from ..beam import DEFAULT_LEVELS, analyse
-    from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE, directivity_index
+    from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
 
     probe = make_probe(diameter, length, width, frequency)
     depths = [d for group in depth_groups for d in group]
@@ -297,7 +297,9 @@ def beam(
         mode = SONAR_MODE if sonar else "pulse-echo"
     else:
         mode = "pulse-echo" if pulse_echo else "one-way"
-    bottoms = sorted({d for group in bottom_depths for d in group})
+    from .sonarargs import bottom_list, sonar_results
+
+    bottoms = bottom_list(bottom_depths)
     if power is not None and not bottoms:
         raise click.UsageError("--power gives an echo budget at each --bottom-depth; give one")
     result = analyse(
@@ -314,17 +316,19 @@ def beam(
             f"--sonar at {frequency_text(probe.frequency)}: sonar and rangefinder transducers work "
             "below a few MHz; a bare --frequency is in MHz (write 200kHz for 200 kHz)"
         )
-    absorption = resolved.absorption(probe.frequency)
-    if absorption is not None:
-        warnings.extend(absorption.warnings)
-    figures = budgets = None
-    if sonar or bottoms or power is not None:
-        figures, budgets = _sonar(
-            result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings
-        )
-    di = figures.directivity_index_db if figures else directivity_index(probe, result.wavelength)
+    sr = sonar_results(
+        result,
+        resolved,
+        bottoms,
+        sonar=sonar,
+        power=power,
+        efficiency=efficiency,
+        bottom_loss=bottom_loss,
+        warnings=warnings,
+    )
+    figures = sr.figures
     if plot_path is not None:
-        _plot(plot_path, result, figures, units)
+        _plot(plot_path, result, sr, units)
     emit_warnings(warnings)
     if fmt == "json":
         from ..report.serialize import beam_to_dict, dumps, sonar_to_dict
@@ -335,7 +339,8 @@ def beam(
         if resolved.medium is not None:
             data["medium"]["longitudinal_m_s"], data["medium"]["shear_m_s"] = _part_speeds(resolved)
         data["warnings"] = warnings
-        data.update(sonar_to_dict(result, di, absorption, figures, budgets, sonar))
+        di, absorption = sr.directivity_index_db, sr.absorption
+        data.update(sonar_to_dict(result, di, absorption, figures, sr.budgets, sonar))
         click.echo(dumps(data))
     elif fmt == "csv":
         from ..report.serialize import beam_to_csv
@@ -350,60 +355,7 @@ def beam(
     else:
         from ..report.text import beam_table
 
-        shown = figures is not None  # the sonar figures belong to sonar work
-        click.echo(
-            beam_table(
-                result,
-                units,
-                di=di if shown else None,
-                absorption=absorption if shown else None,
-                figures=figures,
-                budgets=budgets,
-                sonar=sonar,
-            )
-        )
-
-
-def _sonar(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
-    """The sonar figures and, with a power, an echo budget at each bottom depth."""
-    from ..sonar import echo_budget, sonar_figures, source_level_constant
-
-    alpha = None if absorption is None else absorption.db_per_km
-    figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)
-    if any(f.inside_near_field for f in figures.footprints):
-        warnings.append(
-            "a bottom depth lies inside the near field: the far-field cone does not hold there"
-        )
-    budgets = None
-    if power is not None:
-        wave = resolved.wave
-        if wave.state == "gas":
-            raise click.UsageError(
-                f"the echo budget (dB re 1 uPa) is for water; {wave.medium} is a gas"
-            )
-        if wave.density is None:
-            constant = 170.8
-            warnings.append(
-                "echo budget: no density for this medium; the seawater "
-                "source-level constant 170.8 dB is used"
-            )
-        else:
-            constant = source_level_constant(wave.density * wave.speed)
-        if alpha is None:
-            warnings.append("echo budget: this medium has no absorption; taken as 0")
-        budgets = [
-            echo_budget(
-                power=power,
-                efficiency=efficiency,
-                directivity_index_db=figures.directivity_index_db,
-                range_m=depth,
-                absorption_db_per_km=alpha or 0.0,
-                bottom_loss_db=bottom_loss,
-                constant=constant,
-            )
-            for depth in bottoms
-        ]
-    return figures, budgets
+        click.echo(beam_table(result, units, **sr.table_options(sonar)))
 
 
 def _given(name: str) -> bool:
@@ -433,16 +385,12 @@ def frequency_text(hertz: float) -> str:
     return f"{hertz / 1e6:g} MHz" if hertz >= 1e6 else f"{hertz / 1e3:g} kHz"
 
 
-def _plot(path, result, figures, units):
+def _plot(path, result, sr, units):
     from ..report import plots
 
+    figures = sr.figures
     if figures is not None and figures.footprints:
-        depths = sorted({f.depth for f in figures.footprints})
-        first = result.planes[0].name
-        by_level = {}
-        for f in figures.footprints:
-            if f.plane == first:
-                by_level.setdefault(-f.level_db, []).append(f.width)
+        depths, by_level = sr.footprint_widths(result)
         plots.plot_footprint(
             depths,
             by_level,
