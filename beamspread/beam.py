@@ -346,8 +346,13 @@ def field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSetting
         frequencies=settings.frequencies,
         spectrum=settings.spectrum,
     )
+    return straight_field_spots(found, depth)
+
+
+def straight_field_spots(widths, depth: float) -> list[Spot]:
+    """The computed-field Spots of a straight beam at ``depth`` from its BeamWidths."""
     spots = []
-    for w in found:
+    for w in widths:
         width = None if math.isnan(w.width) else w.width
         spots.append(
             Spot(

@@ -57,6 +57,7 @@ from .beam import (
     analyse,
     field_spots,
     level_key,
+    straight_field_spots,
 )
 from .errors import InputError
 from .media.model import Wave
@@ -839,22 +840,7 @@ def _focused_spots(probe, c_water, focus, depth, equivalent, levels, plane, mode
         frequencies=settings.frequencies,
         spectrum=settings.spectrum,
     )
-    spots = []
-    for w in found:
-        width = None if math.isnan(w.width) else w.width
-        spots.append(
-            Spot(
-                depth,
-                -w.level_db,
-                width,
-                None,
-                method="field",
-                sound_path=depth,
-                surface_distance=0.0,
-                footprint=width,
-            )
-        )
-    return spots
+    return straight_field_spots(found, depth)
 
 
 def _focused_field_warnings(probe, focus, wp, c_water, c_part, depths, field) -> list[str]:
