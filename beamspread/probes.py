@@ -12,7 +12,19 @@ from dataclasses import dataclass
 
 from .errors import InputError
 
-__all__ = ["Disc", "Ellipse", "Probe", "Rectangle", "check_positive"]
+__all__ = ["Disc", "Ellipse", "Probe", "Rectangle", "check_positive", "plane_name"]
+
+
+def plane_name(probe, plane: str | None) -> str:
+    """The probe's plane ``plane`` (its first plane when None), refused if it has no such plane."""
+    names = [name for name, _ in probe.planes]
+    if plane is None:
+        return names[0]
+    if plane not in names:
+        raise InputError(
+            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(names)}"
+        )
+    return plane
 
 
 def check_positive(value: float, name: str, unit: str = "") -> float:

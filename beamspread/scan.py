@@ -33,7 +33,7 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from .errors import InputError
-from .probes import check_positive
+from .probes import check_positive, plane_name
 from .units import length_text as _mm
 
 __all__ = [
@@ -205,17 +205,6 @@ def scan_depths(start: float, stop: float, count: int) -> np.ndarray:
     return np.linspace(start, stop, int(count))
 
 
-def _plane(probe, plane):
-    names = [name for name, _ in probe.planes]
-    if plane is None:
-        return names[0]
-    if plane not in names:
-        raise InputError(
-            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(names)}"
-        )
-    return plane
-
-
 def field_widths(
     probe,
     speed: float,
@@ -242,7 +231,7 @@ def field_widths(
     from ._search import golden_max
     from .field import beam_widths
 
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     kwargs = {
         "plane": plane,
         "bandwidth": bandwidth,
@@ -288,7 +277,7 @@ def far_field_widths(
     """
     from .pattern import half_angle
 
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     aperture = dict(probe.planes)[plane]
     shape = "disc" if probe.shape == "disc" else "side"
     speed = check_positive(speed, "speed", "m/s")
@@ -331,7 +320,7 @@ def plan_scan_for(
     'depths 10 mm to 20.67 mm lie inside the near field (20.82 mm)'
     """
     check_overlap(overlap)
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     speed = check_positive(speed, "speed", "m/s")
     if method == "field":
         widths = field_widths(

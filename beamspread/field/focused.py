@@ -63,7 +63,7 @@ import numpy as np
 
 from .._bessel import j0
 from ..errors import InputError
-from ..probes import Disc, Rectangle, check_positive
+from ..probes import Disc, Rectangle, check_positive, plane_name
 from ..units import parse_level
 from ._boundary import gauss_legendre, node_ladder
 from .engine import check_mode
@@ -136,17 +136,6 @@ def _check_probe(probe):
         )
 
 
-def _check_plane(probe, plane):
-    names = [name for name, _ in probe.planes]
-    if plane is None:
-        return names[0]
-    if plane not in names:
-        raise InputError(
-            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(names)}"
-        )
-    return plane
-
-
 def _pressures(probe, focal_length, offsets, depths, wavenumbers, plane):
     """|p| / (rho c U0) on offsets in ``plane`` x depths, per wavenumber: shape (D, F, R)."""
     z = depths[:, None]  # (D, 1)
@@ -215,7 +204,7 @@ def focused_pressure(
     _check_probe(probe)
     speed = check_positive(speed, "speed", "m/s")
     big_f = _check_focus(probe, focal_length)
-    plane = _check_plane(probe, plane)
+    plane = plane_name(probe, plane)
     f = probe.frequency if frequency is None else check_positive(frequency, "frequency", "Hz")
     offsets, depths = _points(offset, depth)
     k = np.array([2.0 * math.pi * f / speed])
@@ -267,7 +256,7 @@ def focused_amplitude(
     _check_probe(probe)
     speed = check_positive(speed, "speed", "m/s")
     big_f = _check_focus(probe, focal_length)
-    plane = _check_plane(probe, plane)
+    plane = plane_name(probe, plane)
     bandwidth = check_bandwidth(bandwidth)
     mode = check_mode(mode)
     offsets, depths = _points(offset, depth)
@@ -327,7 +316,7 @@ def focused_beam_widths(
     _check_probe(probe)
     speed = check_positive(speed, "speed", "m/s")
     big_f = _check_focus(probe, focal_length)
-    plane = _check_plane(probe, plane)
+    plane = plane_name(probe, plane)
     bandwidth = check_bandwidth(bandwidth)
     mode = check_mode(mode)
     depth = check_positive(depth, "depth", "m")

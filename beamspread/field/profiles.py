@@ -23,7 +23,7 @@ import numpy as np
 from .._search import golden_max
 from ..axis import simple_near_field
 from ..errors import InputError
-from ..probes import check_positive
+from ..probes import check_positive, plane_name
 from ..units import parse_level
 from .engine import _grid_amplitude, check_mode
 from .spectrum import check_bandwidth
@@ -95,17 +95,6 @@ class FieldMap:
     amplitude: np.ndarray
     mode: str
     bandwidth: float
-
-
-def _plane(probe, plane: str | None) -> str:
-    names = [name for name, _ in probe.planes]
-    if plane is None:
-        return names[0]
-    if plane not in names:
-        raise InputError(
-            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(names)}"
-        )
-    return plane
 
 
 def _along(plane: str, offset: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -259,7 +248,7 @@ def transverse_profile(
     True
     """
     speed, bandwidth, mode = _options(speed, bandwidth, mode)
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     depth = check_positive(depth, "depth", "m")
     offset = np.atleast_1d(np.asarray(offset, dtype=float))
     amp = _across(probe, speed, depth, plane, offset, bandwidth, mode, frequencies, spectrum)
@@ -329,7 +318,7 @@ def beam_widths(
 ) -> list[BeamWidth]:
     """:func:`beam_width` at several levels, sharing the scans across the beam."""
     speed, bandwidth, mode = _options(speed, bandwidth, mode)
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     depth = check_positive(depth, "depth", "m")
     levels = [parse_level(level) for level in levels_db]
     aperture = dict(probe.planes)[plane]
@@ -399,7 +388,7 @@ def field_map(
     (2, 3)
     """
     speed, bandwidth, mode = _options(speed, bandwidth, mode)
-    plane = _plane(probe, plane)
+    plane = plane_name(probe, plane)
     lateral = np.asarray(lateral, dtype=float).ravel()
     depth = np.asarray(depth, dtype=float).ravel()
     if lateral.size == 0 or depth.size == 0:
