@@ -206,6 +206,16 @@ def parse_quantity(
     return result
 
 
+def is_bare(text: object) -> bool:
+    """Whether ``text`` is a number without a unit (so it takes the default unit).
+
+    >>> is_bare("5"), is_bare("5MHz"), is_bare(" 2.5e3 ")
+    (True, False, True)
+    """
+    m = _NUMBER.match(str(text))
+    return m is not None and m.group(2) == ""
+
+
 def unit_of(kind: str, unit: str) -> str | None:
     """The canonical spelling of ``unit`` among the units of ``kind``, or None."""
     k = KINDS[kind]

@@ -60,7 +60,7 @@ def _reference(medium) -> dict:
 def _describe(entry) -> dict:
     """The JSON form of a registry entry."""
     from ..media.model import Material
-    from ..report.serialize import unit_suffix
+    from ..report.serialize import conditions_to_dict
 
     m = entry.medium
     out = {
@@ -113,10 +113,7 @@ def _describe(entry) -> dict:
         if m.absorption is not None:
             out["absorption_source"] = m.absorption_source
         out["at_defaults"] = {
-            "conditions": {
-                "_".join(filter(None, (k, unit_suffix(state.condition_units[k])))): v
-                for k, v in state.conditions.items()
-            },
+            "conditions": conditions_to_dict(state),
             "longitudinal_m_s": state.speed,
             "density_kg_m3": state.density,
         }

@@ -2,12 +2,10 @@
 
 from __future__ import annotations
 
-import re
-
 import click
 
 from ..errors import InputError
-from ..units import KINDS, parse_level, parse_quantity
+from ..units import KINDS, is_bare, parse_level, parse_quantity
 
 __all__ = ["CONDITION", "LEVEL", "Condition", "Level", "Quantity"]
 
@@ -48,7 +46,7 @@ class Quantity(click.ParamType):
             low, high, what = self.plausible
             if not low <= abs(result) <= high:
                 text = str(value).strip()
-                bare = _BARE.match(text) is not None
+                bare = is_bare(text)
                 hint = (
                     f"; a bare number is in {KINDS[self.kind].default}: did you mean "
                     f"{text}{self.bare_hint}?"
@@ -60,9 +58,6 @@ class Quantity(click.ParamType):
 
     def __repr__(self) -> str:
         return f"Quantity({self.kind!r})"
-
-
-_BARE = re.compile(r"^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$")
 
 
 class Level(click.ParamType):

@@ -168,13 +168,13 @@ def scan_plan(
         return
     import textwrap
 
-    from ..report.text import CAUTION, SONAR_CAUTION, _medium_and_probe, columns
+    from ..report.text import caution_for, columns, medium_and_probe_lines
 
     wave = resolved.wave
     mark = " *" if plan.governing_far_field_valid is False else ""
     near = "none" if plan.near_field is None else format_length(plan.near_field, units)
     lines = [
-        *_medium_and_probe(probe, wave, units, lead="Scan plan for a"),
+        *medium_and_probe_lines(probe, wave, units, lead="Scan plan for a"),
         *textwrap.wrap(
             f"Depths {format_length(start, units)} to {format_length(stop, units)}; "
             f"-{abs(level):g} dB {mode} width ({plan.method}), plane {plan.plane}; overlap "
@@ -198,6 +198,5 @@ def scan_plan(
             f"  * inside the near field ({near}): the far-field width does not hold there."
         )
     lines.append("")
-    caution = SONAR_CAUTION if wave.state in ("liquid", "gas") else CAUTION
-    lines.extend(textwrap.wrap(caution, 100))
+    lines.extend(textwrap.wrap(caution_for(wave.state), 100))
     click.echo("\n".join(lines))

@@ -258,16 +258,17 @@ def _section_text(
     import textwrap
 
     from ..report.text import (
-        _medium_and_probe,
         caution_for,
         columns,
         field_description,
+        medium_and_probe_lines,
         setup_lines,
     )
     from ..units import format_length
 
     beam = result.beam
-    lines = _medium_and_probe(beam.probe, beam.wave, units, lead="Angle beam on the section: a")
+    lead = "Angle beam on the section: a"
+    lines = medium_and_probe_lines(beam.probe, beam.wave, units, lead=lead)
     lines += setup_lines(result, {"wedge": wedge}, units)
     beta = result.refraction.refracted(beam.wave.wave)
     plate = (

@@ -128,23 +128,18 @@ def run_setup(
             mode=mode,
             field=settings,
         )
-        from ..report.serialize import unit_suffix
+        from ..report.serialize import conditions_to_dict
+        from ..report.text import conditions_text
 
-        units_of = couplant_wave.condition_units
         extra = {
             "couplant": {
                 "name": water.name,
                 "speed_m_s": water.speed,
                 "path_m": water.path,
-                "conditions": {
-                    f"{k}_{unit_suffix(units_of.get(k, ''))}".rstrip("_"): v
-                    for k, v in couplant_wave.conditions.items()
-                },
+                "conditions": conditions_to_dict(couplant_wave),
             }
         }
-        couplant_at = ", ".join(
-            f"{k} {v:g} {units_of.get(k, '')}".rstrip() for k, v in couplant_wave.conditions.items()
-        )
+        couplant_at = conditions_text(couplant_wave)
     warnings.extend(result.warnings)
     warnings = list(dict.fromkeys(warnings))
     if plot_path is not None and result.focus is not None and result.refraction is None:

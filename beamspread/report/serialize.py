@@ -19,6 +19,7 @@ from ..probes import Disc
 __all__ = [
     "beam_to_csv",
     "beam_to_dict",
+    "conditions_to_dict",
     "design_to_csv",
     "dumps",
     "field_settings_to_dict",
@@ -62,6 +63,14 @@ def _clean(value: Any) -> Any:
     return value
 
 
+def conditions_to_dict(wave: Wave) -> dict[str, float]:
+    """A wave's conditions keyed with their units: ``{"temperature_c": 12.0}``."""
+    return {
+        _key(name, wave.condition_units.get(name, "")): value
+        for name, value in wave.conditions.items()
+    }
+
+
 def wave_to_dict(wave: Wave) -> dict[str, Any]:
     """The ``medium`` object of the JSON contract."""
     out: dict[str, Any] = {
@@ -70,10 +79,7 @@ def wave_to_dict(wave: Wave) -> dict[str, Any]:
         "speed_m_s": wave.speed,
         "source": wave.source,
         "state": wave.state,
-        "conditions": {
-            _key(name, wave.condition_units.get(name, "")): value
-            for name, value in wave.conditions.items()
-        },
+        "conditions": conditions_to_dict(wave),
     }
     if wave.density is not None:
         out["density_kg_m3"] = wave.density

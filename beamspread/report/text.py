@@ -8,7 +8,16 @@ from ..beam import BeamResult, level_key
 from ..probes import Disc
 from ..units import format_length
 
-__all__ = ["AIRBORNE_CAUTION", "CAUTION", "SONAR_CAUTION", "beam_table", "caution_for", "columns"]
+__all__ = [
+    "AIRBORNE_CAUTION",
+    "CAUTION",
+    "SONAR_CAUTION",
+    "beam_table",
+    "caution_for",
+    "columns",
+    "conditions_text",
+    "medium_and_probe_lines",
+]
 
 CAUTION = (
     "Estimates from an ideal baffled-piston model, not a measured beam profile. Inspections "
@@ -68,12 +77,16 @@ def _wave_line(w, units: str) -> str:
     """The medium, its conditions, the wave and its speed, with the speed's source."""
     if w.medium == "given":
         return f"speed given by the user, {_speed(w.speed, units)}, {w.wave} wave"
-    name = w.medium
-    conditions = ", ".join(
+    conditions = conditions_text(w)
+    where = f" at {conditions}" if conditions else ""
+    return f"{w.medium}{where}: {w.wave} wave, {_speed(w.speed, units)}  [{w.source}]"
+
+
+def conditions_text(w) -> str:
+    """A wave's conditions as text: "temperature 12 degC, salinity 35 g/kg"."""
+    return ", ".join(
         f"{k} {v:g} {w.condition_units.get(k, '')}".rstrip() for k, v in w.conditions.items()
     )
-    where = f" at {conditions}" if conditions else ""
-    return f"{name}{where}: {w.wave} wave, {_speed(w.speed, units)}  [{w.source}]"
 
 
 def _sonar_lines(di, absorption, figures, units) -> list[str]:
@@ -159,7 +172,7 @@ def beam_table(
     a result with depths but no far-field width is taken as a focused one
     (no other setup leaves the far-field rows out).
     """
-    out: list[str] = _medium_and_probe(result.probe, result.wave, units, "Beam of a")
+    out: list[str] = medium_and_probe_lines(result.probe, result.wave, units, "Beam of a")
     out.append("")
     near = result.near_field
     contact = result.near_field_method.startswith("last on-axis maximum, exact") or (
@@ -419,9 +432,9 @@ def beam_table(
                     _field_line(result, units), 98, initial_indent="  ", subsequent_indent="  "
                 )
             )
-    elif result.field is not None and _field_line(result, units):
+    elif result.field is not None and (line := _field_line(result, units)):
         out.append("")
-        out.extend(textwrap.wrap(_field_line(result, units), 100))
+        out.extend(textwrap.wrap(line, 100))
     out.append("")
     state = result.wave.state
     if (sonar or figures) and state not in ("liquid", "gas"):
@@ -477,7 +490,8 @@ def _profile_rows(coordinate, amplitude, units, limit=41):
     return rows, step
 
 
-def _medium_and_probe(probe, wave, units, lead: str = "Computed field of a") -> list[str]:
+def medium_and_probe_lines(probe, wave, units, lead: str = "Computed field of a") -> list[str]:
+    """The probe line and the medium line that head a result: what was computed, in what."""
     lines = [f"{lead} {_probe_line(probe, units)}"]
     lines.extend(
         textwrap.wrap(f"Medium: {_wave_line(wave, units)}", 100, subsequent_indent="        ")
@@ -487,7 +501,7 @@ def _medium_and_probe(probe, wave, units, lead: str = "Computed field of a") -> 
 
 def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units="mm") -> str:
     """The human-readable report of ``beamspread axis``."""
-    out = _medium_and_probe(probe, wave, units)
+    out = medium_and_probe_lines(probe, wave, units)
     out.append(f"Field: {field_description(settings, mode)}")
     out.append("")
     rows = [
@@ -514,7 +528,7 @@ def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units
 
 def across_table(probe, wave, settings, mode, depth, profiles, widths, units="mm") -> str:
     """The human-readable report of ``beamspread across``."""
-    out = _medium_and_probe(probe, wave, units)
+    out = medium_and_probe_lines(probe, wave, units)
     out.append(f"Field: {field_description(settings, mode)}; depth {format_length(depth, units)}")
     for profile in profiles:
         out.append("")
