@@ -201,14 +201,18 @@ def focused_pressure(
     >>> round(float(p[0, 0] / (k * 0.00635**2 / (2 * 0.05))), 9)
     1.0
     """
-    _check_probe(probe)
-    speed = check_positive(speed, "speed", "m/s")
-    big_f = _check_focus(probe, focal_length)
-    plane = plane_name(probe, plane)
+    speed, big_f, plane = _checked(probe, speed, focal_length, plane)
     f = probe.frequency if frequency is None else check_positive(frequency, "frequency", "Hz")
     offsets, depths = _points(offset, depth)
     k = np.array([2.0 * math.pi * f / speed])
     return _pressures(probe, big_f, offsets, depths, k, plane)[:, 0, :]
+
+
+def _checked(probe, speed, focal_length, plane):
+    """The public functions' shared checks: the probe, the speed, the focus and the plane."""
+    _check_probe(probe)
+    speed = check_positive(speed, "speed", "m/s")
+    return speed, _check_focus(probe, focal_length), plane_name(probe, plane)
 
 
 def _points(offset, depth):
@@ -253,10 +257,7 @@ def focused_amplitude(
     >>> a.shape, bool(a[0, 0] > a[0, 1])
     ((1, 2), True)
     """
-    _check_probe(probe)
-    speed = check_positive(speed, "speed", "m/s")
-    big_f = _check_focus(probe, focal_length)
-    plane = plane_name(probe, plane)
+    speed, big_f, plane = _checked(probe, speed, focal_length, plane)
     bandwidth = check_bandwidth(bandwidth)
     mode = check_mode(mode)
     offsets, depths = _points(offset, depth)
@@ -313,10 +314,7 @@ def focused_beam_widths(
     >>> round(w.width / (0.05 * 1480.0 / 5e6 / 0.0127), 3)
     1.027
     """
-    _check_probe(probe)
-    speed = check_positive(speed, "speed", "m/s")
-    big_f = _check_focus(probe, focal_length)
-    plane = plane_name(probe, plane)
+    speed, big_f, plane = _checked(probe, speed, focal_length, plane)
     bandwidth = check_bandwidth(bandwidth)
     mode = check_mode(mode)
     depth = check_positive(depth, "depth", "m")
