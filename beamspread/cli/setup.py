@@ -166,7 +166,7 @@ def run_setup(
     else:
         from ..report.text import beam_table, setup_lines
 
-        table = beam_table(result.beam, units, focused=result.focus is not None).split("\n")
+        table = beam_table(result.beam, units).split("\n")
         head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
         shown = extra
         if "couplant" in extra:

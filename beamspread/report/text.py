@@ -163,14 +163,12 @@ def beam_table(
     figures=None,
     budgets=None,
     sonar: bool = False,
-    focused: bool | None = None,
 ) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given).
 
-    ``focused``: the result is a focused probe's, whose widths come from its
-    computed field alone; the notes under the width table say so. By default
-    a result with depths but no far-field width is taken as a focused one
-    (no other setup leaves the far-field rows out).
+    A result with depths but no far-field width is a focused probe's (no other
+    result leaves the far-field rows out): its widths come from its computed
+    field alone, and the notes under the width table say so.
     """
     out: list[str] = medium_and_probe_lines(result.probe, result.wave, units, "Beam of a")
     out.append("")
@@ -293,10 +291,9 @@ def beam_table(
                     indent=4,
                 )
             )
-    if focused is None:
-        focused = bool(result.depths) and not any(
-            s.method == "far-field" for pl in result.planes for s in pl.spots
-        )
+    focused = bool(result.depths) and not any(
+        s.method == "far-field" for pl in result.planes for s in pl.spots
+    )
     if result.depths:
         out.append("")
         angled = any(s.surface_distance for pl in result.planes for s in pl.spots)
