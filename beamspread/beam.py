@@ -14,6 +14,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from . import axis, pattern
+from .conventions import level_key
 from .errors import InputError
 from .media.model import Wave
 from .probes import Disc, Probe, Rectangle, check_positive
@@ -34,11 +35,6 @@ __all__ = [
 ]
 
 DEFAULT_LEVELS = (6.0, 20.0)
-
-
-def level_key(level_db: float) -> str:
-    """The key of a level in results: 6 -> "-6", 6.5 -> "-6.5"."""
-    return f"-{abs(level_db):g}"
 
 
 @dataclass(frozen=True)

@@ -45,6 +45,11 @@ def check_positive(value: float, name: str, unit: str = "") -> float:
     return number
 
 
+def _check_focus(element) -> None:
+    if element.focus is not None:
+        object.__setattr__(element, "focus", check_positive(element.focus, "focus", "m"))
+
+
 @dataclass(frozen=True)
 class Disc:
     """A flat circular piston.
@@ -55,16 +60,21 @@ class Disc:
         Element diameter, m.
     frequency : float
         Centre frequency, Hz.
+    focus : float, optional
+        Focal length of a spherically focused element (in the medium it
+        touches: the couplant, or the part in contact), m; None for a flat one.
     """
 
     diameter: float
     frequency: float
+    focus: float | None = None
 
     shape = "disc"
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "diameter", check_positive(self.diameter, "diameter", "m"))
         object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+        _check_focus(self)
 
     @property
     def planes(self) -> tuple[tuple[str, float], ...]:
@@ -111,9 +121,17 @@ class Rectangle(_TwoSided):
         The other side (the y-z plane), m.
     frequency : float
         Centre frequency, Hz.
+    focus : float, optional
+        Focal length of a cylindrical focus in the length plane, m; None for a flat element.
     """
 
+    focus: float | None = None
+
     shape = "rectangle"
+
+    def __post_init__(self) -> None:
+        super().__post_init__()
+        _check_focus(self)
 
 
 @dataclass(frozen=True)

@@ -250,12 +250,12 @@ def test_unknown_material_suggests_close_names(run):
 
 
 def test_internal_error_is_one_line_unless_debug(run, monkeypatch):
-    import beamspread.beam
+    import beamspread.pipeline
 
     def broken(*args, **kwargs):
         raise ZeroDivisionError("synthetic failure")
 
-    monkeypatch.setattr(beamspread.beam, "analyse", broken)
+    monkeypatch.setattr(beamspread.pipeline, "analyse", broken)
     r = run(*BASE)
     assert r.code == 1
     assert r.stderr.strip().splitlines() == [

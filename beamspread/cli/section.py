@@ -6,22 +6,20 @@ import math
 
 import click
 
-from .beam import wedge_options
 from .options import (
     check_plot,
     emit_warnings,
     field_options,
-    field_settings,
-    make_probe,
+    load_registry,
     medium_options,
     output_options,
     pass_output,
     plot_option,
     probe_options,
-    resolve_wave,
 )
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
+from .techniqueargs import technique_from, wedge_options
 
 
 def section_geometry(result, thickness, depth, settings, wedge_path):
@@ -76,28 +74,8 @@ def section_geometry(result, thickness, depth, settings, wedge_path):
 @output_options
 @pass_output
 def section(
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
-    wedge,
-    wedge_speed,
-    incident,
-    refracted,
-    wedge_path,
-    thickness,
     depth,
     levels,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
     far_field_only,
     plot_path,
     force_plot,
@@ -105,6 +83,7 @@ def section(
     save_path,
     fmt,
     units,
+    **options,
 ):
     """The angle beam on the part's section: the plate, the exit point, the beam axis
     and its level edges over both legs, and the footprint at the flaw depth.
@@ -113,11 +92,13 @@ def section(
     and the --thickness. The edges come from the computed field of the
     virtual element in the part (or the far-field cone with --far-field-only).
     """
-    from ..beam import DEFAULT_LEVELS
+    from ..pipeline import compute
     from ..report import plots
-    from .setup import _named_speed, _part_speeds, load_registry
 
     check_plot(plot_path, force_plot)
+    wedge, wedge_speed = options["wedge"], options["wedge_speed"]
+    incident, refracted = options["incident"], options["refracted"]
+    thickness, wedge_path = options["thickness"], options["wedge_path"]
     if wedge is None and wedge_speed is None:
         raise click.UsageError("the section needs a wedge: --wedge NAME or --wedge-speed SPEED")
     if wedge is not None and wedge_speed is not None:
@@ -128,41 +109,17 @@ def section(
         raise click.UsageError(
             "give the wedge's --incident angle or the --refracted angle, one of them"
         )
-    from ..inspection import Wedge, analyse_wedge
-
-    probe = make_probe(diameter, length, width, frequency)
-    settings = None if far_field_only else field_settings(bandwidth, spectrum, frequency_count)
+    technique = technique_from(
+        options, depths=[depth] if depth else [], levels=levels, far_field_only=far_field_only
+    )
+    registry = load_registry(options["materials_dirs"])
+    computed = compute(technique, registry=registry)
+    result, settings = computed.setup, computed.settings
     method = "far-field" if settings is None else "field"
-    resolved = resolve_wave(
-        material, wave or "shear", speed, temperature, conditions, materials_dirs
-    )
-    registry = resolved.registry or load_registry(materials_dirs)
-    warnings = list(registry.warnings)
-    if wedge is not None:
-        w = _named_speed(registry, wedge, temperature)
-        warnings.extend(w.warnings)
-        wedge_c, name = w.speed, w.medium
-    else:
-        wedge_c, name = wedge_speed, "given"
-    if wedge_path is None:
-        warnings.append(
-            "no --wedge-path: the near field in the part is not shortened by the wedge, "
-            "and the far-field cone starts at the exit point"
-        )
-    c_long, c_shear = _part_speeds(resolved)
-    mode = "one-way" if pulse_echo is False else "pulse-echo"
-    result = analyse_wedge(
-        probe,
-        resolved.wave,
-        c_long,
-        c_shear,
-        Wedge(wedge_c, wedge_path or 0.0, incident, refracted, name),
-        thickness=thickness,
-        depths=[depth] if depth else [],
-        levels=levels or DEFAULT_LEVELS,
-        mode=mode,
-        field=settings,
-    )
+    name, wedge_c = computed.wedge.name, computed.wedge.speed
+    mode, probe, (c_long, c_shear) = computed.mode, technique.element, computed.speeds
+    setup_warnings = set(result.warnings)
+    warnings = [w for w in computed.warnings if w not in setup_warnings]
     other = {text for m, text in result.method_warnings if m != method}
     warnings.extend(w for w in result.warnings if w not in other)
     warnings = list(dict.fromkeys(warnings))
@@ -170,7 +127,7 @@ def section(
         warnings.append("no --depth: the section has no flaw depth, so no footprint is given")
     emit_warnings(warnings)
     if plot_path is not None:  # the edges along both legs are computed for the drawing only
-        from .beam import caption_of
+        from ..report.captions import caption_of
 
         geometry = section_geometry(result, thickness, depth, settings, wedge_path)
         plots.plot_section(
@@ -204,7 +161,7 @@ def section(
             wave_to_dict,
         )
 
-        medium = wave_to_dict(resolved.wave)
+        medium = wave_to_dict(computed.part.wave)
         medium["longitudinal_m_s"], medium["shear_m_s"] = c_long, c_shear
         data = {
             "probe": probe_to_dict(probe),

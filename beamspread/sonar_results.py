@@ -1,8 +1,8 @@
-"""The sonar results beside a bare transducer's beam, shared by ``beam`` and ``report``.
+"""The sonar results beside a bare transducer's beam: directivity index, figures, echo budget.
 
-``beam`` prints them for its command line and ``report`` puts them on the page
-of a setup file; both call :func:`sonar_results`, so the page carries what
-``beam --setup FILE`` prints.
+:func:`beamspread.compute` calls :func:`sonar_results` for a technique in
+contact with water or air, so every command and the report page carry the same
+figures.
 """
 
 from __future__ import annotations
@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-import click
+from .errors import InputError
 
 
 @dataclass(frozen=True)
@@ -70,8 +70,8 @@ def sonar_results(
     ----------
     result : BeamResult
         The analysed beam (with the sonar levels and mode where ``sonar``).
-    resolved : beamspread.cli.options.Resolved
-        The medium and wave, as :func:`beamspread.cli.options.resolve_wave` gives them.
+    resolved : beamspread.media.resolve.Resolved
+        The medium and wave.
     bottoms : list of float
         Bottom depths, m (see :func:`bottom_list`).
     power : float or None
@@ -83,10 +83,10 @@ def sonar_results(
 
     Raises
     ------
-    click.UsageError
+    InputError
         An echo budget in a gas.
     """
-    from ..sonar import directivity_index
+    from .sonar import directivity_index
 
     absorption = resolved.absorption(result.probe.frequency)
     if absorption is not None:
@@ -106,7 +106,7 @@ def sonar_results(
 
 def _figures(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
     """The sonar figures and, with a power, an echo budget at each bottom depth."""
-    from ..sonar import echo_budget, sonar_figures, source_level_constant
+    from .sonar import echo_budget, sonar_figures, source_level_constant
 
     alpha = None if absorption is None else absorption.db_per_km
     figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)
@@ -118,9 +118,7 @@ def _figures(result, resolved, bottoms, absorption, power, efficiency, bottom_lo
     if power is not None:
         wave = resolved.wave
         if wave.state == "gas":
-            raise click.UsageError(
-                f"the echo budget (dB re 1 uPa) is for water; {wave.medium} is a gas"
-            )
+            raise InputError(f"the echo budget (dB re 1 uPa) is for water; {wave.medium} is a gas")
         if wave.density is None:
             constant = 170.8
             warnings.append(

@@ -1,0 +1,30 @@
+"""The text table of a :class:`beamspread.pipeline.Result` (what ``beamspread beam`` prints)."""
+
+from __future__ import annotations
+
+from .text import beam_table, conditions_text, setup_lines
+
+__all__ = ["result_table"]
+
+
+def result_table(result, units: str = "mm") -> str:
+    """The human-readable table of a computed technique, with its setup lines and sonar figures."""
+    if result.setup is None:
+        options = result.sonar.table_options(result.technique.sonar.conventions)
+        return beam_table(result.beam, units, **options)
+    table = beam_table(result.beam, units).split("\n")
+    head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
+    if result.wedge is not None:
+        w = result.wedge
+        shown = {"wedge": {"name": w.name, "speed_m_s": w.speed, "path_m": w.path}}
+    else:
+        c = result.couplant
+        shown = {
+            "couplant": {
+                "name": c.wave.medium,
+                "speed_m_s": c.wave.speed,
+                "path_m": c.path,
+                "at": conditions_text(c.wave),
+            }
+        }
+    return "\n".join(table[:head] + setup_lines(result.setup, shown, units) + table[head:])
