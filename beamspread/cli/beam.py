@@ -386,7 +386,7 @@ def frequency_text(hertz: float) -> str:
 
 
 def _plot(path, result, sr, units):
-    from ..report import plots
+    from ..render import plots
 
     figures = sr.figures
     if figures is not None and figures.footprints:

@@ -31,7 +31,7 @@ def section_geometry(result, thickness, depth, settings, wedge_path):
     sound paths where the result's footprints found the edges crossing the
     depth, so the drawn footprints are those of the table.
     """
-    from ..report.plots import BeamEdge, SectionGeometry
+    from ..render.plots import BeamEdge, SectionGeometry
 
     beta = result.refraction.refracted(result.beam.wave.wave)
     length = 2 * thickness / math.cos(beta) * 1.4  # past the second leg's return to the surface
@@ -114,7 +114,7 @@ def section(
     virtual element in the part (or the far-field cone with --far-field-only).
     """
     from ..beam import DEFAULT_LEVELS
-    from ..report import plots
+    from ..render import plots
     from .setup import _named_speed, _part_speeds, load_registry
 
     check_plot(plot_path, force_plot)

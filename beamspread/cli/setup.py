@@ -176,7 +176,7 @@ def run_setup(
 
 def _plot(path, result, settings, thickness, depths, units):
     """A wedge with a thickness: the section; otherwise the directivity in the part."""
-    from ..report import plots
+    from ..render import plots
     from .beam import caption_of
 
     if result.refraction is not None and thickness is not None:
