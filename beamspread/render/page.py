@@ -114,7 +114,7 @@ def _page(setup, text, result, view, geometry, units, warnings, *, caption, name
         )
     fig.get_layout_engine().set(rect=(0.0, bottom, 1.0, below_text - bottom))
 
-    # Rows: the picture (the map and its legend, or the footprint with its own),
+    # Rows: the picture (the map and its legend, or the footprint and its legend),
     # the section and its legend, the cautions.
     footprint = view.get("footprint")
     picture = ["footprint", "footprint legend"] if footprint else ["map", "map legend"]
