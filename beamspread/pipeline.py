@@ -17,7 +17,7 @@ from .conventions import Coupling, Mode
 from .errors import InputError
 from .media.resolve import Resolved, named_wave, resolve_part
 from .source import FieldSource
-from .technique import Technique, WaterCoupling, WedgeCoupling
+from .technique import Technique, WaterCoupling
 
 __all__ = ["CouplantUsed", "Result", "WedgeUsed", "compute"]
 

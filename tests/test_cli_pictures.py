@@ -232,7 +232,7 @@ def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):
     # A disc's near field (its last on-axis maximum) is known in closed form,
     # N = (D^2 - lambda^2) / (4 lambda) (Kinsler & Frey, the baffled piston's axial field);
     # a pulse's own last maximum is marked too.
-    from beamspread.report import plots
+    from beamspread.render import plots
 
     seen = {}
     monkeypatch.setattr(plots, "plot_map", lambda field_map, path, **kw: seen.update(kw))
@@ -258,7 +258,7 @@ def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):
 
 def _report_figure(run, tmp_path, monkeypatch, *args):
     """The report's page as a Figure (and the file written), for a setup saved from ``args``."""
-    from beamspread.report import plots
+    from beamspread.render import plots
 
     setup = tmp_path / "setup.toml"
     assert run("beam", *args, "--far-field-only", "--save", str(setup)).code == 0
@@ -343,16 +343,16 @@ def test_report_of_a_sonar_setup_carries_beams_sonar_results_and_its_footprint(
     from scipy.optimize import brentq
     from scipy.special import j1
 
-    from beamspread.report import plots
+    from beamspread.render import plots
 
     drawn = {}
-    make = plots.footprint_figure
+    make = plots.draw_footprint
 
-    def spy(depths, widths, **kw):
+    def spy(ax, depths, widths, **kw):
         drawn.update(depths=list(depths), widths=dict(widths), **kw)
-        return make(depths, widths, **kw)
+        return make(ax, depths, widths, **kw)
 
-    monkeypatch.setattr(plots, "footprint_figure", spy)
+    monkeypatch.setattr(plots, "draw_footprint", spy)
     fig = _report_figure(run, tmp_path, monkeypatch, *LAKE)
     setup = tmp_path / "setup.toml"
     # The page carries what beam prints for the same setup (its closing caution goes
@@ -389,7 +389,8 @@ def test_report_of_a_sonar_setup_carries_beams_sonar_results_and_its_footprint(
         assert widths == pytest.approx(expected, rel=1e-6)
     # Laid out: the picture below the text, above the cautions, on the page.
     renderer = fig.canvas.get_renderer()
-    (picture,) = [a for a in fig.axes if a.images]
+    (picture,) = [a for a in fig.axes if a.get_title().startswith("Beam footprint")]
+    assert not picture.images  # drawn in vector form, not set in as a picture
     text_box = block.get_window_extent(renderer)
     box = picture.get_window_extent(renderer)
     (foot,) = [t for a in fig.axes for t in a.texts if t.get_text().startswith("Estimates")]

@@ -145,7 +145,7 @@ def test_computed_footprint_is_where_the_computed_edges_cross_the_depth(run):
     import beamspread
     from beamspread.cli.section import section_geometry
     from beamspread.field import beam_widths
-    from beamspread.report import plots
+    from beamspread.render import plots
 
     probe = ("--diameter", "10mm", "--frequency", "4MHz")
     setup = ("--wedge", "acrylic", "--refracted", "70", "--wedge-path", "10mm")

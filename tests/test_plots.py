@@ -26,7 +26,8 @@ from beamspread.field import (
     transverse_profile,
 )
 from beamspread.probes import Disc, Rectangle
-from beamspread.report import plots
+from beamspread.render import plots
+from beamspread.render.plots.figure import _PALETTE
 
 SPEED = 5920.0  # m/s, an invented steel
 DISC = Disc(0.010, 5e6)
@@ -226,7 +227,7 @@ def test_matplotlib_is_not_imported_by_the_module_alone():
     import sys
 
     code = (
-        "import sys, beamspread.report.plots, beamspread.scan, beamspread.setupfile; "
+        "import sys, beamspread.render.plots, beamspread.scan, beamspread.setupfile; "
         "print('matplotlib' in sys.modules)"
     )
     out = subprocess.run(
@@ -346,13 +347,13 @@ def test_section_edges_start_on_the_surface_and_everything_is_inside_the_axes():
     held = [line for line in edges if line.get_alpha() is not None]
     assert held  # these edges begin in the part: their first stretch is held, drawn lighter
     for i in range(len(g.edges)):
-        colour = plots._PALETTE[1 + i]
+        colour = _PALETTE[1 + i]
         mine = [line for line in edges if line.get_color() == colour]
         assert all(_data(line)[:, 1].min() >= -tol for line in mine)
         assert sum(abs(_data(line)[0, 1]) < tol for line in mine) == 2  # one start per side
     # The shading lies between the main level's two edges: its vertices are their points.
     (shade,) = [p for p in ax.patches if p.get_alpha() == 0.12]
-    main = np.concatenate([_data(line) for line in edges if line.get_color() == plots._PALETTE[1]])
+    main = np.concatenate([_data(line) for line in edges if line.get_color() == _PALETTE[1]])
     for vx, vy in shade.get_xy():
         assert vy >= -tol
         assert np.min(np.hypot(main[:, 0] - vx, main[:, 1] - vy)) < tol

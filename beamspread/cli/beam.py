@@ -170,7 +170,7 @@ def _plot(path, result, units) -> list[str]:
     The footprint on the bottom (a sonar's bottom depths), the section (a
     wedge with a thickness), or the far-field directivity (in the part).
     """
-    from ..report import plots
+    from ..render import plots
     from ..report.captions import caption_of
 
     beam, setup, warnings = result.beam, result.setup, []

@@ -34,7 +34,7 @@ def _caption(probe, wave, settings, mode):
         else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm"
     )
     where = "given speed" if wave.medium == "given" else wave.medium
-    from .beam import frequency_text
+    from ..report.captions import frequency_text
 
     return (
         f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
@@ -170,7 +170,7 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     axial = last_maximum(probe, medium.speed, **kwargs)
     axial = None if np.isnan(axial) else axial
     if plot_path is not None:
-        from ..report.plots import plot_axis
+        from ..render.plots import plot_axis
 
         plot_axis(
             profile,
@@ -274,7 +274,7 @@ def across(
             probe, medium.speed, depth, levels or DEFAULT_LEVELS, plane=name, **kwargs
         )
     if plot_path is not None:
-        from ..report.plots import plot_across
+        from ..render.plots import plot_across
 
         plot_across(
             profiles,
@@ -431,7 +431,7 @@ def map_(
     )
     if plot_path is not None:
         from ..field import last_maximum
-        from ..report.plots import plot_map
+        from ..render.plots import plot_map
 
         # The near field is known for every probe (the continuous-wave last on-axis maximum);
         # a pulse's own last on-axis maximum, where the map's beam is strongest, is marked too.

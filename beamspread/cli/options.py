@@ -308,7 +308,7 @@ def check_plot(path, force: bool) -> None:
     """Refuse a bad --plot path, or an existing file without --force, before computing."""
     if path is None:
         return
-    from ..report.plots import check_target
+    from ..render.plots import check_target
 
     if check_target(path).exists() and not force:
         raise click.BadParameter(

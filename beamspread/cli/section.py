@@ -29,7 +29,7 @@ def section_geometry(result, thickness, depth, settings, wedge_path):
     sound paths where the result's footprints found the edges crossing the
     depth, so the drawn footprints are those of the table.
     """
-    from ..report.plots import BeamEdge, SectionGeometry
+    from ..render.plots import BeamEdge, SectionGeometry
 
     beta = result.refraction.refracted(result.beam.wave.wave)
     length = 2 * thickness / math.cos(beta) * 1.4  # past the second leg's return to the surface
@@ -93,7 +93,7 @@ def section(
     virtual element in the part (or the far-field cone with --far-field-only).
     """
     from ..pipeline import compute
-    from ..report import plots
+    from ..render import plots
 
     check_plot(plot_path, force_plot)
     wedge, wedge_speed = options["wedge"], options["wedge_speed"]

@@ -1,0 +1,253 @@
+"""What every picture shares: the headless figure, the atomic write, the small helpers.
+
+Each ``plot_*`` function of :mod:`beamspread.render.plots` draws one picture
+and writes it to a path whose suffix chooses the format (``.png``, ``.svg``
+or ``.pdf``) through :func:`save_figure`: a temporary file in the same folder,
+so that nothing half-written is ever left. Each has a ``*_figure`` twin that
+returns the :class:`matplotlib.figure.Figure` instead, and a ``draw_*``
+function that draws on a given Axes and returns its legend handles (for a
+page that gathers several).
+
+Conventions drawn on every picture: lengths in ``units`` (``"mm"`` or
+``"in"``; a sonar cone also takes ``"m"`` or ``"ft"``), levels in dB as
+:math:`20\\log_{10}` of the amplitude relative to a stated reference, and the
+mode (pulse-echo or one-way) in the title or the labels. A ``caption`` is
+drawn as a line (wrapped if long) along the foot of the picture.
+
+matplotlib is imported inside the functions that draw, with the Agg canvas
+attached to each figure directly: nothing here touches pyplot's global state
+or needs a display, and importing this module costs nothing.
+"""
+
+from __future__ import annotations
+
+import math
+import os
+import tempfile
+import textwrap
+from collections.abc import Sequence
+from pathlib import Path
+from typing import TYPE_CHECKING
+
+import numpy as np
+
+from ...errors import InputError
+from ...units import format_length
+
+if TYPE_CHECKING:
+    from matplotlib.figure import Figure
+
+FORMATS = (".png", ".svg", ".pdf")
+FIGSIZE = (7.0, 4.5)  # inches: half a printed page
+DPI = 150
+FLOOR_DB = -40.0  # the foot of every dB scale
+COLORMAP = "cividis"  # perceptually uniform, readable in grey and by most colour-blind readers
+CAPTION_SIZE = 7.0  # points
+
+# Lines on white: a dark blue, a brick red, a sea green, an ochre and a grey, in that order.
+_PALETTE = ("#1d3557", "#b5473a", "#2a7f62", "#c28a1e", "#6c6c6c")
+_STYLES = ("-", "--", ":", "-.")
+_MARKS = "#e9724c"  # depth lines and footprints on the map and the section
+
+_LENGTHS = {"mm": 1e3, "in": 1.0 / 0.0254, "m": 1.0, "ft": 1.0 / 0.3048}
+_MINUS = "\u2212"
+
+
+def check_target(path: str | os.PathLike) -> Path:
+    """The plot path as a :class:`~pathlib.Path`, if its suffix and folder are usable.
+
+    Raises
+    ------
+    InputError
+        An unknown suffix (naming the allowed ones), a folder that does not
+        exist, or a path that is a folder.
+    """
+    target = Path(path)
+    if target.suffix.lower() not in FORMATS:
+        raise InputError(f"plot: {str(path)!r}: the suffix must be one of {', '.join(FORMATS)}")
+    if not target.parent.is_dir():
+        raise InputError(f"plot: {str(path)!r}: the folder {str(target.parent)!r} does not exist")
+    if target.is_dir():
+        raise InputError(f"plot: {str(path)!r} is a folder, not a file")
+    return target
+
+
+def _scale(units: str, allowed: Sequence[str] = ("mm", "in")) -> tuple[float, str]:
+    """Metres-to-units factor and the unit's label."""
+    if units not in allowed:
+        raise InputError(f"units: {units!r} is unknown; use one of {', '.join(allowed)}")
+    return _LENGTHS[units], units
+
+
+def _db(amplitude, reference) -> np.ndarray:
+    """``20 log10(amplitude / reference)``, floored at :data:`FLOOR_DB` (zeros included)."""
+    a = np.abs(np.asarray(amplitude, dtype=float))
+    ref = np.asarray(reference, dtype=float)
+    tiny = 10.0 ** (FLOOR_DB / 20.0) * 1e-3
+    with np.errstate(divide="ignore", invalid="ignore"):
+        ratio = np.where(ref > 0, a / np.where(ref > 0, ref, 1.0), 0.0)
+    return np.maximum(20.0 * np.log10(np.maximum(ratio, tiny)), FLOOR_DB)
+
+
+def _levels(levels_db) -> list[float]:
+    """Levels as positive dB below the reference, in the order given, without repeats."""
+    out: list[float] = []
+    for level in levels_db:
+        try:
+            value = abs(float(level))
+        except (TypeError, ValueError):
+            raise InputError(f"level: {level!r} is not a number of dB") from None
+        if not math.isfinite(value) or value == 0.0 or value >= -FLOOR_DB:
+            raise InputError(
+                f"level: {level!r} dB is not allowed; give a level from above 0 "
+                f"to below {-FLOOR_DB:g} dB down"
+            )
+        if value not in out:
+            out.append(value)
+    return out
+
+
+def _level_text(level: float) -> str:
+    return f"{_MINUS}{abs(level):g} dB"
+
+
+def _length(metres: float, units: str) -> str:
+    if units in ("mm", "in"):
+        return format_length(metres, units)
+    value = metres * _LENGTHS[units]
+    return f"{value:.3g} {units}"
+
+
+def _mode_text(mode: str, bandwidth: float | None = None) -> str:
+    text = mode
+    if bandwidth is not None:
+        text += ", continuous wave" if bandwidth == 0 else f", {bandwidth:g} fractional bandwidth"
+    return text
+
+
+def new_figure(
+    size: tuple[float, float] = FIGSIZE, *, caption: str = "", dpi: float = DPI
+) -> Figure:
+    """A figure on its own Agg canvas with constrained layout, the caption along its foot.
+
+    The layout leaves room below for the caption (wrapped to the figure's
+    width); nothing is drawn through pyplot.
+    """
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+
+    fig = Figure(figsize=size, dpi=dpi)
+    FigureCanvasAgg(fig)
+    bottom = _caption(fig, caption)
+    fig.set_layout_engine("constrained", rect=(0.0, bottom, 1.0, 1.0 - bottom))
+    return fig
+
+
+def _caption(fig: Figure, caption: str) -> float:
+    """Draw the caption along the foot of ``fig``; return the height it takes (a fraction)."""
+    width, height = fig.get_size_inches()
+    text = " ".join(str(caption).split())
+    if not text:
+        return 0.0
+    per_line = max(20, int((width * 72.0 - 14.0) / (0.56 * CAPTION_SIZE)))
+    lines = textwrap.wrap(text, per_line)
+    points = len(lines) * CAPTION_SIZE * 1.3 + 8.0
+    fig.text(
+        0.012,
+        4.0 / (height * 72.0),
+        "\n".join(lines),
+        fontsize=CAPTION_SIZE,
+        ha="left",
+        va="bottom",
+        color="0.2",
+        linespacing=1.3,
+    )
+    return min(0.4, points / (height * 72.0))
+
+
+def save_figure(fig: Figure, path: str | os.PathLike) -> Path:
+    """Write ``fig`` to ``path`` (format by suffix) atomically; return the path.
+
+    The picture goes to a temporary file in the same folder, which replaces
+    ``path`` only once complete; on any failure it is removed.
+    """
+    target = check_target(path)
+    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
+    os.close(fd)
+    try:
+        fig.savefig(temporary, format=target.suffix.lower()[1:], dpi=fig.dpi)
+        mask = os.umask(0)
+        os.umask(mask)
+        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
+        os.replace(temporary, target)
+    except BaseException:
+        Path(temporary).unlink(missing_ok=True)
+        raise
+    return target
+
+
+def _outline(width: float = 2.6):
+    from matplotlib import patheffects
+
+    return [patheffects.withStroke(linewidth=width, foreground="black")]
+
+
+def _polar_figure(size, caption: str, rows: int) -> tuple[Figure, float]:
+    """A figure holding one polar axes whose lower half-disc fills the space left.
+
+    Placed by hand: a layout engine would keep room for the whole (square)
+    box around the half-disc. Returns the figure and where (a fraction of its
+    height) the legend's foot goes.
+    """
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+
+    fig = Figure(figsize=size, dpi=DPI)
+    FigureCanvasAgg(fig)
+    width, height = size
+    caption_in = _caption(fig, caption) * height
+    legend_in = (rows * 7.5 * 1.55 + 6.0) / 72.0
+    below = caption_in + legend_in + 0.38  # the angle labels under the half-disc
+    above = 0.62 + 0.2  # two lines of title, the radius labels
+    side = max(1.0, min(2.0 * (height - below - above), width - 1.1))  # the half-disc's width
+    box_bottom = below - side / 4.0  # the half-disc sits in the middle of its square box
+    fig.add_axes(
+        (0.5 - side / (2.0 * width), box_bottom / height, side / width, side / height),
+        projection="polar",
+    )
+    return fig, (caption_in + 2.0 / 72.0) / height
+
+
+def _with_strip(fig: Figure):
+    """A main cell and, below it, an empty strip for a legend (see :func:`_strip_legend`)."""
+    grid = fig.add_gridspec(2, 1, height_ratios=(1.0, 0.0))
+    strip = fig.add_subplot(grid[1])
+    strip.axis("off")
+    return grid, strip
+
+
+def _strip_legend(strip, handles, ncol: int = 2, fontsize: float = 7.5) -> None:
+    """Fill the strip with a legend of ``handles`` in ``ncol`` columns, sized to fit."""
+    fig = strip.figure
+    rows = -(-len(handles) // ncol)
+    needed = (rows * fontsize * 1.55 + 4.0) / 72.0  # inches
+    grid = strip.get_subplotspec().get_gridspec()
+    main = max(0.5, fig.get_figheight() * 0.75 - needed)
+    grid.set_height_ratios((main, needed))
+    legend = strip.legend(
+        handles=handles,
+        loc="center",
+        ncol=ncol,
+        fontsize=fontsize,
+        frameon=False,
+        borderaxespad=0.0,
+        handlelength=2.6,
+        columnspacing=1.6,
+    )
+    legend.set_in_layout(False)  # the strip's height is set for it, and layout ignores its width
+
+
+def _line(**kwargs):
+    from matplotlib.lines import Line2D
+
+    return Line2D([], [], **kwargs)
