@@ -42,6 +42,7 @@ __all__ = [
     "check_overlap",
     "far_field_widths",
     "field_widths",
+    "index_step",
     "parse_overlap",
     "plan_scan",
     "plan_scan_for",
@@ -228,7 +229,6 @@ def field_widths(
     golden-section search between its neighbours, and that depth added, so
     that the governing width does not depend on the sampling.
     """
-    from ._search import golden_max
     from .field import beam_widths
 
     plane = plane_name(probe, plane)
@@ -242,6 +242,13 @@ def field_widths(
 
     def width(depth: float) -> float:
         return float(beam_widths(probe, speed, depth, [level_db], **kwargs)[0].width)
+
+    return _sampled(width, start, stop, count, refine)
+
+
+def _sampled(width, start: float, stop: float, count: int, refine: bool) -> dict[float, float]:
+    """``width(depth)`` at ``count`` depths, m, the narrowest refined (:func:`field_widths`)."""
+    from ._search import golden_max
 
     depths = scan_depths(start, stop, count)
     out = {float(d): width(float(d)) for d in dict.fromkeys(depths.tolist())}
@@ -342,9 +349,14 @@ def plan_scan_for(
         raise InputError(f"method: {method!r} is unknown; use field or far-field")
     plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
     near, near_simple = _near_field(probe, speed / probe.frequency)
+    return _with_near_field(plan, near, near_simple)
+
+
+def _with_near_field(plan: ScanPlan, near: float | None, near_simple: float | None) -> ScanPlan:
+    """The plan with the near field, far-field rows inside it marked, and the warnings."""
     warnings = []
     valid = None
-    if method == "far-field":
+    if plan.method == "far-field":
         valid = tuple(near is None or d >= near for d in plan.depths)
         inside = [d for d, ok in zip(plan.depths, valid, strict=True) if not ok]
         if inside:
@@ -358,12 +370,62 @@ def plan_scan_for(
                 f"not hold there, and the step is set by the width at "
                 f"{_mm(plan.governing_depth)}; the computed field (method 'field') holds there"
             )
-    elif plan.depths[0] < 0.05 * near_simple:
+    elif near_simple is not None and plan.depths[0] < 0.05 * near_simple:
         warnings.append(
             f"depth {_mm(plan.depths[0])} lies closer than 0.05 N ({_mm(0.05 * near_simple)}) "
             "to the face, where the computed field is not validated"
         )
     return replace(plan, near_field=near, far_field_valid=valid, warnings=tuple(warnings))
+
+
+def index_step(
+    result,
+    start: float,
+    stop: float,
+    overlap,
+    *,
+    count: int = 16,
+    level_db: float = 6.0,
+    plane: str | None = None,
+    method: str = "field",
+    refine: bool = True,
+) -> ScanPlan:
+    """:func:`plan_scan` for a computed technique (:func:`beamspread.compute`'s result).
+
+    Depths are below the scanning surface (on a wedge, on the first leg).
+    ``method`` "field" takes each width from the technique's computed field
+    (:class:`beamspread.source.FieldSource`, as ``beam`` does); "far-field" from
+    the far-field widths ``beam`` gives at those depths.
+    """
+    from .pipeline import compute
+
+    check_overlap(overlap)
+    source = result.source
+    plane = plane or source.planes[0]
+    if plane not in source.planes:
+        raise InputError(
+            f"plane: {plane!r} is not a plane of this probe; use one of {', '.join(source.planes)}"
+        )
+    if method == "field":
+        if result.settings is None:
+            raise InputError("method field: the technique asks for the far field only")
+
+        def width(depth: float) -> float:
+            at = source.coordinate_of_depth(depth)
+            found = source.widths(at, [level_db], plane, result.mode, result.settings)
+            return float(found[0].width)
+
+        widths = _sampled(width, start, stop, count, refine)
+    elif method == "far-field":
+        depths = tuple(dict.fromkeys(scan_depths(start, stop, count).tolist()))
+        technique = result.technique.with_request(depths=depths, levels=(level_db,), pulse=None)
+        beam = compute(technique, registry=result.part.registry).beam
+        (spots,) = [p.spots for p in beam.planes if p.name == plane]
+        widths = {s.depth: s.width for s in spots if s.leg == 1}
+    else:
+        raise InputError(f"method: {method!r} is unknown; use field or far-field")
+    plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
+    return _with_near_field(plan, result.beam.near_field, result.beam.near_field_simple)
 
 
 def _near_field(probe, wavelength: float) -> tuple[float | None, float]:

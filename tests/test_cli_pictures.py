@@ -83,7 +83,7 @@ def test_bad_plot_path_is_refused_before_computing(run, tmp_path, monkeypatch, t
 
 def test_scan_plan_follows_the_overlap_rule(run):
     data = run(
-        "scan-plan", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "25%", "--json"
+        "index-step", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "25%", "--json"
     ).json()
     # common practice: index step = narrowest width over the depths x (1 - overlap)
     assert data["governing_width_m"] == pytest.approx(min(data["widths_m"]))
@@ -94,7 +94,7 @@ def test_scan_plan_follows_the_overlap_rule(run):
 def test_scan_plan_far_field_governs_at_the_shallowest_depth(run):
     # The far-field cone only grows with depth (2 z tan theta): the first depth governs.
     data = run(
-        "scan-plan",
+        "index-step",
         *DISC,
         "--from",
         "30mm",
@@ -111,7 +111,7 @@ def test_scan_plan_far_field_governs_at_the_shallowest_depth(run):
 
 
 def test_scan_plan_bad_overlap(run):
-    r = run("scan-plan", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "120%")
+    r = run("index-step", *DISC, "--from", "10mm", "--to", "60mm", "--overlap", "120%")
     assert r.code == 2 and "overlap" in r.stderr
 
 

@@ -3,6 +3,7 @@ refused, commands without setup files refused, and scan plans that say what does
 
 from __future__ import annotations
 
+import json
 import sys
 
 import pytest
@@ -117,12 +118,12 @@ def test_bare_depth_ranges_are_saved_with_the_units_the_command_gave_them(run, t
 def test_a_sonar_setup_gives_other_commands_its_one_way_narrow_band_beam(run, tmp_path):
     path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
     depths = ("--from", "50mm", "--to", "150mm", "--count", "4", "--json")
-    r = run("scan-plan", "--setup", str(path), *depths)
+    r = run("index-step", "--setup", str(path), *depths)
     assert r.code == 0, r.stderr
     assert "--bottom-depth" in r.stderr and "--sonar" in r.stderr and "does not use" in r.stderr
     # Reference: the same plan asked for explicitly with --sonar's conventions
     # (one-way, a 0.1 bandwidth).
-    explicit = run("scan-plan", *SOUNDER[:10], "--one-way", "--bandwidth", "0.1", *depths)
+    explicit = run("index-step", *SOUNDER[:10], "--one-way", "--bandwidth", "0.1", *depths)
     assert r.json()["mode"] == "one-way"
     assert r.json()["widths_m"] == explicit.json()["widths_m"]
 
@@ -138,19 +139,20 @@ def _one_line_refusal(r):
 @pytest.mark.parametrize(
     "command",
     [
-        ("scan-plan", "--from", "10mm", "--to", "50mm"),
+        ("index-step", "--from", "10mm", "--to", "50mm"),
         ("map", "--depth-points", "8", "--lateral-points", "8"),
         ("axis", "--points", "8"),
         ("across", "--depth", "30mm", "--points", "8"),
     ],
     ids=lambda c: c[0],
 )
-def test_a_wedge_is_refused_by_commands_that_cannot_model_it(run, tmp_path, command):
+def test_the_field_commands_take_a_wedge_setup(run, tmp_path, command):
+    # Every command that computes a beam takes every technique that makes physical sense:
+    # a field command reads the wedge's beam in the part, along the refracted axis.
     path, _ = _saved(run, tmp_path, "beam", *ANGLE, "--far-field-only")
-    line = _one_line_refusal(run(command[0], "--setup", str(path), *command[1:]))
-    assert "angle-beam wedge (--wedge acrylic, --refracted 60 deg)" in line
-    assert f"which {command[0]} cannot model" in line
-    assert line.endswith("use beam, report or section with this setup")
+    r = run(command[0], "--setup", str(path), *command[1:], "--json")
+    assert r.code == 0, r.stderr
+    assert json.loads(r.stdout)["source"]["coupling"] == "wedge"
 
 
 def test_the_commands_that_can_model_a_wedge_take_it(run, tmp_path):
@@ -161,13 +163,11 @@ def test_the_commands_that_can_model_a_wedge_take_it(run, tmp_path):
     assert run("report", str(path), "--output", str(out)).code == 0
 
 
-@pytest.mark.parametrize("command", ["section", "scan-plan"])
-def test_a_water_path_and_focus_are_refused_where_they_cannot_be_modelled(run, tmp_path, command):
+def test_a_water_path_and_focus_are_refused_where_they_cannot_be_modelled(run, tmp_path):
     path, _ = _saved(run, tmp_path, "beam", *IMMERSION, "--far-field-only")
-    extra = ("--from", "10mm", "--to", "20mm") if command == "scan-plan" else ()
-    line = _one_line_refusal(run(command, "--setup", str(path), *extra))
+    line = _one_line_refusal(run("section", "--setup", str(path)))
     assert "a water path and a focus (--water-path 40mm, --focus 60mm)" in line
-    assert line.endswith("use beam or report with this setup")
+    assert line.endswith("use across, axis, beam, index-step, map or report with this setup")
 
 
 def test_options_that_do_not_change_the_beam_only_warn(run, tmp_path):
@@ -198,16 +198,16 @@ def test_commands_without_setup_files_refuse_them(run, tmp_path, args, words):
 def test_scan_plan_round_trip(run, tmp_path):
     args = ("--from", "20mm", "--to", "60mm", "--count", "4", "--level", "12", "--json")
     path, first = _saved(
-        run, tmp_path, "scan-plan", *DISC, "--one-way", "--bandwidth", "0.3", *args
+        run, tmp_path, "index-step", *DISC, "--one-way", "--bandwidth", "0.3", *args
     )
-    again = run("scan-plan", "--setup", str(path), *args)
+    again = run("index-step", "--setup", str(path), *args)
     assert again.code == 0, again.stderr
     assert again.json() == first.json()
 
 
 def test_scan_plan_far_field_inside_the_near_field_is_marked(run):
     r = run(
-        "scan-plan",
+        "index-step",
         *DISC,
         "--from",
         "10mm",
@@ -234,36 +234,38 @@ def test_scan_plan_far_field_inside_the_near_field_is_marked(run):
     assert data["governing_far_field_valid"] is False
     warning = "depths 10 mm to 20 mm lie inside the near field (20.82 mm)"
     assert warning in r.stderr and any(warning in w for w in data["warnings"])
-    table = run("scan-plan", *DISC, "--from", "10mm", "--to", "50mm", "--method", "far-field")
+    table = run("index-step", *DISC, "--from", "10mm", "--to", "50mm", "--method", "far-field")
     assert "* inside the near field (20.82 mm)" in table.stdout
     assert "narrowest width   1.22 mm *" in table.stdout
 
 
 def test_scan_plan_far_field_beyond_the_near_field_is_not_marked(run):
-    r = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--method", "far-field", "--json")
+    r = run(
+        "index-step", *DISC, "--from", "30mm", "--to", "60mm", "--method", "far-field", "--json"
+    )
     data = r.json()
     assert data["governing_far_field_valid"] is True and all(data["far_field_valid"])
     assert "near field" not in r.stderr and data["warnings"] == []
-    field = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3", "--json")
+    field = run("index-step", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3", "--json")
     assert field.json()["far_field_valid"] is None
     assert field.json()["governing_far_field_valid"] is None
 
 
 def test_scan_plan_text_is_wrapped_and_names_its_medium(run):
-    r = run("scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3")
+    r = run("index-step", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3")
     assert r.code == 0
     lines = r.stdout.splitlines()
     assert max(len(line) for line in lines) <= 100  # the width beam's table uses
-    assert lines[0] == "Scan plan for a disc element, diameter 10.00 mm, 5 MHz"
+    assert lines[0] == "Index step for a disc element, diameter 10.00 mm, 5 MHz"
     assert lines[1].startswith("Medium: reference-steel: longitudinal wave, 5920.0 m/s")
     assert "not a measured beam profile" in r.stdout
-    sonar = run("scan-plan", *SOUNDER[:10], "--from", "0.1m", "--to", "0.3m", "--count", "3")
+    sonar = run("index-step", *SOUNDER[:10], "--from", "0.1m", "--to", "0.3m", "--count", "3")
     assert "Underwater sound" in sonar.stdout
 
 
 def test_a_save_message_is_prefixed(run, tmp_path):
     _, r = _saved(
-        run, tmp_path, "scan-plan", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3"
+        run, tmp_path, "index-step", *DISC, "--from", "30mm", "--to", "60mm", "--count", "3"
     )
     assert r.stderr.strip().splitlines()[-1].startswith("beamspread: saved the setup to ")
 

@@ -1,4 +1,4 @@
-"""``beamspread section`` and ``scan-plan``: what they state, their CSV, and grazing beams."""
+"""``beamspread section`` and ``index-step``: what they state, their CSV, and grazing beams."""
 
 from __future__ import annotations
 
@@ -188,7 +188,7 @@ def test_wedge_simple_near_field_of_a_rectangle(run):
 
 def test_scan_plan_csv_is_one_row_per_depth_with_the_step(run):
     args = (
-        "scan-plan",
+        "index-step",
         *PROBE,
         "--material",
         "water",

@@ -27,7 +27,7 @@ _COMMANDS = {
     "materials": "beamspread.cli.materials:materials",
     "plugins": "beamspread.cli.plugins:plugins",
     "report": "beamspread.cli.report:report",
-    "scan-plan": "beamspread.cli.scan:scan_plan",
+    "index-step": "beamspread.cli.indexstep:index_step",
     "section": "beamspread.cli.section:section",
     "size": "beamspread.cli.size:size",
 }

@@ -11,18 +11,14 @@ import click
 from .options import (
     check_plot,
     emit_warnings,
-    field_options,
-    field_settings,
-    make_probe,
-    medium_options,
+    load_registry,
     output_options,
     pass_output,
     plot_option,
-    probe_options,
-    resolve_wave,
 )
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
+from .techniqueargs import technique_from, technique_options
 
 
 def _caption(probe, wave, settings, mode):
@@ -47,47 +43,64 @@ MAX_PROFILE_POINTS = 100_000
 MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in bounded blocks
 
 
-def _setup(
-    *,
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
-):
-    """What the probe, medium and field options of a field command describe."""
-    probe = make_probe(diameter, length, width, frequency)
-    settings = field_settings(bandwidth, spectrum, frequency_count)
-    resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
-    mode = "one-way" if pulse_echo is False else "pulse-echo"
-    return probe, settings, resolved.wave, mode, resolved.warnings
+def _setup(options):
+    """The technique the options describe, computed: (result, its pulse, the warnings).
+
+    The field commands read the beam in the part through the result's
+    :class:`beamspread.source.FieldSource`: the element itself in contact, the
+    virtual element on a wedge (along the sound path), the element in the
+    couplant at the water-equivalent range behind a water path, focused or not.
+    """
+    from ..pipeline import compute
+
+    technique = technique_from(options)
+    registry = load_registry(options["materials_dirs"]) if technique.names_a_medium else None
+    result = compute(technique, registry=registry)
+    return result, result.settings, list(result.warnings)
 
 
-def _near_fields(probe, wavelength):
+def _reference_length(result) -> float:
+    """The near field the default ranges are scaled by, in the part's coordinate (m)."""
+    beam, source = result.beam, result.source
+    if beam.near_field_simple is not None:
+        return beam.near_field_simple
+    element = source.element
+    return element.longest_side**2 * element.frequency / (4 * source.speed)
+
+
+def _last_maximum(result, settings, mode):
+    """The pulse's last on-axis maximum in the part's coordinate (m), None where none."""
     import math
 
-    from ..axis import disc_near_field, rectangle_near_field, simple_near_field
-    from ..probes import Disc
+    from ..field import last_maximum
 
-    simple = float(simple_near_field(probe.longest_side, wavelength))
-    if isinstance(probe, Disc):
-        exact = float(disc_near_field(probe.diameter, wavelength))
-    else:
-        exact = rectangle_near_field(probe.length, probe.width, wavelength)
-    return (None if math.isnan(exact) else exact), simple
+    source = result.source
+    if source.focus is not None:
+        return None
+    found = last_maximum(
+        source.element,
+        source.speed,
+        bandwidth=settings.bandwidth,
+        mode=mode,
+        frequencies=settings.frequencies,
+        spectrum=settings.spectrum,
+    )
+    if math.isnan(found) or found <= source.start:
+        return None
+    return (found - source.start) / source.stretch
 
 
-def _check_plane(probe, plane: str) -> str:
-    names = [name for name, _ in probe.planes]
+def _note(data: dict, result) -> dict:
+    """``data`` with the technique's coupling and coordinate added (beyond contact)."""
+    from ..report.resultjson import source_to_dict
+
+    if result.coupling != "contact" or result.focused:
+        data["source"] = source_to_dict(result)
+    return data
+
+
+def _check_plane(source, plane: str) -> str:
+    names = list(source.planes)
     if plane not in names:
         raise click.BadParameter(
             f"{plane!r} is not a plane of this probe; use {' or '.join(names)}",
@@ -126,18 +139,16 @@ def _check_validity(warnings, start, near_simple):
 
 
 @click.command()
-@probe_options
-@medium_options
+@technique_options
 @click.option(
     "--from",
     "start",
     type=LENGTH,
     default=None,
-    help="First depth (default 0.05 N, N = D²/4λ or L²/4λ).",
+    help="First depth (on a wedge: sound path) (default 0.05 N, N = D²/4λ or L²/4λ in the part).",
 )
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
-@field_options
 @plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
@@ -151,24 +162,17 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     """
     import numpy as np
 
-    from ..field import axial_profile, last_maximum
-
     check_plot(plot_path, force_plot)
-    probe, settings, medium, mode, warnings = _setup(**common)
-    near, simple = _near_fields(probe, medium.speed / probe.frequency)
+    result, settings, warnings = _setup(common)
+    probe, medium, mode = result.technique.element, result.beam.wave, result.mode
+    near, simple = result.beam.near_field, _reference_length(result)
     start = 0.05 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
     _check_range(start, stop, points, "axis")
-    _check_validity(warnings, start, simple)
-    kwargs = {
-        "bandwidth": settings.bandwidth,
-        "mode": mode,
-        "frequencies": settings.frequencies,
-        "spectrum": settings.spectrum,
-    }
-    profile = axial_profile(probe, medium.speed, np.linspace(start, stop, points), **kwargs)
-    axial = last_maximum(probe, medium.speed, **kwargs)
-    axial = None if np.isnan(axial) else axial
+    if result.coupling == "contact" and not result.focused:
+        _check_validity(warnings, start, simple)
+    profile = result.source.axial(np.linspace(start, stop, points), mode, settings)
+    axial = _last_maximum(result, settings, mode)
     if plot_path is not None:
         from ..render.plots import plot_axis
 
@@ -185,11 +189,8 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     if fmt == "json":
         from ..report.serialize import axial_to_dict, dumps
 
-        click.echo(
-            dumps(
-                axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
-            )
-        )
+        data = axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
+        click.echo(dumps(_note(data, result)))
     elif fmt == "csv":
         from ..report.serialize import axial_to_csv
 
@@ -201,14 +202,19 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
 
 
 @click.command()
-@probe_options
-@medium_options
-@click.option("--depth", type=LENGTH, required=True, help="Depth of the profile.")
+@technique_options
+@click.option(
+    "--depth",
+    type=LENGTH,
+    required=True,
+    help="Depth of the profile below the surface (on a wedge, on the first leg).",
+)
 @click.option(
     "--plane",
     default=None,
     metavar="NAME",
-    help="diameter (disc), length or width (rectangle); default every plane.",
+    help="diameter (disc), length or width (rectangle), incidence or transverse (a disc "
+    "on a wedge); default every plane.",
 )
 @click.option(
     "--span",
@@ -225,7 +231,6 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     multiple=True,
     help="Levels for the widths (dB below the maximum at this depth); default 6 and 20.",
 )
-@field_options
 @plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
@@ -247,32 +252,27 @@ def across(
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
-    from ..beam import DEFAULT_LEVELS
-    from ..field import beam_widths, transverse_profile
-
     check_plot(plot_path, force_plot)
-    probe, settings, medium, mode, warnings = _setup(**common)
-    chosen = [_check_plane(probe, plane)] if plane else [name for name, _ in probe.planes]
-    _, simple = _near_fields(probe, medium.speed / probe.frequency)
-    _check_validity(warnings, depth, simple)
-    wavelength = medium.speed / probe.frequency
-    kwargs = {
-        "bandwidth": settings.bandwidth,
-        "mode": mode,
-        "frequencies": settings.frequencies,
-        "spectrum": settings.spectrum,
-    }
+    result, settings, warnings = _setup(common)
+    probe, medium, mode, source = (
+        result.technique.element,
+        result.beam.wave,
+        result.mode,
+        result.source,
+    )
+    chosen = [_check_plane(source, plane)] if plane else list(source.planes)
+    if result.coupling == "contact" and not result.focused:
+        _check_validity(warnings, depth, _reference_length(result))
+    wavelength = source.speed / source.element.frequency
+    at = source.coordinate_of_depth(depth)
+    distance = float(source.ranges(at))
     profiles, widths = [], {}
     for name in chosen:
-        aperture = dict(probe.planes)[name]
-        half = span if span is not None else max(aperture, 4 * wavelength * depth / aperture)
+        aperture = dict(source.element.planes)[source.element_plane(name)]
+        half = span if span is not None else max(aperture, 4 * wavelength * distance / aperture)
         offsets = np.linspace(-half, half, points)
-        profiles.append(
-            transverse_profile(probe, medium.speed, depth, offsets, plane=name, **kwargs)
-        )
-        widths[name] = beam_widths(
-            probe, medium.speed, depth, levels or DEFAULT_LEVELS, plane=name, **kwargs
-        )
+        profiles.append(source.across(at, offsets, name, mode, settings))
+        widths[name] = source.widths(at, levels or result.technique.levels, name, mode, settings)
     if plot_path is not None:
         from ..render.plots import plot_across
 
@@ -288,9 +288,8 @@ def across(
     if fmt == "json":
         from ..report.serialize import across_to_dict, dumps
 
-        click.echo(
-            dumps(across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings))
-        )
+        data = across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings)
+        click.echo(dumps(_note(data, result)))
     elif fmt == "csv":
         from ..report.serialize import across_to_csv
 
@@ -317,15 +316,21 @@ def _write_atomically(path: Path, write) -> None:
 
 
 @click.command("map")
-@probe_options
-@medium_options
+@technique_options
 @click.option(
     "--plane",
     default=None,
     metavar="NAME",
-    help="diameter (disc), length or width (rectangle); default the first.",
+    help="diameter (disc), length or width (rectangle); on a wedge the incidence plane "
+    "of a disc; default the first.",
 )
-@click.option("--from", "start", type=LENGTH, default=None, help="First depth (default 0.1 N).")
+@click.option(
+    "--from",
+    "start",
+    type=LENGTH,
+    default=None,
+    help="First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+)
 @click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @click.option(
     "--span",
@@ -336,7 +341,6 @@ def _write_atomically(path: Path, write) -> None:
 )
 @_points_option(256, 16384, "--depth-points", "Number of depths")
 @_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
-@field_options
 @click.option(
     "--output",
     "-o",
@@ -384,8 +388,6 @@ def map_(
     """
     import numpy as np
 
-    from ..field import field_map
-
     target = None
     if output is not None:
         target = Path(output)
@@ -408,44 +410,35 @@ def map_(
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
         )
     check_plot(plot_path, force)
-    probe, settings, medium, mode, warnings = _setup(**common)
-    plane = _check_plane(probe, plane or probe.planes[0][0])
-    _, simple = _near_fields(probe, medium.speed / probe.frequency)
+    computed, settings, warnings = _setup(common)
+    probe, medium, mode = computed.technique.element, computed.beam.wave, computed.mode
+    source = computed.source
+    plane = _check_plane(source, plane or source.planes[0])
+    simple = _reference_length(computed)
     start = 0.1 * simple if start is None else start
     stop = 3.0 * simple if stop is None else stop
     _check_range(start, stop, depth_points, "map")
-    _check_validity(warnings, start, simple)
-    aperture = dict(probe.planes)[plane]
-    wavelength = medium.speed / probe.frequency
-    half = span if span is not None else max(aperture, 4 * wavelength * stop / aperture)
-    result = field_map(
-        probe,
-        medium.speed,
+    if computed.coupling == "contact" and not computed.focused:
+        _check_validity(warnings, start, simple)
+    aperture = dict(source.element.planes)[source.element_plane(plane)]
+    wavelength = source.speed / source.element.frequency
+    far = float(source.ranges(stop))
+    half = span if span is not None else max(aperture, 4 * wavelength * far / aperture)
+    result = source.map(
         np.linspace(-half, half, lateral_points),
         np.linspace(start, stop, depth_points),
-        plane=plane,
-        bandwidth=settings.bandwidth,
-        mode=mode,
-        frequencies=settings.frequencies,
-        spectrum=settings.spectrum,
+        plane,
+        mode,
+        settings,
     )
     if plot_path is not None:
-        from ..field import last_maximum
         from ..render.plots import plot_map
 
-        # The near field is known for every probe (the continuous-wave last on-axis maximum);
-        # a pulse's own last on-axis maximum, where the map's beam is strongest, is marked too.
-        near, _ = _near_fields(probe, wavelength)
-        pulse_maximum = None
-        if settings.bandwidth > 0:
-            pulse_maximum = last_maximum(
-                probe,
-                medium.speed,
-                bandwidth=settings.bandwidth,
-                mode=mode,
-                frequencies=settings.frequencies,
-                spectrum=settings.spectrum,
-            )
+        # The near field in the part (the continuous-wave last on-axis maximum) is marked
+        # where there is one; a pulse's own last on-axis maximum, where the map's beam is
+        # strongest, too.
+        near = computed.beam.near_field
+        pulse_maximum = _last_maximum(computed, settings, mode) if settings.bandwidth > 0 else None
         plot_map(
             result,
             plot_path,
@@ -464,9 +457,8 @@ def map_(
 
     def text(kind):
         if kind == ".json":
-            return serialize.dumps(
-                serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
-            )
+            data = serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
+            return serialize.dumps(_note(data, computed))
         return serialize.map_to_csv(result)
 
     if target is None:

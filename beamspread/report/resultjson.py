@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from typing import Any
 
 from .serialize import beam_to_dict, conditions_to_dict, setup_to_dict, sonar_to_dict
@@ -43,3 +44,25 @@ def result_to_dict(result) -> dict[str, Any]:
         }
     data["warnings"] = list(result.warnings)
     return data
+
+
+def source_to_dict(result) -> dict[str, Any]:
+    """Where a field command's profile or map lies in the part, beyond a flat contact probe.
+
+    The computed field is that of ``element`` radiating into the medium of
+    ``speed_m_s``; the coordinate (a depth, or a sound path along the refracted
+    axis) ``c`` lies at the range ``start_m + stretch * c`` from it.
+    """
+    from .serialize import probe_to_dict
+
+    s = result.source
+    return {
+        "coupling": str(result.coupling),
+        "coordinate": s.coordinate,
+        "element": probe_to_dict(s.element),
+        "speed_m_s": s.speed,
+        "start_m": s.start,
+        "stretch": s.stretch,
+        "focus_m": s.focus,
+        "refracted_deg": math.degrees(s.refracted),
+    }

@@ -617,7 +617,7 @@ SCAN_PLAN_CSV_COLUMNS = (
 
 
 def scan_plan_to_csv(plan, mode: str) -> str:
-    """CSV of ``beamspread scan-plan``: one row per depth considered (SI units).
+    """CSV of ``beamspread index-step``: one row per depth considered (SI units).
 
     Each row gives the width there, whether a far-field width holds there
     (empty for computed widths), whether it is the narrowest that sets the

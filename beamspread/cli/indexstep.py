@@ -1,27 +1,17 @@
-"""``beamspread scan-plan``: the largest index step that keeps an overlap over a depth range."""
+"""``beamspread index-step``: the largest index step that keeps an overlap over a depth range."""
 
 from __future__ import annotations
 
 import click
 
-from .options import (
-    emit_warnings,
-    field_options,
-    field_settings,
-    make_probe,
-    medium_options,
-    output_options,
-    pass_output,
-    probe_options,
-    resolve_wave,
-)
+from .options import emit_warnings, load_registry, output_options, pass_output
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
+from .techniqueargs import technique_from, technique_options
 
 
-@click.command("scan-plan")
-@probe_options
-@medium_options
+@click.command("index-step")
+@technique_options
 @click.option("--from", "start", type=LENGTH, required=True, help="Shallowest depth to cover.")
 @click.option("--to", "stop", type=LENGTH, required=True, help="Deepest depth to cover.")
 @click.option(
@@ -58,21 +48,10 @@ from .setupargs import setup_file_options
     show_default=True,
     help="Depths sampled over the range (the narrowest is then refined).",
 )
-@field_options
 @setup_file_options
 @output_options
 @pass_output
-def scan_plan(
-    diameter,
-    length,
-    width,
-    frequency,
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
+def index_step(
     start,
     stop,
     overlap,
@@ -80,14 +59,11 @@ def scan_plan(
     plane,
     method,
     count,
-    bandwidth,
-    spectrum,
-    frequency_count,
-    pulse_echo,
     setup_path,
     save_path,
     fmt,
     units,
+    **options,
 ):
     """The largest scan index step that keeps the overlap over a depth range.
 
@@ -96,50 +72,34 @@ def scan_plan(
     (1 - overlap), so neighbouring passes overlap by at least the fraction
     asked for at every depth covered.
     """
-    from ..scan import parse_overlap, plan_scan_for
+    from ..pipeline import compute
+    from ..scan import index_step as plan_index_step
+    from ..scan import parse_overlap
     from ..units import format_length
 
     if stop <= start:
         raise click.UsageError(
-            f"scan-plan: --to ({stop * 1e3:g} mm) must lie beyond --from ({start * 1e3:g} mm)"
+            f"index-step: --to ({stop * 1e3:g} mm) must lie beyond --from ({start * 1e3:g} mm)"
         )
     fraction = parse_overlap(overlap)
-    probe = make_probe(diameter, length, width, frequency)
-    settings = field_settings(bandwidth, spectrum, frequency_count)
-    resolved = resolve_wave(material, wave, speed, temperature, conditions, materials_dirs)
-    mode = "one-way" if pulse_echo is False else "pulse-echo"
-    extra = (
-        {
-            "bandwidth": settings.bandwidth,
-            "frequencies": settings.frequencies,
-            "spectrum": settings.spectrum,
-        }
-        if method == "field"
-        else {}
+    technique = technique_from(options, levels=[level])
+    registry = load_registry(options["materials_dirs"]) if technique.names_a_medium else None
+    result = compute(technique, registry=registry)
+    probe, mode = technique.element, result.mode
+    plan = plan_index_step(
+        result, start, stop, fraction, count=count, level_db=level, plane=plane, method=method
     )
-    plan = plan_scan_for(
-        probe,
-        resolved.wave.speed,
-        start,
-        stop,
-        fraction,
-        count=count,
-        level_db=level,
-        plane=plane,
-        method=method,
-        mode=mode,
-        **extra,
-    )
-    warnings = [*resolved.warnings, *plan.warnings]
+    warnings = list(dict.fromkeys([*result.warnings, *plan.warnings]))
     emit_warnings(warnings)
     if fmt == "json":
+        from ..report.resultjson import source_to_dict
         from ..report.serialize import dumps, probe_to_dict, wave_to_dict
 
         click.echo(
             dumps(
                 {
                     "probe": probe_to_dict(probe),
-                    "medium": wave_to_dict(resolved.wave),
+                    "medium": wave_to_dict(result.beam.wave),
                     "index_step_m": plan.index_step,
                     "governing_depth_m": plan.governing_depth,
                     "governing_width_m": plan.governing_width,
@@ -157,6 +117,7 @@ def scan_plan(
                     ),
                     "rule": plan.rule,
                     "warnings": warnings,
+                    **({} if result.setup is None else {"source": source_to_dict(result)}),
                 }
             )
         )
@@ -170,11 +131,11 @@ def scan_plan(
 
     from ..report.text import caution_for, columns, medium_and_probe_lines
 
-    wave = resolved.wave
+    wave = result.beam.wave
     mark = " *" if plan.governing_far_field_valid is False else ""
     near = "none" if plan.near_field is None else format_length(plan.near_field, units)
     lines = [
-        *medium_and_probe_lines(probe, wave, units, lead="Scan plan for a"),
+        *medium_and_probe_lines(probe, wave, units, lead="Index step for a"),
         *textwrap.wrap(
             f"Depths {format_length(start, units)} to {format_length(stop, units)}; "
             f"-{abs(level):g} dB {mode} width ({plan.method}), plane {plan.plane}; overlap "
