@@ -331,7 +331,8 @@ def beam(
         _plot(plot_path, result, sr, units)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import beam_to_dict, dumps, sonar_to_dict
+        from ..render.serialize.beam import beam_to_dict, sonar_to_dict
+        from ..render.serialize.common import dumps
 
         data = beam_to_dict(result)
         from .setup import _part_speeds
@@ -343,7 +344,7 @@ def beam(
         data.update(sonar_to_dict(result, di, absorption, figures, sr.budgets, sonar))
         click.echo(dumps(data))
     elif fmt == "csv":
-        from ..report.serialize import beam_to_csv
+        from ..render.serialize.beam import beam_to_csv
 
         if figures is not None:
             click.echo(
@@ -353,7 +354,7 @@ def beam(
             )
         click.echo(beam_to_csv(result, figures.footprints if figures else ()), nl=False)
     else:
-        from ..report.text import beam_table
+        from ..render.text.beam import beam_table
 
         click.echo(beam_table(result, units, **sr.table_options(sonar)))
 

@@ -26,7 +26,7 @@ from .setupargs import setup_file_options
 
 
 def _caption(probe, wave, settings, mode):
-    from ..report.text import field_description
+    from ..render.text.common import field_description
 
     size = (
         f"disc {probe.diameter * 1e3:g} mm"
@@ -183,7 +183,8 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import axial_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.field import axial_to_dict
 
         click.echo(
             dumps(
@@ -191,11 +192,11 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
             )
         )
     elif fmt == "csv":
-        from ..report.serialize import axial_to_csv
+        from ..render.serialize.field import axial_to_csv
 
         click.echo(axial_to_csv(profile), nl=False)
     else:
-        from ..report.text import axial_table
+        from ..render.text.field import axial_table
 
         click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial, units))
 
@@ -286,17 +287,18 @@ def across(
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import across_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.field import across_to_dict
 
         click.echo(
             dumps(across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings))
         )
     elif fmt == "csv":
-        from ..report.serialize import across_to_csv
+        from ..render.serialize.field import across_to_csv
 
         click.echo(across_to_csv(profiles), nl=False)
     else:
-        from ..report.text import across_table
+        from ..render.text.field import across_table
 
         click.echo(across_table(probe, medium, settings, mode, depth, profiles, widths, units))
 
@@ -460,13 +462,12 @@ def map_(
             emit_warnings(warnings)
             return
     emit_warnings(warnings)
-    from ..report import serialize
+    from ..render.serialize import field as serialize
+    from ..render.serialize.common import dumps
 
     def text(kind):
         if kind == ".json":
-            return serialize.dumps(
-                serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
-            )
+            return dumps(serialize.map_to_dict(probe, medium, settings, mode, result, warnings))
         return serialize.map_to_csv(result)
 
     if target is None:

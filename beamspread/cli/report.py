@@ -63,7 +63,8 @@ def report(setup_file, output, force, units):
 def _compute(p, units):
     """The analysis a setup stands for: the text, the result, and what the map needs."""
     from ..beam import DEFAULT_LEVELS, analyse
-    from ..report.text import beam_table, setup_lines
+    from ..render.text.beam import beam_table
+    from ..render.text.setup import setup_lines
     from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
     from .options import field_settings, make_probe, resolve_wave
 
@@ -234,8 +235,8 @@ def _page(setup, text, result, view, geometry, units, warnings, *, name="the set
     the space left below it, each picture with its legend in a strip of its
     own beneath, the strips and the section sized to what they hold.
     """
+    from ..render.text.common import CAUTION
     from ..report import plots
-    from ..report.text import CAUTION
     from .beam import caption_of
 
     fig = plots.new_figure(A4, caption=caption_of(result))
@@ -354,7 +355,7 @@ def _fit_width(lines: list[str], width: int = PAGE_COLUMNS) -> list[str]:
 def _compact_budgets(body: list[str], budgets, units: str) -> list[str]:
     """``body`` with beam's echo budget (five rows per range) set as one row per range,
     each term's formula given once below; the same figures in fewer lines."""
-    from ..report.text import columns
+    from ..render.text.common import columns
     from ..units import format_length
 
     start = next((i for i, line in enumerate(body) if line.startswith("Echo budget of")), None)

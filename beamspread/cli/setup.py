@@ -128,8 +128,8 @@ def run_setup(
             mode=mode,
             field=settings,
         )
-        from ..report.serialize import conditions_to_dict
-        from ..report.text import conditions_text
+        from ..render.serialize.common import conditions_to_dict
+        from ..render.text.common import conditions_text
 
         extra = {
             "couplant": {
@@ -150,7 +150,9 @@ def run_setup(
         _plot(plot_path, result, settings, thickness, depths, units)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import beam_to_dict, dumps, setup_to_dict
+        from ..render.serialize.beam import beam_to_dict
+        from ..render.serialize.common import dumps
+        from ..render.serialize.setup import setup_to_dict
 
         data = beam_to_dict(result.beam)
         data["medium"]["longitudinal_m_s"] = c_long
@@ -160,11 +162,12 @@ def run_setup(
         data["warnings"] = warnings
         click.echo(dumps(data))
     elif fmt == "csv":
-        from ..report.serialize import beam_to_csv
+        from ..render.serialize.beam import beam_to_csv
 
         click.echo(beam_to_csv(result.beam), nl=False)
     else:
-        from ..report.text import beam_table, setup_lines
+        from ..render.text.beam import beam_table
+        from ..render.text.setup import setup_lines
 
         table = beam_table(result.beam, units).split("\n")
         head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines

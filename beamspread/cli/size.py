@@ -147,14 +147,15 @@ def size(
         )
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import design_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.design import design_to_dict
 
         click.echo(dumps(design_to_dict(found, resolved.wave, warnings)))
     elif fmt == "csv":
-        from ..report.serialize import design_to_csv
+        from ..render.serialize.design import design_to_csv
 
         click.echo(design_to_csv(found, resolved.wave), nl=False)
     else:
-        from ..report.text import design_table
+        from ..render.text.design import design_table
 
         click.echo(design_table(found, resolved.wave, units))

@@ -28,7 +28,7 @@ class SonarResults:
     budgets: list | None
 
     def table_options(self, sonar: bool) -> dict[str, Any]:
-        """The keyword arguments of :func:`beamspread.report.text.beam_table`.
+        """The keyword arguments of :func:`beamspread.render.text.beam.beam_table`.
 
         The directivity index and the absorption are shown with the sonar
         figures only: they belong to sonar work.
