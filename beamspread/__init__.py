@@ -74,15 +74,11 @@ if TYPE_CHECKING:
     )
     from .scan import ScanPlan, plan_scan
     from .setups import critical_angles, refract
-    from .sonar import (
-        EchoBudget,
-        SonarFigures,
-        directivity_index,
-        echo_budget,
-        equivalent_beam_angle,
-        footprint_width,
-        sonar_figures,
-    )
+    from .sonar.beam_angle import equivalent_beam_angle
+    from .sonar.directivity import directivity_index
+    from .sonar.echo import EchoBudget, echo_budget
+    from .sonar.figures import SonarFigures, sonar_figures
+    from .sonar.footprint import footprint_width
 
 __version__ = "0.1.0"
 
@@ -186,13 +182,13 @@ _LAZY = {
     "plan_scan": "scan",
     "critical_angles": "setups",
     "refract": "setups",
-    "EchoBudget": "sonar",
-    "SonarFigures": "sonar",
-    "directivity_index": "sonar",
-    "echo_budget": "sonar",
-    "equivalent_beam_angle": "sonar",
-    "footprint_width": "sonar",
-    "sonar_figures": "sonar",
+    "EchoBudget": "sonar.echo",
+    "SonarFigures": "sonar.figures",
+    "directivity_index": "sonar.directivity",
+    "echo_budget": "sonar.echo",
+    "equivalent_beam_angle": "sonar.beam_angle",
+    "footprint_width": "sonar.footprint",
+    "sonar_figures": "sonar.figures",
 }
 
 

@@ -32,9 +32,12 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from . import axis, pattern, sonar
+from . import axis, pattern
 from .errors import InputError
 from .probes import Rectangle
+from .sonar.conventions import SONAR_MODE
+from .sonar.directivity import directivity_index, disc_directivity_factor
+from .sonar.footprint import footprint_width
 from .units import length_text as _mm
 from .units import parse_level
 
@@ -67,7 +70,7 @@ class Design:
     near_field : float or ndarray
         The last on-axis maximum, m; NaN where the element is too small to have one.
     directivity_index_db : float or ndarray
-        :func:`beamspread.sonar.directivity_index` of the solution.
+        :func:`beamspread.sonar.directivity.directivity_index` of the solution.
     depth : float or ndarray
         The depth of the footprint, m (NaN where none was asked for).
     footprint_width : float or ndarray
@@ -192,7 +195,7 @@ def _spot_message(depth, spot_w, solution, near, smallest) -> str:
 
 
 def _disc_di(diameter, wavelength):
-    return 10.0 * np.log10(sonar.disc_directivity_factor(diameter, wavelength))
+    return 10.0 * np.log10(disc_directivity_factor(diameter, wavelength))
 
 
 def _finish(
@@ -218,7 +221,7 @@ def _finish(
     theta = np.where(impossible, np.nan, theta)
     near = np.where(impossible, np.nan, near)
     di = np.where(impossible, np.nan, di)
-    width = sonar.footprint_width(depth, theta)
+    width = footprint_width(depth, theta)
     with np.errstate(invalid="ignore"):
         far = np.isfinite(depth) & (np.isnan(near) | (depth >= near)) & ~impossible
     half_deg = np.degrees(theta)
@@ -245,7 +248,7 @@ def _finish(
     )
 
 
-def smallest_spot(frequency, speed, depth, *, level_db=3.0, mode: str = sonar.SONAR_MODE):
+def smallest_spot(frequency, speed, depth, *, level_db=3.0, mode: str = SONAR_MODE):
     """The smallest far-field spot (m) a disc can give at ``depth`` and ``frequency``.
 
     A larger disc gives a narrower cone but a longer near field; the narrowest
@@ -277,7 +280,7 @@ def size_disc(
     spot=None,
     depth=None,
     level_db=3.0,
-    mode: str = sonar.SONAR_MODE,
+    mode: str = SONAR_MODE,
     on_impossible: str = "raise",
 ) -> Design:
     """The disc diameter that gives a target beam at a frequency.
@@ -368,7 +371,7 @@ def size_frequency(
     spot=None,
     depth=None,
     level_db=3.0,
-    mode: str = sonar.SONAR_MODE,
+    mode: str = SONAR_MODE,
     on_impossible: str = "raise",
 ) -> Design:
     """The frequency at which a disc of ``diameter`` (m) gives a target beam.
@@ -435,7 +438,7 @@ def size_rectangle_side(
     spot=None,
     depth=None,
     level_db=3.0,
-    mode: str = sonar.SONAR_MODE,
+    mode: str = SONAR_MODE,
     on_impossible: str = "raise",
 ) -> Design:
     """One side of a rectangle that gives a target beam in its plane, the other side given.
@@ -473,7 +476,7 @@ def size_rectangle_side(
     di = np.empty(side.shape)
     for i in np.ndindex(side.shape):
         near[i] = axis.rectangle_near_field(side[i], other[i], wavelength[i])
-        di[i] = sonar.directivity_index(Rectangle(side[i], other[i], frequency[i]), wavelength[i])
+        di[i] = directivity_index(Rectangle(side[i], other[i], frequency[i]), wavelength[i])
     impossible = _inside_near_field(kind, depth, near)
     if on_impossible == "raise" and np.any(impossible):
         i = np.flatnonzero(impossible)[0]

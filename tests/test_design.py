@@ -142,7 +142,7 @@ def test_one_target_only():
 def test_footprint_and_directivity_of_an_angle_solution():
     # The footprint of the solved cone at a depth is 2 z tan(half) (geometry), and the DI is
     # that of the solved disc.
-    from beamspread.sonar import directivity_index
+    from beamspread.sonar.directivity import directivity_index
 
     solved = design.size_disc(200e3, 1500.0, full_angle_deg=20.0, depth=30.0)
     assert solved.footprint_width == pytest.approx(2 * 30.0 * math.tan(math.radians(10.0)))

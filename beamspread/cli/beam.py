@@ -227,7 +227,7 @@ def beam(
           --temperature 12 --condition depth=30m --one-way --level 3
     """
     from ..beam import DEFAULT_LEVELS, analyse
-    from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
+    from ..sonar.conventions import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
 
     probe = make_probe(diameter, length, width, frequency)
     depths = [d for group in depth_groups for d in group]

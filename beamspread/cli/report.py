@@ -65,7 +65,7 @@ def _compute(p, units):
     from ..beam import DEFAULT_LEVELS, analyse
     from ..render.text.beam import beam_table
     from ..render.text.setup import setup_lines
-    from ..sonar import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
+    from ..sonar.conventions import SONAR_BANDWIDTH, SONAR_LEVELS_SHOWN, SONAR_MODE
     from .options import field_settings, make_probe, resolve_wave
 
     probe = make_probe(p["diameter"], p["length"], p["width"], p["frequency"])

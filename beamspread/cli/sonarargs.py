@@ -17,8 +17,8 @@ import click
 class SonarResults:
     """The sonar side of a beam: its directivity index, absorption, figures and budgets.
 
-    ``figures`` (:class:`beamspread.sonar.SonarFigures`) and ``budgets`` (one
-    :class:`beamspread.sonar.EchoBudget` per bottom depth) are None unless sonar
+    ``figures`` (:class:`beamspread.sonar.figures.SonarFigures`) and ``budgets`` (one
+    :class:`beamspread.sonar.echo.EchoBudget` per bottom depth) are None unless sonar
     work was asked for (``--sonar``, a bottom depth or a power).
     """
 
@@ -86,7 +86,7 @@ def sonar_results(
     click.UsageError
         An echo budget in a gas.
     """
-    from ..sonar import directivity_index
+    from ..sonar.directivity import directivity_index
 
     absorption = resolved.absorption(result.probe.frequency)
     if absorption is not None:
@@ -106,7 +106,8 @@ def sonar_results(
 
 def _figures(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
     """The sonar figures and, with a power, an echo budget at each bottom depth."""
-    from ..sonar import echo_budget, sonar_figures, source_level_constant
+    from ..sonar.echo import echo_budget, source_level_constant
+    from ..sonar.figures import sonar_figures
 
     alpha = None if absorption is None else absorption.db_per_km
     figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)

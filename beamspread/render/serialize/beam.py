@@ -92,7 +92,7 @@ def beam_to_csv(result: BeamResult, footprints=()) -> str:
 
     The first-null row and, without depths, every level row leave the depth
     columns empty. Each footprint on a flat bottom (see
-    :func:`beamspread.sonar.sonar_figures`) adds a row whose method is
+    :func:`beamspread.sonar.figures.sonar_figures`) adds a row whose method is
     "bottom footprint", its depth the water depth.
     """
     buffer = io.StringIO()
