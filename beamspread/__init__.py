@@ -63,7 +63,8 @@ from .probes import Disc, Rectangle
 
 if TYPE_CHECKING:
     from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
-    from .design import Design, size_disc, size_frequency, size_rectangle_side, smallest_spot
+    from .design.result import Design
+    from .design.solvers import size_disc, size_frequency, size_rectangle_side, smallest_spot
     from .inspection import (
         Focus,
         SetupResult,
@@ -167,11 +168,11 @@ _LAZY = {
     "air_iso9613": "absorption",
     "francois_garrison": "absorption",
     "fresh_water": "absorption",
-    "Design": "design",
-    "size_disc": "design",
-    "size_frequency": "design",
-    "size_rectangle_side": "design",
-    "smallest_spot": "design",
+    "Design": "design.result",
+    "size_disc": "design.solvers",
+    "size_frequency": "design.solvers",
+    "size_rectangle_side": "design.solvers",
+    "smallest_spot": "design.solvers",
     "Focus": "inspection",
     "SetupResult": "inspection",
     "WaterPath": "inspection",
