@@ -15,7 +15,7 @@ import numpy as np
 
 from . import axis, pattern
 from .errors import InputError
-from .media.model import Wave
+from .media.quantities import Wave
 from .probes import Disc, Probe, Rectangle, check_positive
 from .units import length_text as _mm
 from .units import parse_level

@@ -45,7 +45,7 @@ def materials() -> None:
 def _reference(medium) -> dict:
     """Longitudinal and shear speed and density for listings: constants, curve middles,
     or a computed medium at its default conditions."""
-    from ..media.model import Material
+    from ..media.material import Material
 
     if isinstance(medium, Material):
         return {
@@ -59,7 +59,7 @@ def _reference(medium) -> dict:
 
 def _describe(entry) -> dict:
     """The JSON form of a registry entry."""
-    from ..media.model import Material
+    from ..media.material import Material
     from ..render.serialize.common import conditions_to_dict
 
     m = entry.medium
@@ -177,7 +177,7 @@ def show(name, materials_dirs, as_json):
     registry = load_registry(materials_dirs)
     emit_warnings(registry.warnings)
     entry = registry.get(name)
-    from ..media.model import normalise_name
+    from ..media.quantities import normalise_name
 
     data = _describe(entry)
     data["shadows"] = [e.origin for e in registry.shadowed.get(normalise_name(entry.name), [])]

@@ -23,7 +23,7 @@ class SonarResults:
     """
 
     directivity_index_db: float
-    absorption: Any  # beamspread.media.model.Absorption, or None
+    absorption: Any  # beamspread.media.quantities.Absorption, or None
     figures: Any
     budgets: list | None
 

@@ -8,7 +8,7 @@ import json
 import math
 from typing import Any
 
-from ...media.model import Wave
+from ...media.quantities import Wave
 from ...probes import Disc
 
 _SUFFIX = {
