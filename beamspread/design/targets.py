@@ -30,6 +30,20 @@ def check_mode(mode: str) -> str:
     return mode
 
 
+def _angle(value, name: str, limit: float) -> np.ndarray:
+    """A target angle (degrees) above 0 and below ``limit``, which even a point source reaches."""
+    angle = np.asarray(value, dtype=float)
+    if np.any(~np.isfinite(angle)) or np.any(angle <= 0):
+        raise InputError(f"{name}: give an angle above 0 degrees")
+    if np.any(angle >= limit):
+        raise InputError(
+            f"{name} {np.max(angle):g} degrees is not possible: even a point source "
+            "(an element far smaller than the wavelength) only fills the half space in "
+            f"front of it, up to {limit:g} degrees {name}; ask for less than {limit:g}"
+        )
+    return angle
+
+
 def parse_target(half_angle_deg, full_angle_deg, spot, depth):
     """The target half-angle (rad), the footprint depth (m, NaN for none) and its kind."""
     given = [v is not None for v in (half_angle_deg, full_angle_deg, spot)]
@@ -42,26 +56,9 @@ def parse_target(half_angle_deg, full_angle_deg, spot, depth):
         z = positive(depth, "depth", "m")
         return np.arctan(w / (2.0 * z)), z, "spot"
     if half_angle_deg is not None:
-        half = np.asarray(half_angle_deg, dtype=float)
-        if np.any(~np.isfinite(half)) or np.any(half <= 0):
-            raise InputError("half angle: give an angle above 0 degrees")
-        if np.any(half >= 90.0):
-            raise InputError(
-                f"half angle {np.max(half):g} degrees is not possible: even a point source "
-                "(an element far smaller than the wavelength) only fills the half space in "
-                "front of it, up to 90 degrees half angle; ask for less than 90"
-            )
+        half = _angle(half_angle_deg, "half angle", 90.0)
     else:
-        full = np.asarray(full_angle_deg, dtype=float)
-        if np.any(~np.isfinite(full)) or np.any(full <= 0):
-            raise InputError("full angle: give an angle above 0 degrees")
-        if np.any(full >= 180.0):
-            raise InputError(
-                f"full angle {np.max(full):g} degrees is not possible: even a point source "
-                "(an element far smaller than the wavelength) only fills the half space in "
-                "front of it, up to 180 degrees full angle; ask for less than 180"
-            )
-        half = 0.5 * full
+        half = 0.5 * _angle(full_angle_deg, "full angle", 180.0)
     z = np.nan if depth is None else positive(depth, "depth", "m")
     return np.radians(half), np.asarray(z, dtype=float), "angle"
 

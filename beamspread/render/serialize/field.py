@@ -100,17 +100,24 @@ def across_to_csv(profiles) -> str:
     return _csv(("plane", "offset_m", "amplitude", "level_db"), rows)
 
 
+def _map_head(probe, wave, settings, mode, field_map) -> dict[str, Any]:
+    """What a map's JSON and its ``.npz`` metadata both start with: what was computed, and how."""
+    return {
+        "probe": probe_to_dict(probe),
+        "medium": wave_to_dict(wave),
+        "field": field_settings_to_dict(settings, mode),
+        "plane": field_map.plane,
+        "amplitude_unit": amplitude_unit(mode),
+        "level_reference": "dB relative to the largest amplitude of the map",
+    }
+
+
 def map_to_dict(probe, wave, settings, mode, field_map, warnings) -> dict[str, Any]:
     """The JSON form of ``beamspread map``: amplitude[i][j] at depth_m[i], lateral_m[j]."""
     peak = float(field_map.amplitude.max())
     return _clean(
-        {
-            "probe": probe_to_dict(probe),
-            "medium": wave_to_dict(wave),
-            "field": field_settings_to_dict(settings, mode),
-            "plane": field_map.plane,
-            "amplitude_unit": amplitude_unit(mode),
-            "level_reference": "dB relative to the largest amplitude of the map",
+        _map_head(probe, wave, settings, mode, field_map)
+        | {
             "depth_m": field_map.depth.tolist(),
             "lateral_m": field_map.lateral.tolist(),
             "amplitude": field_map.amplitude.astype(float).tolist(),
@@ -142,14 +149,7 @@ def map_to_npz(path, probe, wave, settings, mode, field_map) -> None:
     peak = float(field_map.amplitude.max())
     with np.errstate(divide="ignore"):
         level = (20.0 * np.log10(field_map.amplitude / peak)).astype(np.float32)
-    meta = {
-        "probe": probe_to_dict(probe),
-        "medium": wave_to_dict(wave),
-        "field": field_settings_to_dict(settings, mode),
-        "plane": field_map.plane,
-        "amplitude_unit": amplitude_unit(mode),
-        "level_reference": "dB relative to the largest amplitude of the map",
-    }
+    meta = _map_head(probe, wave, settings, mode, field_map)
     np.savez_compressed(
         path,
         depth_m=field_map.depth,
