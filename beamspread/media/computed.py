@@ -8,14 +8,7 @@ from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 
 from ..errors import InputError, MaterialError
-from .quantities import (
-    NAME_PATTERN,
-    STATES,
-    Absorption,
-    Parameter,
-    Wave,
-    check_wave,
-)
+from .quantities import NAME_PATTERN, STATES, Absorption, Parameter, Wave, check_wave
 
 SpeedFunction = Callable[..., float]
 

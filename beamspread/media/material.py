@@ -6,12 +6,7 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 
 from ..errors import MaterialError
-from .quantities import (
-    Parameter,
-    Value,
-    Wave,
-    check_wave,
-)
+from .quantities import Parameter, Value, Wave, check_wave
 
 
 @dataclass(frozen=True)

@@ -2,13 +2,13 @@
 
 What the sonar trade quotes differs from what an inspector quotes: one-way
 (transmit only) rather than pulse-echo, -3 dB rather than -6 dB, the full
-angle rather than the half-angle. :data:`SONAR_MODE` and
-:data:`SONAR_LEVELS` hold those defaults; every function here still takes the
+angle rather than the half-angle. :data:`SONAR_MODE` and :data:`SONAR_LEVELS`
+hold those defaults; every function of :mod:`beamspread.sonar` still takes the
 mode and level explicitly, and every result says which it used.
 
 Everything is in SI units (m, Hz, rad, W) except levels, in dB, and the
-figures of :class:`SonarFigures`, whose angles are in degrees like those of
-:class:`beamspread.BeamResult`.
+figures of :class:`~beamspread.sonar.figures.SonarFigures`, whose angles are
+in degrees like those of :class:`beamspread.BeamResult`.
 """
 
 from __future__ import annotations

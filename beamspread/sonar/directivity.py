@@ -42,9 +42,7 @@ from .. import pattern
 from .._bessel import jinc
 from ..errors import InputError
 from ..probes import Disc, Probe, Rectangle, check_positive
-from .conventions import (
-    SONAR_MODE,
-)
+from .conventions import SONAR_MODE
 
 
 def _one_minus_jinc(x: np.ndarray) -> np.ndarray:

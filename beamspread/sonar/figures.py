@@ -10,10 +10,7 @@ from ..beam import level_key
 from ..errors import InputError
 from ..probes import Disc
 from .beam_angle import equivalent_beam_angle
-from .directivity import (
-    directivity_factor,
-    rayleigh_distance,
-)
+from .directivity import directivity_factor, rayleigh_distance
 from .footprint import Footprint, footprint_width
 from .side_lobes import SideLobe, first_side_lobe
 

@@ -12,9 +12,7 @@ from .. import pattern
 from .._bessel import jinc
 from ..errors import InputError
 from ..probes import check_positive
-from .conventions import (
-    SONAR_MODE,
-)
+from .conventions import SONAR_MODE
 
 
 def _j0(x: float) -> float:

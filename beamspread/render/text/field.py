@@ -5,12 +5,7 @@ from __future__ import annotations
 import textwrap
 
 from ...units import format_length
-from .common import (
-    caution_for,
-    columns,
-    field_description,
-    medium_and_probe_lines,
-)
+from .common import caution_for, columns, field_description, medium_and_probe_lines
 
 
 def _bar(level_db: float, floor: float = -40.0, width: int = 32) -> str:
