@@ -63,7 +63,9 @@ from .probes import Disc, Rectangle
 
 if TYPE_CHECKING:
     from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
-    from .design import Design, size_disc, size_frequency, size_rectangle_side, smallest_spot
+    from .conventions import Coupling, Method, Mode
+    from .design.result import Design
+    from .design.solvers import size_disc, size_frequency, size_rectangle_side, smallest_spot
     from .inspection import (
         Focus,
         SetupResult,
@@ -72,16 +74,24 @@ if TYPE_CHECKING:
         analyse_immersion,
         analyse_wedge,
     )
+    from .pipeline import Result, compute
     from .scan import ScanPlan, plan_scan
     from .setups import critical_angles, refract
-    from .sonar import (
-        EchoBudget,
-        SonarFigures,
-        directivity_index,
-        echo_budget,
-        equivalent_beam_angle,
-        footprint_width,
-        sonar_figures,
+    from .sonar.beam_angle import equivalent_beam_angle
+    from .sonar.directivity import directivity_index
+    from .sonar.echo import EchoBudget, echo_budget
+    from .sonar.figures import SonarFigures, sonar_figures
+    from .sonar.footprint import footprint_width
+    from .source import FieldSource
+    from .technique import (
+        Contact,
+        PartMedium,
+        Pulse,
+        Request,
+        Sonar,
+        Technique,
+        WaterCoupling,
+        WedgeCoupling,
     )
 
 __version__ = "0.1.0"
@@ -92,7 +102,9 @@ __all__ = [
     "BeamWidth",
     "BeamspreadError",
     "ComputedMedium",
+    "Contact",
     "Convention",
+    "Coupling",
     "Curve",
     "Design",
     "Disc",
@@ -100,26 +112,37 @@ __all__ = [
     "Entry",
     "FieldMap",
     "FieldSettings",
+    "FieldSource",
     "FieldSummary",
     "Focus",
     "InputError",
     "Material",
     "MaterialError",
+    "Method",
+    "Mode",
     "Parameter",
+    "PartMedium",
     "PlaneResult",
     "PluginError",
+    "Pulse",
     "Rectangle",
     "Registry",
+    "Request",
+    "Result",
     "ScanPlan",
     "SetupResult",
+    "Sonar",
     "SonarFigures",
     "Spot",
     "TableError",
+    "Technique",
     "TransverseProfile",
     "Value",
+    "WaterCoupling",
     "WaterPath",
     "Wave",
     "Wedge",
+    "WedgeCoupling",
     "__version__",
     "ainslie_mccolm",
     "air_iso9613",
@@ -130,6 +153,7 @@ __all__ = [
     "beam_width",
     "beam_widths",
     "build_registry",
+    "compute",
     "critical_angles",
     "directivity",
     "directivity_index",
@@ -167,15 +191,29 @@ __all__ = [
 # The later tools' headline names load on first use, so that `import beamspread` (and with it
 # the command line's start-up) does not pay for modules a command may never touch.
 _LAZY = {
+    "Technique": "technique",
+    "PartMedium": "technique",
+    "Contact": "technique",
+    "WedgeCoupling": "technique",
+    "WaterCoupling": "technique",
+    "Pulse": "technique",
+    "Request": "technique",
+    "Sonar": "technique",
+    "compute": "pipeline",
+    "Result": "pipeline",
+    "FieldSource": "source",
+    "Mode": "conventions",
+    "Method": "conventions",
+    "Coupling": "conventions",
     "ainslie_mccolm": "absorption",
     "air_iso9613": "absorption",
     "francois_garrison": "absorption",
     "fresh_water": "absorption",
-    "Design": "design",
-    "size_disc": "design",
-    "size_frequency": "design",
-    "size_rectangle_side": "design",
-    "smallest_spot": "design",
+    "Design": "design.result",
+    "size_disc": "design.solvers",
+    "size_frequency": "design.solvers",
+    "size_rectangle_side": "design.solvers",
+    "smallest_spot": "design.solvers",
     "Focus": "inspection",
     "SetupResult": "inspection",
     "WaterPath": "inspection",
@@ -186,13 +224,13 @@ _LAZY = {
     "plan_scan": "scan",
     "critical_angles": "setups",
     "refract": "setups",
-    "EchoBudget": "sonar",
-    "SonarFigures": "sonar",
-    "directivity_index": "sonar",
-    "echo_budget": "sonar",
-    "equivalent_beam_angle": "sonar",
-    "footprint_width": "sonar",
-    "sonar_figures": "sonar",
+    "EchoBudget": "sonar.echo",
+    "SonarFigures": "sonar.figures",
+    "directivity_index": "sonar.directivity",
+    "echo_budget": "sonar.echo",
+    "equivalent_beam_angle": "sonar.beam_angle",
+    "footprint_width": "sonar.footprint",
+    "sonar_figures": "sonar.figures",
 }
 
 

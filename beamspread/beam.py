@@ -16,7 +16,7 @@ import numpy as np
 from . import axis, pattern
 from .conventions import level_key
 from .errors import InputError
-from .media.model import Wave
+from .media.quantities import Wave
 from .probes import Disc, Probe, Rectangle, check_positive
 from .units import length_text as _mm
 from .units import parse_level

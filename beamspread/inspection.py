@@ -60,7 +60,7 @@ from .beam import (
     straight_field_spots,
 )
 from .errors import InputError
-from .media.model import Wave
+from .media.quantities import Wave
 from .probes import Disc, Ellipse, Rectangle, check_positive
 from .units import length_text as _mm
 

@@ -66,7 +66,7 @@ class Result:
     setup: Any = None  # beamspread.SetupResult for a wedge, a water path or a focus
     wedge: WedgeUsed | None = None
     couplant: CouplantUsed | None = None
-    sonar: Any = None  # beamspread.sonar_results.SonarResults for a bare transducer
+    sonar: Any = None  # beamspread.sonar.results.SonarResults for a bare transducer
     warnings: tuple[str, ...] = ()
 
     @property
@@ -75,7 +75,7 @@ class Result:
 
     def to_dict(self) -> dict[str, Any]:
         """The JSON object of ``beamspread beam --json`` for this technique."""
-        from .report.resultjson import result_to_dict
+        from .render.serialize.result import result_to_dict
 
         return result_to_dict(self)
 
@@ -149,7 +149,7 @@ def _registry_warnings(part: Resolved, registry) -> list[str]:
 
 
 def _contact(*, technique, part, mode, settings) -> Result:
-    from .sonar_results import sonar_results
+    from .sonar.results import sonar_results
 
     t = technique
     beam = analyse(

@@ -241,7 +241,7 @@ def _depths(name: str, kind: str, value):
             raise InputError(f"{name}: {value!r} is not allowed; a depth must be above 0")
         numbers.append(number)
     if len(numbers) == 3:
-        from .sonar import depth_range
+        from .sonar.footprint import depth_range
 
         try:
             depth_range(*numbers)

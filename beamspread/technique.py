@@ -209,7 +209,7 @@ class Technique:
         if self.request.levels:
             return tuple(self.request.levels)
         if self.sonar.conventions:
-            from .sonar import SONAR_LEVELS_SHOWN
+            from .sonar.conventions import SONAR_LEVELS_SHOWN
 
             return SONAR_LEVELS_SHOWN
         return DEFAULT_LEVELS
@@ -221,7 +221,7 @@ class Technique:
         if pulse.bandwidth is not None:
             return pulse.bandwidth
         if self.sonar.conventions:
-            from .sonar import SONAR_BANDWIDTH
+            from .sonar.conventions import SONAR_BANDWIDTH
 
             return SONAR_BANDWIDTH
         return DEFAULT_BANDWIDTH
@@ -314,7 +314,7 @@ class Technique:
 
 def _expand(texts, default_unit: str) -> tuple[float, ...]:
     """Depths as a setup file writes them (a depth, or START:STOP:STEP), m, each once."""
-    from .sonar import depth_range
+    from .sonar.footprint import depth_range
 
     out: list[float] = []
     for text in texts:

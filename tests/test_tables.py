@@ -600,7 +600,7 @@ def test_builtin_registry_has_no_warnings():
 
 
 def test_builtin_names_and_aliases_are_unique():
-    from beamspread.media.model import normalise_name
+    from beamspread.media.quantities import normalise_name
 
     owners: dict[str, str] = {}
     for entry in builtin_entries():

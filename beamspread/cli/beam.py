@@ -142,13 +142,13 @@ def beam(
         warnings.extend(_plot(plot_path, result, units))
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         data = result.to_dict()
         data["warnings"] = warnings
         click.echo(dumps(data))
     elif fmt == "csv":
-        from ..report.serialize import beam_to_csv
+        from ..render.serialize.beam import beam_to_csv
 
         figures = result.sonar.figures if result.sonar is not None else None
         if figures is not None:
@@ -159,7 +159,7 @@ def beam(
             )
         click.echo(beam_to_csv(result.beam, figures.footprints if figures else ()), nl=False)
     else:
-        from ..report.resulttext import result_table
+        from ..render.text.result import result_table
 
         click.echo(result_table(result, units))
 
@@ -171,7 +171,7 @@ def _plot(path, result, units) -> list[str]:
     wedge with a thickness), or the far-field directivity (in the part).
     """
     from ..render import plots
-    from ..report.captions import caption_of
+    from ..render.captions import caption_of
 
     beam, setup, warnings = result.beam, result.setup, []
     figures = result.sonar.figures if result.sonar is not None else None

@@ -22,7 +22,7 @@ from .techniqueargs import technique_from, technique_options
 
 
 def _caption(probe, wave, settings, mode):
-    from ..report.text import field_description
+    from ..render.text.common import field_description
 
     size = (
         f"disc {probe.diameter * 1e3:g} mm"
@@ -30,7 +30,7 @@ def _caption(probe, wave, settings, mode):
         else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm"
     )
     where = "given speed" if wave.medium == "given" else wave.medium
-    from ..report.captions import frequency_text
+    from ..render.captions import frequency_text
 
     return (
         f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
@@ -92,7 +92,7 @@ def _last_maximum(result, settings, mode):
 
 def _note(data: dict, result) -> dict:
     """``data`` with the technique's coupling and coordinate added (beyond contact)."""
-    from ..report.resultjson import source_to_dict
+    from ..render.serialize.result import source_to_dict
 
     if result.coupling != "contact" or result.focused:
         data["source"] = source_to_dict(result)
@@ -187,16 +187,17 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import axial_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.field import axial_to_dict
 
         data = axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
         click.echo(dumps(_note(data, result)))
     elif fmt == "csv":
-        from ..report.serialize import axial_to_csv
+        from ..render.serialize.field import axial_to_csv
 
         click.echo(axial_to_csv(profile), nl=False)
     else:
-        from ..report.text import axial_table
+        from ..render.text.field import axial_table
 
         click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial, units))
 
@@ -286,16 +287,17 @@ def across(
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import across_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.field import across_to_dict
 
         data = across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings)
         click.echo(dumps(_note(data, result)))
     elif fmt == "csv":
-        from ..report.serialize import across_to_csv
+        from ..render.serialize.field import across_to_csv
 
         click.echo(across_to_csv(profiles), nl=False)
     else:
-        from ..report.text import across_table
+        from ..render.text.field import across_table
 
         click.echo(across_table(probe, medium, settings, mode, depth, profiles, widths, units))
 
@@ -453,12 +455,13 @@ def map_(
             emit_warnings(warnings)
             return
     emit_warnings(warnings)
-    from ..report import serialize
+    from ..render.serialize import field as serialize
+    from ..render.serialize.common import dumps
 
     def text(kind):
         if kind == ".json":
             data = serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
-            return serialize.dumps(_note(data, computed))
+            return dumps(_note(data, computed))
         return serialize.map_to_csv(result)
 
     if target is None:

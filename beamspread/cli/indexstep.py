@@ -92,8 +92,8 @@ def index_step(
     warnings = list(dict.fromkeys([*result.warnings, *plan.warnings]))
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.resultjson import source_to_dict
-        from ..report.serialize import dumps, probe_to_dict, wave_to_dict
+        from ..render.serialize.common import dumps, probe_to_dict, wave_to_dict
+        from ..render.serialize.result import source_to_dict
 
         click.echo(
             dumps(
@@ -123,13 +123,13 @@ def index_step(
         )
         return
     if fmt == "csv":
-        from ..report.serialize import scan_plan_to_csv
+        from ..render.serialize.setup import scan_plan_to_csv
 
         click.echo(scan_plan_to_csv(plan, mode), nl=False)
         return
     import textwrap
 
-    from ..report.text import caution_for, columns, medium_and_probe_lines
+    from ..render.text.common import caution_for, columns, medium_and_probe_lines
 
     wave = result.beam.wave
     mark = " *" if plan.governing_far_field_valid is False else ""

@@ -45,7 +45,7 @@ def materials() -> None:
 def _reference(medium) -> dict:
     """Longitudinal and shear speed and density for listings: constants, curve middles,
     or a computed medium at its default conditions."""
-    from ..media.model import Material
+    from ..media.material import Material
 
     if isinstance(medium, Material):
         return {
@@ -59,8 +59,8 @@ def _reference(medium) -> dict:
 
 def _describe(entry) -> dict:
     """The JSON form of a registry entry."""
-    from ..media.model import Material
-    from ..report.serialize import conditions_to_dict
+    from ..media.material import Material
+    from ..render.serialize.common import conditions_to_dict
 
     m = entry.medium
     out = {
@@ -138,11 +138,11 @@ def list_(materials_dirs, as_json):
     emit_warnings(registry.warnings)
     rows = [_describe(entry) for entry in registry]
     if as_json:
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         click.echo(dumps(rows))
         return
-    from ..report.text import columns
+    from ..render.text.common import columns
 
     table = [["name", "state", "cL m/s", "cS m/s", "density kg/m3", "Z MRayl", "origin"]]
     for entry, row in zip(registry, rows, strict=True):
@@ -177,12 +177,12 @@ def show(name, materials_dirs, as_json):
     registry = load_registry(materials_dirs)
     emit_warnings(registry.warnings)
     entry = registry.get(name)
-    from ..media.model import normalise_name
+    from ..media.quantities import normalise_name
 
     data = _describe(entry)
     data["shadows"] = [e.origin for e in registry.shadowed.get(normalise_name(entry.name), [])]
     if as_json:
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         click.echo(dumps(data))
         return
@@ -270,7 +270,7 @@ def paths(materials_dirs, as_json):
         for what, path, exists in reversed(registry.locations)
     ]
     if as_json:
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         click.echo(dumps(rows))
         return

@@ -198,7 +198,7 @@ class Resolved:
         return list(self.registry.warnings if self.registry else []) + list(self.wave.warnings)
 
     def absorption(self, frequency: float):
-        """The medium's :class:`~beamspread.media.model.Absorption` at ``frequency``, or None."""
+        """The medium's :class:`~beamspread.media.quantities.Absorption` at a frequency, or None."""
         if self.medium is None:
             return None
         return self.medium.evaluate_absorption(frequency, self.conditions)
@@ -219,7 +219,7 @@ def resolve_wave(
     ``temperature_elsewhere``: --temperature also sets another medium (a
     couplant), so a part that does not depend on it is not warned about it.
     """
-    from ..media.model import Wave
+    from ..media.quantities import Wave
 
     wave = wave or "longitudinal"
     if (material is None) == (speed is None):

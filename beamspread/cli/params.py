@@ -109,7 +109,7 @@ class DepthList(click.ParamType):
     def convert(self, value, param, ctx):
         if isinstance(value, tuple):
             return value
-        from ..sonar import depth_range
+        from ..sonar.footprint import depth_range
 
         parts = str(value).split(":")
         try:

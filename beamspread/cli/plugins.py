@@ -37,7 +37,7 @@ def plugins(as_json):
     ]
     failures = [w for w in registry.warnings if w.startswith("plug-in ")]
     if as_json:
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         click.echo(dumps({"plugins": rows, "failures": failures}))
         return

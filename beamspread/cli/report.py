@@ -33,9 +33,9 @@ def report(setup_file, output, force, units, as_json):
     depths its picture is the footprint against water depth."""
     from ..pipeline import compute
     from ..render import plots
+    from ..render.captions import caption_of
     from ..render.page import report_page
-    from ..report.captions import caption_of
-    from ..report.resulttext import result_table
+    from ..render.text.result import result_table
     from ..technique import Technique
     from .options import emit_warnings, load_registry
 
@@ -65,7 +65,7 @@ def report(setup_file, output, force, units, as_json):
     plots.save_figure(fig, target)
     click.echo(f"beamspread: wrote {target}", err=True)
     if as_json:
-        from ..report.serialize import dumps
+        from ..render.serialize.common import dumps
 
         emit_warnings(result.warnings)
         click.echo(dumps(result.to_dict()))

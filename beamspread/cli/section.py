@@ -127,7 +127,7 @@ def section(
         warnings.append("no --depth: the section has no flaw depth, so no footprint is given")
     emit_warnings(warnings)
     if plot_path is not None:  # the edges along both legs are computed for the drawing only
-        from ..report.captions import caption_of
+        from ..render.captions import caption_of
 
         geometry = section_geometry(result, thickness, depth, settings, wedge_path)
         plots.plot_section(
@@ -152,14 +152,14 @@ def section(
     ]
     wedge_dict = {"name": name, "speed_m_s": wedge_c, "path_m": wedge_path or 0.0}
     if fmt == "json":
-        from ..report.serialize import (
-            beam_to_dict_convention,
+        from ..render.serialize.beam import beam_to_dict_convention
+        from ..render.serialize.common import (
             dumps,
             field_settings_to_dict,
             probe_to_dict,
-            setup_to_dict,
             wave_to_dict,
         )
+        from ..render.serialize.setup import setup_to_dict
 
         medium = wave_to_dict(computed.part.wave)
         medium["longitudinal_m_s"], medium["shear_m_s"] = c_long, c_shear
@@ -190,7 +190,7 @@ def section(
         click.echo(dumps(data))
         return
     if fmt == "csv":
-        from ..report.serialize import section_to_csv
+        from ..render.serialize.setup import section_to_csv
 
         click.echo(section_to_csv(prints, mode), nl=False)
         return
@@ -214,13 +214,8 @@ def _section_text(
     """The text form: what was computed, the plate's geometry and the footprints."""
     import textwrap
 
-    from ..report.text import (
-        caution_for,
-        columns,
-        field_description,
-        medium_and_probe_lines,
-        setup_lines,
-    )
+    from ..render.text.common import caution_for, columns, field_description, medium_and_probe_lines
+    from ..render.text.setup import setup_lines
     from ..units import format_length
 
     beam = result.beam

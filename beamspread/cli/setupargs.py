@@ -298,7 +298,7 @@ def _unused_warning(name: str, unused: list[str], options: dict, accepted) -> st
     and the narrow-band pulse recorded with it are options of their own, which the
     command does use: the warning says so.
     """
-    from ..sonar import SONAR_LEVELS_SHOWN
+    from ..sonar.conventions import SONAR_LEVELS_SHOWN
 
     named = [o for o in unused if o != "--sonar"]
     parts = [f"the setup's {_listed(named, 'or')}"] if named else []
@@ -400,7 +400,7 @@ def expand(command: click.Command, name: str, args: list[str]):
         # Every command's default, written down so that the file says which it is.
         typed["--one-way" if "--sonar" in typed else "--pulse-echo"] = True
     if "--sonar" in typed and "--bandwidth" not in typed:
-        from ..sonar import SONAR_BANDWIDTH
+        from ..sonar.conventions import SONAR_BANDWIDTH
 
         typed["--bandwidth"] = SONAR_BANDWIDTH  # --sonar's pulse, for commands without --sonar
     setup = Setup.from_options(typed)  # checked now: a bad value fails before computing

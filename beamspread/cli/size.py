@@ -96,7 +96,7 @@ def size(
       beamspread size --frequency 200kHz --material seawater --full-angle 20
       beamspread size --frequency 5MHz --material reference-steel --spot 6mm --at 40mm
     """
-    from .. import design
+    from ..design import solvers
 
     angles = [a for a in (full_angle, half_angle) if a is not None]
     if len(angles) + (spot is not None) != 1:
@@ -134,11 +134,11 @@ def size(
     c = resolved.wave.speed
     common = {"level_db": level, "mode": mode, **target}
     if diameter is not None:
-        found = design.size_frequency(diameter, c, **common)
+        found = solvers.size_frequency(diameter, c, **common)
     elif other_side is not None:
-        found = design.size_rectangle_side(frequency, c, other_side, **common)
+        found = solvers.size_rectangle_side(frequency, c, other_side, **common)
     else:
-        found = design.size_disc(frequency, c, **common)
+        found = solvers.size_disc(frequency, c, **common)
     warnings = resolved.warnings
     if found.depth == found.depth and not found.far_field_at_depth:
         warnings.append(
@@ -147,14 +147,15 @@ def size(
         )
     emit_warnings(warnings)
     if fmt == "json":
-        from ..report.serialize import design_to_dict, dumps
+        from ..render.serialize.common import dumps
+        from ..render.serialize.design import design_to_dict
 
         click.echo(dumps(design_to_dict(found, resolved.wave, warnings)))
     elif fmt == "csv":
-        from ..report.serialize import design_to_csv
+        from ..render.serialize.design import design_to_csv
 
         click.echo(design_to_csv(found, resolved.wave), nl=False)
     else:
-        from ..report.text import design_table
+        from ..render.text.design import design_table
 
         click.echo(design_table(found, resolved.wave, units))

@@ -1,14 +1,8 @@
 """Materials and media: types, the TOML table loader, equations and the registry."""
 
-from .model import (
-    ComputedMedium,
-    Curve,
-    Material,
-    Parameter,
-    Value,
-    Wave,
-    normalise_name,
-)
+from .computed import ComputedMedium
+from .material import Material
+from .quantities import Curve, Parameter, Value, Wave, normalise_name
 from .registry import Entry, Registry, build_registry, config_dir, user_table_dirs
 from .tables import load_table, parse_table
 

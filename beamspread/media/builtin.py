@@ -25,7 +25,8 @@ from .. import absorption as ab
 from ..errors import InputError
 from ..hookspecs import hookimpl
 from . import equations as eq
-from .model import ComputedMedium, Parameter
+from .computed import ComputedMedium
+from .quantities import Parameter
 
 __all__ = ["MEDIA", "materials_location", "register_media", "register_tables"]
 

@@ -23,7 +23,9 @@ from dataclasses import dataclass, field
 from pathlib import Path
 
 from ..errors import InputError, MaterialError, TableError
-from .model import ComputedMedium, Material, normalise_name
+from .computed import ComputedMedium
+from .material import Material
+from .quantities import normalise_name
 from .tables import load_table
 
 __all__ = [

@@ -37,7 +37,8 @@ from typing import Any
 
 from ..errors import InputError, TableError
 from ..units import KINDS, parse_quantity, unit_of
-from .model import NAME_PATTERN, STATES, Curve, Material, Value
+from .material import Material
+from .quantities import NAME_PATTERN, STATES, Curve, Value
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -268,7 +269,7 @@ def parse_table(text: str, path: str = "<table>") -> TableFile:
         Naming the file and line (for TOML syntax errors), or the file, entry
         and key (for a value that breaks the format).
     """
-    from .model import normalise_name
+    from .quantities import normalise_name
 
     ctx = _Context(path, text)
     try:

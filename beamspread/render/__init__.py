@@ -1,4 +1,1 @@
-"""The edge that turns results into text, JSON, CSV and pictures.
-
-Nothing here computes: the core's results come in, text and files go out.
-"""
+"""The edge that turns results into text, JSON, CSV and pictures; it never computes physics."""

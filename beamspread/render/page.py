@@ -65,7 +65,7 @@ def _page(setup, text, result, view, geometry, units, warnings, *, caption, name
     the space left below it, each picture with its legend in a strip of its
     own beneath, the strips and the section sized to what they hold.
     """
-    from ..report.text import CAUTION
+    from ..render.text.common import CAUTION
     from . import plots
 
     fig = plots.new_figure(A4, caption=caption)
@@ -188,7 +188,7 @@ def _fit_width(lines: list[str], width: int = PAGE_COLUMNS) -> list[str]:
 def _compact_budgets(body: list[str], budgets, units: str) -> list[str]:
     """``body`` with beam's echo budget (five rows per range) set as one row per range,
     each term's formula given once below; the same figures in fewer lines."""
-    from ..report.text import columns
+    from ..render.text.common import columns
     from ..units import format_length
 
     start = next((i for i, line in enumerate(body) if line.startswith("Echo budget of")), None)

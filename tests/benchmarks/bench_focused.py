@@ -18,7 +18,7 @@ from pathlib import Path
 
 from beamspread.beam import FieldSettings
 from beamspread.inspection import Focus, WaterPath, analyse_immersion
-from beamspread.media.model import Wave
+from beamspread.media.quantities import Wave
 from beamspread.probes import Disc
 
 RUNS = 5

@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
-from .text import beam_table, conditions_text, setup_lines
+from .beam import beam_table
+from .common import conditions_text
+from .setup import setup_lines
 
 __all__ = ["result_table"]
 

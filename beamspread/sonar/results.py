@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-from .errors import InputError
+from ..errors import InputError
 
 
 @dataclass(frozen=True)
@@ -23,12 +23,12 @@ class SonarResults:
     """
 
     directivity_index_db: float
-    absorption: Any  # beamspread.media.model.Absorption, or None
+    absorption: Any  # beamspread.media.quantities.Absorption, or None
     figures: Any
     budgets: list | None
 
     def table_options(self, sonar: bool) -> dict[str, Any]:
-        """The keyword arguments of :func:`beamspread.report.text.beam_table`.
+        """The keyword arguments of :func:`beamspread.render.text.beam.beam_table`.
 
         The directivity index and the absorption are shown with the sonar
         figures only: they belong to sonar work.
@@ -86,7 +86,7 @@ def sonar_results(
     InputError
         An echo budget in a gas.
     """
-    from .sonar import directivity_index
+    from .directivity import directivity_index
 
     absorption = resolved.absorption(result.probe.frequency)
     if absorption is not None:
@@ -106,7 +106,8 @@ def sonar_results(
 
 def _figures(result, resolved, bottoms, absorption, power, efficiency, bottom_loss, warnings):
     """The sonar figures and, with a power, an echo budget at each bottom depth."""
-    from .sonar import echo_budget, sonar_figures, source_level_constant
+    from .echo import echo_budget, source_level_constant
+    from .figures import sonar_figures
 
     alpha = None if absorption is None else absorption.db_per_km
     figures = sonar_figures(result, bottom_depths=bottoms, absorption_db_per_km=alpha)

@@ -5,7 +5,9 @@ from __future__ import annotations
 import math
 from typing import Any
 
-from .serialize import beam_to_dict, conditions_to_dict, setup_to_dict, sonar_to_dict
+from .beam import beam_to_dict, sonar_to_dict
+from .common import conditions_to_dict, probe_to_dict
+from .setup import setup_to_dict
 
 __all__ = ["result_to_dict"]
 
@@ -53,8 +55,6 @@ def source_to_dict(result) -> dict[str, Any]:
     ``speed_m_s``; the coordinate (a depth, or a sound path along the refracted
     axis) ``c`` lies at the range ``start_m + stretch * c`` from it.
     """
-    from .serialize import probe_to_dict
-
     s = result.source
     return {
         "coupling": str(result.coupling),

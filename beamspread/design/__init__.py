@@ -1,0 +1,1 @@
+"""Inverse design: the element size (or frequency) that gives a wanted beam."""

@@ -1,0 +1,1 @@
+"""Plain-text tables for people: every table states its convention."""

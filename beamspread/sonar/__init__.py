@@ -1,0 +1,1 @@
+"""Sonar figures of a flat piston: directivity index, side lobes, footprints, echo budget."""
