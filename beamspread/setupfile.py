@@ -452,7 +452,8 @@ class Setup:
                     pairs.append((name.strip(), str(text).strip()))
                 values[key.field] = tuple(pairs)
             elif key.kind in ("lengths", "levels", "water-depths"):
-                values[key.field] = tuple(_text(key, v) for v in value)
+                items = value if isinstance(value, (list, tuple)) else [value]  # one, or a list
+                values[key.field] = tuple(_text(key, v) for v in items)
             else:
                 values[key.field] = _text(key, value)
         values["shape"] = "rectangle" if values.get("length") is not None else "disc"

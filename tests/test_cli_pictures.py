@@ -220,12 +220,14 @@ def test_save_happens_only_after_the_command_works(run, tmp_path):
 
 
 def test_setup_options_a_command_cannot_use_are_named(run, tmp_path):
-    saved = tmp_path / "weld.toml"
-    assert run("beam", *WELD, "--far-field-only", "--save", str(saved)).code == 0
-    # axis cannot model the wedge: it refuses the setup rather than compute a straight beam
-    r = run("axis", "--setup", str(saved), "--points", "20", "--json")
+    saved = tmp_path / "tank.toml"
+    tank = ("--diameter", "10mm", "--frequency", "5MHz", "--material", "reference-steel")
+    args = (*tank, "--water-path", "30mm", "--far-field-only", "--save", str(saved))
+    assert run("beam", *args).code == 0
+    # section cannot model a water path: it refuses the setup rather than draw another beam
+    r = run("section", "--setup", str(saved), "--json")
     assert r.code == 2
-    assert "--wedge" in r.stderr and "cannot model" in r.stderr
+    assert "--water-path" in r.stderr and "cannot model" in r.stderr
 
 
 def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):

@@ -421,3 +421,62 @@ def test_map_names_only_what_it_leaves_out_of_a_sonar_setup(run, tmp_path):
     assert r.json()["field"] == explicit.json()["field"]
     assert r.json()["field"]["mode"] == "one-way" and r.json()["field"]["bandwidth"] == 0.1
     assert r.json()["amplitude"] == explicit.json()["amplitude"]
+
+
+# ------------------------------------------------- what --save records, as click resolved it
+
+
+def test_a_single_valued_option_is_saved_as_one_value(run, tmp_path):
+    # index-step takes one --level and section one --depth: each is one item of the file's list.
+    path, _ = _saved(
+        run, tmp_path, "index-step", *DISC, "--from", "20mm", "--to", "60mm", "--level", "12"
+    )
+    assert tomllib.loads(path.read_text(encoding="utf-8"))["inspection"] == {"levels": ["12"]}
+    wedge = (*ANGLE, "--thickness", "25mm", "--depth", "18mm", "--far-field-only")
+    path, _ = _saved(run, tmp_path, "section", *wedge, name="w.toml")
+    assert tomllib.loads(path.read_text(encoding="utf-8"))["inspection"] == {"depths": ["18mm"]}
+
+
+def test_a_setups_first_value_is_saved_where_the_command_takes_one(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *DISC, "--level", "6", "--level", "20")
+    again, r = _saved(
+        run,
+        tmp_path,
+        "index-step",
+        "--setup",
+        str(path),
+        "--from",
+        "20mm",
+        "--to",
+        "60mm",
+        name="again.toml",
+    )
+    assert "index-step takes one --level; the setup's first (6) is used" in r.stderr
+    assert tomllib.loads(again.read_text(encoding="utf-8"))["inspection"] == {"levels": ["6"]}
+
+
+def test_a_typed_condition_is_saved_beside_the_setups_others(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--condition", "depth=10m")
+    again, _ = _saved(
+        run, tmp_path, "beam", "--setup", str(path), "--condition", "depth=50m", name="b.toml"
+    )
+    medium = tomllib.loads(again.read_text(encoding="utf-8"))["medium"]
+    assert medium["conditions"] == {"salinity": "34", "depth": "50m"}
+    assert medium["temperature"] == "12 degC"
+
+
+def test_a_typed_speed_saves_no_material_temperature_or_conditions(run, tmp_path):
+    path, _ = _saved(run, tmp_path, "beam", *SOUNDER, "--far-field-only")
+    again, _ = _saved(run, tmp_path, "beam", "--setup", str(path), "--speed", "1500", name="b.toml")
+    assert tomllib.loads(again.read_text(encoding="utf-8"))["medium"] == {"speed": "1500 m/s"}
+
+
+def test_help_with_a_setup_reads_no_file(run, tmp_path):
+    r = run("beam", "--setup", str(tmp_path / "none.toml"), "--help")
+    assert r.code == 0 and "--setup FILE" in r.stdout
+
+
+def test_save_is_refused_in_its_inline_form_too(run, tmp_path):
+    target = tmp_path / "new.toml"
+    line = _one_line_refusal(run(*SIZE, f"--save={target}"))
+    assert "size does not take --save" in line and not target.exists()

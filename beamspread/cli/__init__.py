@@ -67,22 +67,13 @@ class _Group(click.Group):
     def main(self, args=None, prog_name=None, complete_var=None, standalone_mode=True, **extra):
         debug = os.environ.get("BEAMSPREAD_DEBUG") == "1"
         try:
-            args = list(sys.argv[1:] if args is None else args)
-            save = None
-            if (
-                args
-                and args[0] in _COMMANDS
-                and any(a.startswith(("--setup", "--save")) for a in args[1:])
-            ):
-                from .setupargs import expand
-
-                rest, save = expand(self.get_command(None, args[0]), args[0], args[1:])
-                args = [args[0], *rest]
             rv = super().main(
                 args, prog_name or "beamspread", complete_var, standalone_mode=False, **extra
             )
-            if save is not None and not (isinstance(rv, int) and rv):
-                save()
+        except click.NoSuchOption as exc:
+            from .setupargs import refusal
+
+            _fail(refusal(exc) or exc.format_message(), 2)
         except click.UsageError as exc:
             _fail(exc.format_message(), 2)
         except click.ClickException as exc:

@@ -1,8 +1,9 @@
 """``--setup FILE`` and ``--save FILE``: a technique read from, or written to, a setup file.
 
-The group splices the file's options into the command line *before* the
-options typed, leaving out every option the command line types itself, so a
-typed option replaces the setup's:
+``--setup`` is eager: it reads the file first and makes its options the
+defaults of the command's (click's ``default_map``), so click takes a typed
+option over the setup's; once parsed, the options typed (by their parameter
+source) replace the setup's options they stand in for. A typed option replaces:
 
 - a single-valued option (``--frequency``, ``--one-way`` for the setup's
   ``--pulse-echo``) replaces the setup's value;
@@ -21,120 +22,104 @@ A command that cannot model the setup's wedge, water path or focus refuses
 the file (it would compute another technique and present it as this one);
 other options it does not take (depths, levels, the bottom, the sonar
 figures) are named in a warning. A command without ``--setup`` (``size``,
-``report``, ...) refuses ``--setup`` and ``--save`` with one line.
+``report``, ...) refuses ``--setup`` and ``--save`` with one line (:func:`refusal`).
 
-``--save`` records the options of the command line as typed, with their
-units, and the mode every command defaults to (pulse-echo; with ``--sonar``,
-one-way and its narrow-band pulse), so another command computes the same beam.
-It writes a ``.toml`` file only, and never overwrites one.
+``--save`` records the options the command line resolves to (typed, with
+their units, or kept from the setup) and the mode every command defaults to
+(pulse-echo; with ``--sonar``, one-way and its narrow-band pulse), so another
+command computes the same beam: to a new ``.toml`` file, once the command succeeds.
 """
 
 from __future__ import annotations
 
+import functools
+
 import click
+from click.core import ParameterSource
 
 _SETUP, _SAVE = "--setup", "--save"
+_PARSED = "beamspread.parsed"  # ctx.meta: click's parse of the command line (text as typed)
+_OPTIONS = "beamspread.setup"  # ctx.meta: the setup file's options (strings with units)
+
+
+class _SetupFileOption(click.Option):
+    """``--setup``/``--save``: they keep click's parse (each option's text as typed, by name)."""
+
+    def handle_parse_result(self, ctx, opts, args):
+        ctx.meta[_PARSED] = dict(opts)
+        return super().handle_parse_result(ctx, opts, args)
 
 
 def setup_file_options(f):
-    f = click.option(
+    """``--setup FILE`` and ``--save FILE`` for a command that computes a technique."""
+
+    @functools.wraps(f)
+    def command(*args, **params):
+        ctx = click.get_current_context()
+        save_path = params["save_path"]
+        if save_path is not None:
+            _check_target(save_path)
+        kept = _lay_over(ctx, params) if _OPTIONS in ctx.meta else {}
+        setup = _resolved_setup(ctx, params, kept) if save_path is not None else None
+        rv = f(*args, **params)
+        if setup is not None and not (isinstance(rv, int) and rv):
+            from ..setupfile import save_setup
+
+            save_setup(setup, save_path)
+            click.echo(f"beamspread: saved the setup to {save_path}", err=True)
+        return rv
+
+    command = click.option(
         _SAVE,
         "save_path",
+        cls=_SetupFileOption,
         type=click.Path(dir_okay=False),
         default=None,
         help="Write the setup this command line uses to FILE (TOML; never overwrites).",
-    )(f)
-    f = click.option(
+    )(command)
+    return click.option(
         _SETUP,
         "setup_path",
+        cls=_SetupFileOption,
         type=click.Path(dir_okay=False),
         default=None,
+        is_eager=True,
+        callback=_read_setup,
         help="Read probe, medium, setup, depths, levels and conventions from a "
         "setup FILE; options given here win.",
-    )(f)
-    return f
-
-
-def _take(args: list[str], name: str) -> tuple[list[str], str | None]:
-    """Remove ``name VALUE`` (or ``name=VALUE``) from ``args``; return the rest and VALUE."""
-    out, value, i = [], None, 0
-    while i < len(args):
-        token = args[i]
-        if token == name:
-            if i + 1 >= len(args):
-                raise click.UsageError(f"{name} needs a FILE")
-            value = args[i + 1]
-            i += 2
-            continue
-        if token.startswith(name + "="):
-            value = token.split("=", 1)[1]
-            i += 1
-            continue
-        out.append(token)
-        i += 1
-    return out, value
+    )(command)
 
 
 def _accepted(command: click.Command) -> dict[str, click.Parameter]:
     return {opt: p for p in command.params for opt in (*p.opts, *p.secondary_opts)}
 
 
-def _with_unit(value, param):
-    """A bare number as typed, with the unit the command line gives it (mm, MHz, deg...)."""
-    import re
+def _read_setup(ctx: click.Context, param, path):
+    """Read the setup file: its options become the defaults of the command's options."""
+    if path is None or ctx.resilient_parsing:
+        return path
+    asks_help = ctx.command.get_help_option(ctx)
+    if asks_help is not None and ctx.meta.get(_PARSED, {}).get(asks_help.name):
+        return path  # the help is shown, the file is not read
+    from ..setupfile import load_setup
 
-    from ..units import KINDS
-    from .params import Angle, DepthList, Quantity
-
-    number = r"\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*"
-    if isinstance(value, str) and isinstance(param.type, DepthList):
-        return ":".join(
-            f"{part.strip()} {param.type.unit}" if re.fullmatch(number, part) else part
-            for part in value.split(":")
-        )
-    if not isinstance(value, str) or not re.fullmatch(number, value):
-        return value
-    if isinstance(param.type, Quantity) and KINDS[param.type.kind].default:
-        return f"{value.strip()} {KINDS[param.type.kind].default}"
-    if isinstance(param.type, Angle):
-        return f"{value.strip()} deg"
-    return value
-
-
-def _typed_options(args: list[str], command: click.Command) -> dict[str, object]:
-    """The options of ``args`` that a setup file records, as typed (strings with units)."""
-    from ..setupfile import recordable_options
-
-    known = recordable_options()
-    accepted = _accepted(command)
-    options: dict[str, object] = {}
-    i = 0
-    while i < len(args):
-        token = args[i]
-        name, _, inline = token.partition("=")
-        param = accepted.get(name)
-        if param is None or not name.startswith("--"):
-            i += 1
-            continue
-        is_flag = getattr(param, "is_flag", False)
-        value: object = (
-            True
-            if is_flag
-            else (inline if inline else (args[i + 1] if i + 1 < len(args) else None))
-        )
-        i += 1 if (is_flag or inline) else 2
-        if name not in known or value is None:
-            continue
-        value = _with_unit(value, param)
-        if getattr(param, "multiple", False):
-            options.setdefault(name, []).append(value)
-        elif is_flag:  # the last of --pulse-echo/--one-way counts: keep the order typed
-            for flag in (*param.opts, *param.secondary_opts):
-                options.pop(flag, None)
-            options[name] = value
+    options = load_setup(path).to_options()
+    accepted = _accepted(ctx.command)
+    _refuse_techniques(ctx.info_name, path, options, accepted)
+    defaults: dict[str, object] = {}
+    for option, value in options.items():
+        p = accepted.get(option)
+        if p is None:
+            continue  # named in a warning once the command line is parsed
+        if value is True:  # a flag: --sonar, or one of --pulse-echo/--one-way
+            defaults[p.name] = option in p.opts
+        elif isinstance(value, list):
+            defaults[p.name] = value if getattr(p, "multiple", False) else value[0]
         else:
-            options[name] = value
-    return options
+            defaults[p.name] = value
+    ctx.default_map = {**(ctx.default_map or {}), **defaults}
+    ctx.meta[_OPTIONS] = options
+    return path
 
 
 # What a setup can record that changes the beam itself, with the options that record it.
@@ -150,10 +135,6 @@ _TECHNIQUES = (
 _READ_AS = {"report": "beam"}  # report reads a setup file as beam's options
 
 
-def _reads_setups(command: click.Command) -> bool:
-    return any(p.name == "setup_path" for p in command.params)
-
-
 def _commands_that(can) -> list[str]:
     """The commands reading setup files for which ``can(accepted options)`` holds."""
     from . import _COMMANDS, cli
@@ -161,7 +142,7 @@ def _commands_that(can) -> list[str]:
     names = []
     for other in sorted(_COMMANDS):
         command = cli.get_command(None, _READ_AS.get(other, other))
-        if _reads_setups(command) and can(_accepted(command)):
+        if any(p.name == "setup_path" for p in command.params) and can(_accepted(command)):
             names.append(other)
     return names
 
@@ -170,27 +151,29 @@ def _listed(names: list[str], last: str = "or") -> str:
     return names[0] if len(names) == 1 else f"{', '.join(names[:-1])} {last} {names[-1]}"
 
 
-def _refuse_unreadable(name: str, setup_path, save_path) -> None:
-    """A command without --setup and --save: one line saying what to do instead."""
-    which = " and ".join(o for o, v in ((_SETUP, setup_path), (_SAVE, save_path)) if v)
-    if setup_path is not None:
-        others = f"setup files are read by {_listed(_commands_that(lambda a: True), 'and')}"
-    else:
-        writers = [n for n in _commands_that(lambda a: True) if n not in _READ_AS]
-        others = f"setup files are written by {_listed(writers, 'and')}"
+def refusal(error: click.NoSuchOption) -> str | None:
+    """The one line for ``--setup`` or ``--save`` given to a command without them, or None."""
+    ctx, option = error.ctx, error.option_name
+    if option not in (_SETUP, _SAVE) or ctx is None or ctx.parent is None:
+        return None
+    while ctx.parent.parent is not None:  # the command under beamspread (materials, not list)
+        ctx = ctx.parent
+    name = ctx.info_name
+    readers = _commands_that(lambda accepted: True)
+    writers = [n for n in readers if n not in _READ_AS]
+    verb, names = ("read", readers) if option == _SETUP else ("written", writers)
+    others = f"setup files are {verb} by {_listed(names, 'and')}"
     if name == "report":
-        message = (
+        return (
             "report takes the setup file as its argument, not --setup or --save: "
             "beamspread report FILE --output REPORT.pdf"
         )
-    elif name == "size":
-        message = (
-            f"size does not take {which}: it solves for the element that a setup "
+    if name == "size":
+        return (
+            f"size does not take {option}: it solves for the element that a setup "
             f"file records; give it the medium and the target on its command line ({others})"
         )
-    else:
-        message = f"{name} does not take {which}; {others}"
-    raise click.UsageError(message)
+    return f"{name} does not take {option}; {others}"
 
 
 def _refuse_techniques(name: str, path: str, options: dict, accepted) -> None:
@@ -231,39 +214,13 @@ _INSTEAD = {
 _TEMPERATURE_ELSEWHERE = ("--wedge", "--water-path")
 
 
-def _typed_values(args: list[str], accepted) -> dict[str, list]:
-    """Each parameter typed in ``args`` (by its name) -> the values typed (True for a flag)."""
-    typed: dict[str, list] = {}
-    i = 0
-    while i < len(args):
-        name, equals, inline = args[i].partition("=")
-        param = accepted.get(name) if name.startswith("--") else None
-        if param is None:
-            i += 1
-            continue
-        if getattr(param, "is_flag", False):
-            value, i = True, i + 1
-        elif equals:
-            value, i = inline, i + 1
-        else:
-            value, i = (args[i + 1] if i + 1 < len(args) else None), i + 2
-        typed.setdefault(param.name, []).append(value)
-    return typed
-
-
-def _condition_name(text) -> str:
-    return str(text).partition("=")[0].strip().lower()
-
-
 def _medium_key(name) -> str:
     """A material's name as lookups compare it (case, spaces, '_' and '/' ignored)."""
-    import re
-
-    return re.sub(r"[\s_/]", "", str(name).lower())
+    return "".join(c for c in str(name).lower() if not (c.isspace() or c in "_/"))
 
 
-def _not_typed(options: dict, typed: dict, accepted) -> dict:
-    """The setup's options less those the command line replaces (see the module's notes)."""
+def _not_typed(options: dict, typed: set[str], params: dict, accepted) -> dict:
+    """The setup's options less those the parameters ``typed`` (by name) replace."""
 
     def was_typed(option: str) -> bool:
         param = accepted.get(option)
@@ -277,17 +234,53 @@ def _not_typed(options: dict, typed: dict, accepted) -> dict:
     if was_typed("--speed") and not any(o in out or was_typed(o) for o in _TEMPERATURE_ELSEWHERE):
         out.pop("--temperature", None)  # it described the setup's material, now replaced
     if was_typed("--material") and "--material" in options:
-        material = typed[accepted["--material"].name][-1]
+        material = params[accepted["--material"].name]
         if _medium_key(material) != _medium_key(options["--material"]):
             out.pop("--condition", None)  # the setup's conditions were its own material's
     if "--condition" in out and was_typed("--condition"):
-        names = {_condition_name(v) for v in typed[accepted["--condition"].name]}
-        kept = [c for c in out["--condition"] if _condition_name(c) not in names]
+        names = {name for name, _ in params[accepted["--condition"].name]}
+        kept = [c for c in out["--condition"] if c.partition("=")[0].strip().lower() not in names]
         if kept:
             out["--condition"] = kept
         else:
             del out["--condition"]
     return out
+
+
+def _lay_over(ctx: click.Context, params: dict) -> dict:
+    """Lay the typed options over the setup's (see the module's notes); the setup's kept.
+
+    What the typed options replace goes back to its default in ``params`` and
+    ``ctx.params``; a typed ``--condition`` joins the setup's others; warns.
+    """
+    options, accepted = ctx.meta[_OPTIONS], _accepted(ctx.command)
+    typed = {n for n in ctx.params if ctx.get_parameter_source(n) is ParameterSource.COMMANDLINE}
+    kept = _not_typed(options, typed, params, accepted)
+    for option in options:
+        p = accepted.get(option)
+        if p is None or p.name in typed or option in kept:
+            continue
+        params[p.name] = () if getattr(p, "multiple", False) else None
+        ctx.set_parameter_source(p.name, ParameterSource.DEFAULT)
+    if "--condition" in kept and accepted["--condition"].name in typed:
+        p = accepted["--condition"]
+        params[p.name] = p.type_cast_value(ctx, kept["--condition"]) + tuple(params[p.name])
+    ctx.params.update(params)
+    unused = []
+    for option, value in kept.items():
+        p = accepted.get(option)
+        if p is None:
+            unused.append(option)
+        elif isinstance(value, list) and len(value) > 1 and not getattr(p, "multiple", False):
+            click.echo(
+                f"beamspread: warning: {ctx.info_name} takes one {option}; the setup's "
+                f"first ({value[0]}) is used",
+                err=True,
+            )
+    if unused:
+        message = _unused_warning(ctx.info_name, unused, kept, accepted)
+        click.echo(f"beamspread: warning: {message}", err=True)
+    return kept
 
 
 def _unused_warning(name: str, unused: list[str], options: dict, accepted) -> str:
@@ -321,8 +314,8 @@ def _unused_warning(name: str, unused: list[str], options: dict, accepted) -> st
     return message
 
 
-def _check_save_suffix(save_path: str) -> None:
-    """A setup is written to a ``.toml`` file only (the name says what the file holds)."""
+def _check_target(save_path: str) -> None:
+    """A setup is written to a new ``.toml`` file (the name says what the file holds)."""
     from pathlib import Path
 
     target = Path(save_path)
@@ -331,63 +324,6 @@ def _check_save_suffix(save_path: str) -> None:
             f"--save: {save_path!r} must end in .toml, as a setup file is TOML "
             f"(e.g. {str(target.with_suffix('.toml'))!r})"
         )
-
-
-def expand(command: click.Command, name: str, args: list[str]):
-    """The command's arguments with ``--setup`` spliced in, and what ``--save`` must do.
-
-    Returns ``(args, save)``: ``save`` is None, or a function to call once the
-    command has succeeded (a setup is only written for a command line that works,
-    and an existing file is refused before anything is computed).
-    """
-    from pathlib import Path
-
-    args, setup_path = _take(list(args), _SETUP)
-    args, save_path = _take(args, _SAVE)
-    if setup_path is None and save_path is None:
-        return args, None
-    if "-h" in args or "--help" in args:
-        return args, None
-    if not _reads_setups(command):
-        _refuse_unreadable(name, setup_path, save_path)
-    from ..setupfile import Setup, load_setup, save_setup
-
-    spliced: list[str] = []
-    if save_path is not None:
-        _check_save_suffix(save_path)
-    if setup_path is not None:
-        setup = load_setup(setup_path)
-        accepted = _accepted(command)
-        options = setup.to_options()
-        _refuse_techniques(name, setup_path, options, accepted)
-        unused = []
-        kept = _not_typed(options, _typed_values(args, accepted), accepted)
-        for option, value in kept.items():
-            param = accepted.get(option)
-            if param is None:
-                unused.append(option)
-                continue
-            if value is True:
-                spliced.append(option)
-            elif isinstance(value, list):
-                for item in value if getattr(param, "multiple", False) else value[:1]:
-                    spliced += [option, item]
-            else:
-                spliced += [option, str(value)]
-            if isinstance(value, list) and len(value) > 1 and not getattr(param, "multiple", False):
-                click.echo(
-                    f"beamspread: warning: {name} takes one {option}; the setup's "
-                    f"first ({value[0]}) is used",
-                    err=True,
-                )
-        if unused:
-            click.echo(
-                f"beamspread: warning: {_unused_warning(name, unused, kept, accepted)}", err=True
-            )
-    full = spliced + args
-    if save_path is None:
-        return full, None
-    target = Path(save_path)
     if target.exists():
         raise click.UsageError(
             f"--save: {save_path!r} exists; a setup is never overwritten: "
@@ -395,18 +331,68 @@ def expand(command: click.Command, name: str, args: list[str]):
         )
     if not target.parent.is_dir():
         raise click.UsageError(f"--save: the folder {str(target.parent)!r} does not exist")
-    typed = _typed_options(full, command)
-    if "--pulse-echo" not in typed and "--one-way" not in typed:
+
+
+def _with_unit(value, param):
+    """A bare number as typed, with the unit the command line gives it (mm, MHz, deg...)."""
+    import re
+
+    from ..units import KINDS
+    from .params import Angle, DepthList, Quantity
+
+    number = r"\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*"
+    if isinstance(value, str) and isinstance(param.type, DepthList):
+        return ":".join(
+            f"{part.strip()} {param.type.unit}" if re.fullmatch(number, part) else part
+            for part in value.split(":")
+        )
+    if not isinstance(value, str) or not re.fullmatch(number, value):
+        return value
+    if isinstance(param.type, Quantity) and KINDS[param.type.kind].default:
+        return f"{value.strip()} {KINDS[param.type.kind].default}"
+    if isinstance(param.type, Angle):
+        return f"{value.strip()} deg"
+    return value
+
+
+def _resolved_setup(ctx: click.Context, params: dict, kept: dict):
+    """The :class:`~beamspread.setupfile.Setup` of the command line as click resolved it.
+
+    The setup's options ``kept`` and each option typed, as typed with its unit
+    (from click's parse); checked now, so a bad value fails before computing.
+    """
+    from ..setupfile import Setup, recordable_options
+
+    known, accepted = recordable_options(), _accepted(ctx.command)
+    record: dict[str, object] = {}
+    for option, value in kept.items():
+        p = accepted.get(option)
+        if p is not None:  # one value for a single-valued option, as the command used
+            many = isinstance(value, list) and not getattr(p, "multiple", False)
+            record[option] = value[:1] if many else value
+    parsed = ctx.meta.get(_PARSED, {})
+    for p in ctx.command.params:
+        names = [o for o in (*p.opts, *p.secondary_opts) if o in known]
+        if not names or ctx.get_parameter_source(p.name) is not ParameterSource.COMMANDLINE:
+            continue
+        if getattr(p, "is_flag", False):  # the last of --pulse-echo/--one-way typed counts
+            for name in names:
+                record.pop(name, None)
+            on = p.opts[0] if params[p.name] else (p.secondary_opts or [None])[0]
+            if on in known:
+                record[on] = True
+            continue
+        typed = parsed[p.name]
+        texts = [_with_unit(t, p) for t in (typed if isinstance(typed, list) else [typed])]
+        if getattr(p, "multiple", False):  # a --condition joins the setup's others kept
+            record[names[0]] = [*record.get(names[0], []), *texts]
+        else:
+            record[names[0]] = texts[-1]
+    if "--pulse-echo" not in record and "--one-way" not in record:
         # Every command's default, written down so that the file says which it is.
-        typed["--one-way" if "--sonar" in typed else "--pulse-echo"] = True
-    if "--sonar" in typed and "--bandwidth" not in typed:
+        record["--one-way" if "--sonar" in record else "--pulse-echo"] = True
+    if "--sonar" in record and "--bandwidth" not in record:
         from ..sonar.conventions import SONAR_BANDWIDTH
 
-        typed["--bandwidth"] = SONAR_BANDWIDTH  # --sonar's pulse, for commands without --sonar
-    setup = Setup.from_options(typed)  # checked now: a bad value fails before computing
-
-    def save() -> None:
-        save_setup(setup, target)
-        click.echo(f"beamspread: saved the setup to {save_path}", err=True)
-
-    return full, save
+        record["--bandwidth"] = SONAR_BANDWIDTH  # --sonar's pulse, for commands without --sonar
+    return Setup.from_options(record)

@@ -29,7 +29,7 @@ class Resolved:
         return list(self.registry.warnings if self.registry else []) + list(self.wave.warnings)
 
     def absorption(self, frequency: float):
-        """The medium's :class:`~beamspread.media.quantities.Absorption` at ``frequency``, or None."""
+        """The :class:`~beamspread.media.quantities.Absorption` at ``frequency``, or None."""
         if self.medium is None:
             return None
         return self.medium.evaluate_absorption(frequency, self.conditions)
