@@ -88,6 +88,7 @@ import numpy as np
 from ..errors import InputError
 from ..probes import Disc, Ellipse, Rectangle, check_positive
 from ._boundary import disc_table, ellipse_table, rectangle_table
+from ._threads import one_blas_thread
 from .spectrum import Spectrum, make_spectrum
 
 __all__ = ["MAX_POINTS", "MODES", "field_amplitude", "pressure"]
@@ -177,6 +178,12 @@ def _row_chunks(used: np.ndarray, depths: int):
 
 
 def _sums(q, weight, used, z, wavenumbers, dtype, reduce):
+    """Evaluate the boundary sums, with BLAS on one thread (:mod:`._threads`)."""
+    with one_blas_thread():
+        _threaded_sums(q, weight, used, z, wavenumbers, dtype, reduce)
+
+
+def _threaded_sums(q, weight, used, z, wavenumbers, dtype, reduce):
     """Evaluate the boundary sums over lateral rows x depths for each wavenumber.
 
     ``z`` has shape (1, D) (the same depths for every row) or (L, 1) (one
