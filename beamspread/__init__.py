@@ -63,6 +63,7 @@ from .probes import Disc, Rectangle
 
 if TYPE_CHECKING:
     from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
+    from .batch import FarFieldBeams, far_field_beams
     from .design import Design, size_disc, size_frequency, size_rectangle_side, smallest_spot
     from .inspection import (
         Focus,
@@ -98,6 +99,7 @@ __all__ = [
     "Disc",
     "EchoBudget",
     "Entry",
+    "FarFieldBeams",
     "FieldMap",
     "FieldSettings",
     "FieldSummary",
@@ -137,6 +139,7 @@ __all__ = [
     "disc_near_field",
     "echo_budget",
     "equivalent_beam_angle",
+    "far_field_beams",
     "field_amplitude",
     "field_map",
     "first_null",
@@ -167,6 +170,8 @@ __all__ = [
 # The later tools' headline names load on first use, so that `import beamspread` (and with it
 # the command line's start-up) does not pay for modules a command may never touch.
 _LAZY = {
+    "FarFieldBeams": "batch",
+    "far_field_beams": "batch",
     "ainslie_mccolm": "absorption",
     "air_iso9613": "absorption",
     "francois_garrison": "absorption",
