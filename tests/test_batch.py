@@ -42,7 +42,7 @@ def test_disc_angle_against_scipy_j1():
     c = rng.uniform(1400.0, 6300.0, 50)
     for level in (3.0, 6.0, 20.0):
         target = 10 ** (-level / 40)
-        x = brentq(lambda t: 2 * j1(t) / t - target, 1e-9, 3.8317, xtol=1e-15)
+        x = brentq(lambda t, g=target: 2 * j1(t) / t - g, 1e-9, 3.8317, xtol=1e-15)
         expected = np.arcsin(np.minimum(x * c / (f * math.pi * d), 2.0))
         expected = np.where(x * c / (f * math.pi * d) <= 1, expected, np.nan)
         got = far_field_beams(d, f, c, 0.1, level_db=level).half_angle
