@@ -21,8 +21,10 @@ from functools import cache
 
 __all__ = ["KERNEL", "one_blas_thread"]
 
-KERNEL = "numpy-float32-stepped, BLAS held to 1 thread (threadpoolctl)"
-"""The path the engine's broadband maps run (reported by the benchmark)."""
+KERNEL = (
+    "numpy float32 (phasors stepped between frequencies), BLAS held to 1 thread (threadpoolctl)"
+)
+"""The path the engine's maps run (reported by the benchmark): pure numpy, no compiled kernel."""
 
 
 @cache
