@@ -166,7 +166,7 @@ def case(name, probe, near_field, half_width, bandwidth):
         "ours_s": round(ours_s, 5),
         "reference_s": round(reference_s, 3),
         "ratio": round(reference_s / ours_s, 1),
-        "max_error_db": round(db_error(ours_sub, truth), 5),
+        "max_error_db": float(f"{db_error(ours_sub, truth):.2g}"),
         "reference_error_db": round(db_error(a16, truth), 4),
         "matched_spacing": f"lambda/{matched} "
         + (f"(within {MATCH_DB} dB)" if reached else f"(finest tried; not within {MATCH_DB} dB)"),
