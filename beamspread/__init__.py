@@ -63,6 +63,7 @@ from .probes import Disc, Rectangle
 
 if TYPE_CHECKING:
     from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
+    from .batch import FarFieldBeams, far_field_beams
     from .conventions import Coupling, Method, Mode
     from .design.result import Design
     from .design.solvers import size_disc, size_frequency, size_rectangle_side, smallest_spot
@@ -110,6 +111,7 @@ __all__ = [
     "Disc",
     "EchoBudget",
     "Entry",
+    "FarFieldBeams",
     "FieldMap",
     "FieldSettings",
     "FieldSource",
@@ -161,6 +163,7 @@ __all__ = [
     "disc_near_field",
     "echo_budget",
     "equivalent_beam_angle",
+    "far_field_beams",
     "field_amplitude",
     "field_map",
     "first_null",
@@ -205,6 +208,8 @@ _LAZY = {
     "Mode": "conventions",
     "Method": "conventions",
     "Coupling": "conventions",
+    "FarFieldBeams": "batch",
+    "far_field_beams": "batch",
     "ainslie_mccolm": "absorption",
     "air_iso9613": "absorption",
     "francois_garrison": "absorption",

@@ -36,6 +36,8 @@ J. Acoust. Soc. Am. 49, 181 (1971), for the on-axis integral form.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 
 from ._search import golden_max
@@ -90,11 +92,13 @@ def disc_axial_pressure(
     return 2.0 * np.abs(np.sin(0.5 * k * path))
 
 
+@lru_cache(maxsize=64)
 def _edge_nodes(half_long: float, half_short: float, k: float):
     """Gauss-Legendre nodes and weights for the polar angle to each edge of a quarter face.
 
     Returns the edge distances rho (per node) and weights that sum to pi/2
-    over the quarter; symmetry gives the other three quarters.
+    over the quarter; symmetry gives the other three quarters. Kept per
+    element and wavenumber (a search calls it dozens of times); read-only.
     """
     corner = np.arctan2(half_short, half_long)
     diagonal = np.hypot(half_long, half_short)
@@ -106,6 +110,8 @@ def _edge_nodes(half_long: float, half_short: float, k: float):
     phi2 = corner + 0.5 * (0.5 * np.pi - corner) * (x + 1.0)
     rho = np.concatenate([half_long / np.cos(phi1), half_short / np.sin(phi2)])
     weights = np.concatenate([0.5 * corner * w, 0.5 * (0.5 * np.pi - corner) * w])
+    rho.flags.writeable = False
+    weights.flags.writeable = False
     return rho, weights
 
 
@@ -166,14 +172,29 @@ def rectangle_near_field(length: float, width: float, wavelength: float) -> floa
     1.37
     1.35
     """
+    return _rectangle_near_field(float(length), float(width), float(wavelength))
+
+
+@lru_cache(maxsize=4096)
+def _rectangle_near_field(length: float, width: float, wavelength: float) -> float:
+    """:func:`rectangle_near_field`, kept per (length, width, wavelength).
+
+    The grid is scanned from its far end: the farthest 600 points first, all
+    4001 only where those hold no maximum. The farthest local maximum of the
+    whole grid is the farthest of any tail that holds one, so the bracket,
+    and the result, are the same either way.
+    """
     longer = max(length, width)
     scale = float(simple_near_field(longer, wavelength))
     z = np.geomspace(1e-4 * scale, 4.0 * scale, 4001)
-    p = rectangle_axial_pressure(z, length, width, wavelength)
-    peaks = np.flatnonzero((p[1:-1] > p[:-2]) & (p[1:-1] >= p[2:])) + 1
+    for start in (z.size - 600, 0):
+        p = rectangle_axial_pressure(z[start:], length, width, wavelength)
+        peaks = np.flatnonzero((p[1:-1] > p[:-2]) & (p[1:-1] >= p[2:])) + 1
+        if peaks.size:
+            break
     if peaks.size == 0:
         return float("nan")
-    i = int(peaks[-1])
+    i = start + int(peaks[-1])
 
     def amplitude(zi: float) -> float:
         return float(rectangle_axial_pressure(zi, length, width, wavelength))

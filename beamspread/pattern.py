@@ -23,7 +23,7 @@ J. Krautkramer and H. Krautkramer, *Ultrasonic Testing of Materials*
 
 from __future__ import annotations
 
-from functools import cache
+from functools import cache, lru_cache
 
 import numpy as np
 
@@ -140,6 +140,8 @@ def pattern_x(level_db: np.ndarray | float, shape: str = "disc", mode: str = "pu
     """The main-lobe argument ``x`` where the pattern falls to ``level_db`` dB down.
 
     The constant ``k`` of the form ``sin(theta) = k lambda / D`` is ``x / pi``.
+    Each distinct (level, shape, mode) is solved once by bisection and kept,
+    so repeated calls cost a dictionary look-up.
 
     Examples
     --------
@@ -147,11 +149,22 @@ def pattern_x(level_db: np.ndarray | float, shape: str = "disc", mode: str = "pu
     0.51
     """
     _check_shape(shape)
+    _check_mode(mode)
+    level = np.abs(np.asarray(level_db, dtype=float))
+    if level.ndim == 0:
+        return np.asarray(_level_x(float(level), shape, mode))
+    distinct, inverse = np.unique(level, return_inverse=True)
+    found = np.array([_level_x(float(value), shape, mode) for value in distinct])
+    return found[inverse.reshape(level.shape)]
+
+
+@lru_cache(maxsize=1024)
+def _level_x(level_db: float, shape: str, mode: str) -> float:
+    """The main-lobe argument for one level, found once per (level, shape, mode)."""
     target = level_amplitude(level_db, mode)
-    null = first_null_x(shape)
     lo = np.zeros_like(target)
-    hi = np.full_like(target, null)
-    return _bisect(lambda x: _pattern(shape, x) - target, lo, hi)
+    hi = np.full_like(target, first_null_x(shape))
+    return float(_bisect(lambda x: _pattern(shape, x) - target, lo, hi))
 
 
 def _angle_from_x(x, aperture, wavelength) -> np.ndarray:

@@ -66,6 +66,7 @@ from ..errors import InputError
 from ..probes import Disc, Rectangle, check_positive, plane_name
 from ..units import parse_level
 from ._boundary import gauss_legendre, node_ladder
+from ._threads import one_blas_thread
 from .engine import check_mode
 from .profiles import BeamWidth
 from .spectrum import check_bandwidth, make_spectrum
@@ -106,11 +107,12 @@ def _integrals(half, kind, alpha, beta):
     out = np.empty((d, f, r), dtype=complex)
     kernel = j0 if kind == "disc" else np.cos
     step = max(1, _BUDGET // (f * rho.size))
-    for i in range(0, d):
-        for j in range(0, r, step):
-            k = kernel(beta[i, :, j : j + step, None] * rho)  # (F, Rc, n)
-            out[i, :, j : j + step].real = np.matmul(k, e_re[i][:, :, None])[..., 0]
-            out[i, :, j : j + step].imag = np.matmul(k, e_im[i][:, :, None])[..., 0]
+    with one_blas_thread():
+        for i in range(0, d):
+            for j in range(0, r, step):
+                k = kernel(beta[i, :, j : j + step, None] * rho)  # (F, Rc, n)
+                out[i, :, j : j + step].real = np.matmul(k, e_re[i][:, :, None])[..., 0]
+                out[i, :, j : j + step].imag = np.matmul(k, e_im[i][:, :, None])[..., 0]
     return out
 
 

@@ -25,6 +25,7 @@ from ..axis import simple_near_field
 from ..errors import InputError
 from ..probes import check_positive, plane_name
 from ..units import parse_level
+from ._crossings import crossings
 from .engine import _grid_amplitude, check_mode
 from .spectrum import check_bandwidth
 
@@ -338,22 +339,15 @@ def beam_widths(
         offsets = np.linspace(0.0, extent, count)
         a = amplitude(offsets, single=True)  # the scan in float32, the crossings in float64
         peak = float(amplitude(offsets[int(np.argmax(a))])[0])
-        for level in list(pending):
+        brackets = {}
+        for level in pending:
             threshold = 10.0 ** (-level / 20.0) * peak
             above = np.flatnonzero(a >= threshold)
-            if above[-1] == count - 1:
-                continue  # not reached yet: widen the scan
-            lo, hi = float(offsets[above[-1]]), float(offsets[above[-1] + 1])
-            # Refine the crossing: 63 samples a round shrink the bracket 64-fold.
-            while hi - lo > 1e-9 * max(hi, aperture):
-                inner = np.linspace(lo, hi, 65)[1:-1]
-                keep = np.flatnonzero(amplitude(inner) >= threshold)
-                if keep.size:
-                    lo = float(inner[keep[-1]])
-                    hi = float(inner[keep[-1] + 1]) if keep[-1] + 1 < inner.size else hi
-                else:
-                    hi = float(inner[0])
-            widths[level] = lo + hi  # twice the midpoint
+            if above[-1] < count - 1:  # else not reached yet: widen the scan
+                i = int(above[-1])
+                brackets[level] = (threshold, float(offsets[i]), float(offsets[i + 1]))
+        for level, width in crossings(amplitude, brackets, aperture).items():
+            widths[level] = width
             pending.remove(level)
         if not pending:
             break
