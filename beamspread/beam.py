@@ -14,7 +14,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from . import axis, pattern
-from .conventions import level_key
+from .conventions import Coupling, level_key
 from .errors import InputError
 from .media.quantities import Wave
 from .probes import Disc, Probe, Rectangle, check_positive
@@ -127,6 +127,8 @@ class BeamResult:
     warnings: tuple[str, ...] = field(default_factory=tuple)
     near_field_simple_method: str | None = None  # where not the plain D²/4λ or L²/4λ
     field: FieldSummary | None = None
+    coupling: Coupling = Coupling.CONTACT  # how the beam got into the part
+    focus: float | None = None  # m: the element's focal length, None for a flat element
 
 
 def _levels(levels: Iterable[float | str]) -> tuple[float, ...]:
@@ -234,7 +236,7 @@ def analyse(
     else:
         near_field = near
 
-    shape = "disc" if isinstance(probe, Disc) else "side"
+    shape = probe.pattern
     planes = []
     for name, aperture in probe.planes:
         angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))

@@ -70,6 +70,11 @@ class Disc:
     focus: float | None = None
 
     shape = "disc"
+    pattern = "disc"  # the far-field pattern's kind (pattern.half_angle's ``shape``)
+
+    def dimensions(self) -> dict[str, float]:
+        """The element's sizes, m, keyed as the JSON writes them."""
+        return {"diameter_m": self.diameter}
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "diameter", check_positive(self.diameter, "diameter", "m"))
@@ -98,6 +103,10 @@ class _TwoSided:
         object.__setattr__(self, "length", check_positive(self.length, "length", "m"))
         object.__setattr__(self, "width", check_positive(self.width, "width", "m"))
         object.__setattr__(self, "frequency", check_positive(self.frequency, "frequency", "Hz"))
+
+    def dimensions(self) -> dict[str, float]:
+        """The element's sizes, m, keyed as the JSON writes them."""
+        return {"length_m": self.length, "width_m": self.width}
 
     @property
     def planes(self) -> tuple[tuple[str, float], ...]:
@@ -128,6 +137,7 @@ class Rectangle(_TwoSided):
     focus: float | None = None
 
     shape = "rectangle"
+    pattern = "side"  # each plane's pattern is a side's sinc
 
     def __post_init__(self) -> None:
         super().__post_init__()
@@ -153,6 +163,7 @@ class Ellipse(_TwoSided):
     """
 
     shape = "ellipse"
+    pattern = "disc"  # its planes' patterns are taken as a disc's of that aperture
 
 
 Probe = Disc | Rectangle | Ellipse

@@ -286,7 +286,7 @@ def far_field_widths(
 
     plane = plane_name(probe, plane)
     aperture = dict(probe.planes)[plane]
-    shape = "disc" if probe.shape == "disc" else "side"
+    shape = probe.pattern
     speed = check_positive(speed, "speed", "m/s")
     theta = float(half_angle(level_db, aperture, speed / probe.frequency, shape, mode))
     depths = scan_depths(start, stop, count)

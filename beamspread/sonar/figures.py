@@ -8,7 +8,6 @@ from dataclasses import dataclass
 
 from ..beam import level_key
 from ..errors import InputError
-from ..probes import Disc
 from .beam_angle import equivalent_beam_angle
 from .directivity import directivity_factor, rayleigh_distance
 from .footprint import Footprint, footprint_width
@@ -68,7 +67,7 @@ def sonar_figures(
     (17.73, 9.36)
     """
     probe, wavelength = result.probe, result.wavelength
-    shape = "disc" if isinstance(probe, Disc) else "side"
+    shape = probe.pattern
     q = directivity_factor(probe, wavelength)
     method = (
         "exact: (ka)^2 / (1 - J1(2ka)/(ka))"

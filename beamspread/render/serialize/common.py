@@ -9,7 +9,6 @@ import math
 from typing import Any
 
 from ...media.quantities import Wave
-from ...probes import Disc
 
 _SUFFIX = {
     "degC": "c",
@@ -96,12 +95,7 @@ def _cell(value: Any) -> Any:
 
 def probe_to_dict(probe) -> dict[str, Any]:
     """The ``probe`` object of the JSON forms."""
-    if isinstance(probe, Disc):
-        out: dict[str, Any] = {"shape": "disc", "diameter_m": probe.diameter}
-    else:
-        out = {"shape": "rectangle", "length_m": probe.length, "width_m": probe.width}
-    out["frequency_hz"] = probe.frequency
-    return out
+    return {"shape": probe.shape, **probe.dimensions(), "frequency_hz": probe.frequency}
 
 
 def amplitude_unit(mode: str) -> str:

@@ -5,6 +5,7 @@ from __future__ import annotations
 import textwrap
 
 from ...beam import BeamResult, level_key
+from ...conventions import Coupling
 from ...probes import Disc
 from ...units import format_length
 from .common import _angle, caution_for, columns, field_description, medium_and_probe_lines
@@ -75,16 +76,13 @@ def beam_table(
 ) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given).
 
-    A result with depths but no far-field width is a focused probe's (no other
-    result leaves the far-field rows out): its widths come from its computed
-    field alone, and the notes under the width table say so.
+    A focused probe's result has no far-field width: its widths come from its
+    computed field alone, and the notes under the width table say so.
     """
     out: list[str] = medium_and_probe_lines(result.probe, result.wave, units, "Beam of a")
     out.append("")
     near = result.near_field
-    contact = result.near_field_method.startswith("last on-axis maximum, exact") or (
-        result.near_field_method.startswith("last on-axis maximum of the exact")
-    )
+    contact = result.coupling is Coupling.CONTACT and result.focus is None
     if contact:
         method = "last on-axis maximum, " + (
             "exact (D² − λ²)/4λ"
@@ -200,9 +198,7 @@ def beam_table(
                     indent=4,
                 )
             )
-    focused = bool(result.depths) and not any(
-        s.method == "far-field" for pl in result.planes for s in pl.spots
-    )
+    focused = bool(result.depths) and result.focus is not None
     if result.depths:
         out.append("")
         angled = any(s.surface_distance for pl in result.planes for s in pl.spots)
@@ -313,7 +309,7 @@ def beam_table(
                 )
         elif focused:
             out.extend(_focused_notes(result))
-        elif result.near_field_method.startswith("(N_water"):
+        elif result.coupling is Coupling.IMMERSION:
             out.append(
                 "  far field: 2·(water path·tan(half-angle in water) + z·tan(half-angle "
                 "in the part))."
@@ -351,7 +347,7 @@ def beam_table(
 
 def _focused_notes(result: BeamResult) -> list[str]:
     """Why a focused probe's width table has no far-field row, and what its rows are."""
-    immersed = result.near_field_method.startswith("(N_water")
+    immersed = result.coupling is Coupling.IMMERSION
     where = (
         "at the equivalent water path (water path + z·c_part/c_water)" if immersed else "at depth z"
     )
