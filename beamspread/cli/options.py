@@ -3,13 +3,9 @@
 from __future__ import annotations
 
 import functools
-from dataclasses import dataclass, field
-from typing import Any
 
 import click
 
-from ..errors import InputError
-from ..units import from_si, parse_quantity
 from .params import CONDITION, ELEMENT, FREQUENCY, SPEED, TEMPERATURE
 
 __all__ = [
@@ -184,88 +180,21 @@ def load_registry(materials_dirs):
     return build_registry(materials_dirs)
 
 
-@dataclass(frozen=True)
-class Resolved:
-    """What the medium options describe: the wave, and where it came from."""
+def resolve_wave(material, wave, speed, temperature, conditions, materials_dirs):
+    """The part's medium from the medium options (:func:`beamspread.media.resolve.resolve_part`).
 
-    wave: Any  # beamspread.media.Wave
-    registry: Any = None  # the Registry, None for --speed
-    medium: Any = None  # the Material or ComputedMedium, None for --speed
-    conditions: dict = field(default_factory=dict)  # as given, each in its declared unit
-
-    @property
-    def warnings(self) -> list[str]:
-        return list(self.registry.warnings if self.registry else []) + list(self.wave.warnings)
-
-    def absorption(self, frequency: float):
-        """The medium's :class:`~beamspread.media.quantities.Absorption` at a frequency, or None."""
-        if self.medium is None:
-            return None
-        return self.medium.evaluate_absorption(frequency, self.conditions)
-
-
-def resolve_wave(
-    material,
-    wave,
-    speed,
-    temperature,
-    conditions,
-    materials_dirs,
-    *,
-    temperature_elsewhere: bool = False,
-) -> Resolved:
-    """Resolve the medium options: the :class:`~beamspread.media.Wave` and its sources.
-
-    ``temperature_elsewhere``: --temperature also sets another medium (a
-    couplant), so a part that does not depend on it is not warned about it.
+    Options that do not go together are refused here, named as typed.
     """
-    from ..media.quantities import Wave
+    from ..media.resolve import resolve_part
 
-    wave = wave or "longitudinal"
     if (material is None) == (speed is None):
         raise click.UsageError("give either --material NAME or --speed SPEED")
-    if speed is not None:
-        if temperature_elsewhere:
-            temperature = None
-        if temperature is not None or conditions:
-            raise click.UsageError(
-                "--temperature and --condition describe a --material; "
-                "with --speed they mean nothing"
-            )
-        return Resolved(Wave.given(speed, wave))
-    registry = load_registry(materials_dirs)
-    entry = registry.get(material)
-    medium = entry.medium
-    values: dict[str, float] = {}
-    if (
-        temperature is not None
-        and temperature_elsewhere
-        and medium.parameter("temperature") is None
-        and not getattr(medium, "depends_on_temperature", False)
-    ):
-        temperature = None  # it is the couplant's
-    if temperature is not None:
-        declared = medium.parameter("temperature")
-        unit = declared.unit if declared is not None else "degC"
-        values["temperature"] = from_si(temperature, "temperature", unit)
-    for name, text in conditions:
-        if name in values:
-            raise click.UsageError(f"--condition {name} is given twice (or with --temperature)")
-        parameter = medium.parameter(name)
-        if parameter is None and name == "temperature":
-            values[name] = parse_quantity(text, "temperature", what=f"--condition {name}")
-            continue
-        if parameter is None:
-            declared = ", ".join(p.name for p in medium.parameters) or "none"
-            raise InputError(
-                f"--condition {name}: {medium.name} does not depend on {name}; "
-                f"it declares: {declared}"
-            )
-        si = parse_quantity(
-            text, parameter.kind, what=f"--condition {name}", default=parameter.unit
+    if speed is not None and (temperature is not None or conditions):
+        raise click.UsageError(
+            "--temperature and --condition describe a --material; with --speed they mean nothing"
         )
-        values[name] = from_si(si, parameter.kind, parameter.unit)
-    return Resolved(medium.evaluate(wave, values), registry, medium, values)
+    registry = None if material is None else load_registry(materials_dirs)
+    return resolve_part(registry, material, wave, speed, temperature, conditions)
 
 
 def emit_warnings(lines) -> None:
