@@ -90,6 +90,15 @@ def _last_maximum(result, settings, mode):
     return (found - source.start) / source.stretch
 
 
+def _axis_label(result) -> str:
+    """What the field commands' depth axis is, for the technique."""
+    if result.source.coordinate == "sound path":
+        return "sound path in the part from the exit point"
+    if result.setup is not None and result.source.start > 0:
+        return "depth in the part"
+    return "depth from the probe face"
+
+
 def _note(data: dict, result) -> dict:
     """``data`` with the technique's coupling and coordinate added (beyond contact)."""
     from ..render.serialize.result import source_to_dict
@@ -447,6 +456,7 @@ def map_(
             near_field=near,
             axial_maximum=pulse_maximum,
             near_label="near field (continuous wave)" if settings.bandwidth > 0 else "near field",
+            axis_label=_axis_label(computed),
             caption=_caption(probe, medium, settings, mode),
             units=units,
         )

@@ -65,6 +65,7 @@ def draw_map(
     depth_labels: Sequence[str] | None = None,
     depth_legend: str = "requested depths",
     axial_label: str = "last on-axis maximum of the pulse",
+    axis_label: str = "depth from the probe face",
 ) -> MapArtists:
     """Draw a :class:`~beamspread.field.FieldMap` into ``ax``: lateral across, depth downward.
 
@@ -122,7 +123,7 @@ def draw_map(
     ax.set_xlim(extent[0], extent[1])
     ax.set_ylim(extent[3], extent[2])  # depth grows downward, as the beam enters the part
     ax.set_xlabel(f"lateral offset in the {plane or field_map.plane} plane, {unit}")
-    ax.set_ylabel(f"depth from the probe face, {unit}")
+    ax.set_ylabel(f"{axis_label}, {unit}")
     ax.set_title(
         f"Computed beam map: {_mode_text(field_map.mode, field_map.bandwidth)}", fontsize=10
     )
@@ -231,6 +232,7 @@ def map_figure(
     size: tuple[float, float] = FIGSIZE,
     axial_maximum: float | None = None,
     near_label: str = "near field",
+    axis_label: str = "depth from the probe face",
 ) -> Figure:
     """:func:`plot_map`'s picture as a Figure."""
     fig = new_figure(size, caption=caption)
@@ -245,6 +247,7 @@ def map_figure(
         legend=False,
         axial_maximum=axial_maximum,
         near_label=near_label,
+        axis_label=axis_label,
     )
     _strip_legend(strip, drawn.handles)
     return fig
@@ -261,6 +264,7 @@ def plot_map(
     units: str = "mm",
     axial_maximum: float | None = None,
     near_label: str = "near field",
+    axis_label: str = "depth from the probe face",
 ) -> Path:
     """Draw the beam map (see :func:`draw_map`) to ``path``; return the path.
 
@@ -281,6 +285,7 @@ def plot_map(
             units=units,
             axial_maximum=axial_maximum,
             near_label=near_label,
+            axis_label=axis_label,
         ),
         path,
     )
