@@ -65,16 +65,11 @@ if TYPE_CHECKING:
     from .absorption import ainslie_mccolm, air_iso9613, francois_garrison, fresh_water
     from .batch import FarFieldBeams, far_field_beams
     from .conventions import Coupling, Method, Mode
+    from .coupling.immersion import Focus, WaterPath, analyse_immersion
+    from .coupling.result import SetupResult
+    from .coupling.wedge import Wedge, analyse_wedge
     from .design.result import Design
     from .design.solvers import size_disc, size_frequency, size_rectangle_side, smallest_spot
-    from .inspection import (
-        Focus,
-        SetupResult,
-        WaterPath,
-        Wedge,
-        analyse_immersion,
-        analyse_wedge,
-    )
     from .pipeline import Result, compute
     from .scan import ScanPlan, plan_scan
     from .setups import critical_angles, refract
@@ -219,12 +214,12 @@ _LAZY = {
     "size_frequency": "design.solvers",
     "size_rectangle_side": "design.solvers",
     "smallest_spot": "design.solvers",
-    "Focus": "inspection",
-    "SetupResult": "inspection",
-    "WaterPath": "inspection",
-    "Wedge": "inspection",
-    "analyse_immersion": "inspection",
-    "analyse_wedge": "inspection",
+    "Focus": "coupling.immersion",
+    "SetupResult": "coupling.result",
+    "WaterPath": "coupling.immersion",
+    "Wedge": "coupling.wedge",
+    "analyse_immersion": "coupling.immersion",
+    "analyse_wedge": "coupling.wedge",
     "ScanPlan": "scan",
     "plan_scan": "scan",
     "critical_angles": "setups",

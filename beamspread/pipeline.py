@@ -188,7 +188,7 @@ def _contact(*, technique, part, mode, settings) -> Result:
 
 
 def _wedge(registry, *, technique, part, mode, settings) -> Result:
-    from .inspection import Wedge, analyse_wedge
+    from .coupling.wedge import Wedge, analyse_wedge
 
     t, w = technique, technique.coupling
     warnings = _registry_warnings(part, registry)
@@ -245,7 +245,7 @@ def _wedge(registry, *, technique, part, mode, settings) -> Result:
 
 
 def _immersion(registry, *, technique, part, mode, settings) -> Result:
-    from .inspection import Focus, WaterPath, analyse_immersion
+    from .coupling.immersion import Focus, WaterPath, analyse_immersion
 
     t = technique
     element = t.element

@@ -150,7 +150,7 @@ class Ellipse(_TwoSided):
 
     A disc on an angle-beam wedge is seen from the part as an ellipse whose
     axis in the incidence plane is shortened by cos(refracted)/cos(incident);
-    :mod:`beamspread.inspection` builds it.
+    :mod:`beamspread.coupling.wedge` builds it.
 
     Parameters
     ----------

@@ -9,7 +9,7 @@ element:
 * wedge: the virtual element in the part (the real one projected by
   cos(refracted)/cos(incident) in the incidence plane) set back behind the
   exit point by the wedge path's equivalent; the range is the sound path plus
-  that offset (common practice, see :mod:`beamspread.inspection`);
+  that offset (common practice, see :mod:`beamspread.coupling.wedge`);
 * water path (and a focus): the element in the couplant at the equivalent
   water path ``WP + d c_part / c_couplant`` (paraxial; the lateral scale is
   unchanged).

@@ -25,7 +25,7 @@ def test_an_unknown_name_is_an_attribute_error():
 def test_import_loads_the_later_tools_only_on_use():
     code = (
         "import json, sys, beamspread\n"
-        "late = ('design', 'sonar', 'inspection', 'scan', 'setups', 'absorption')\n"
+        "late = ('design', 'sonar', 'coupling', 'scan', 'setups', 'absorption')\n"
         "before = [m for m in late if 'beamspread.' + m in sys.modules]\n"
         "beamspread.size_disc\n"
         "after = [m for m in late if 'beamspread.' + m in sys.modules]\n"

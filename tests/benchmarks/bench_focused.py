@@ -17,7 +17,7 @@ import time
 from pathlib import Path
 
 from beamspread.beam import FieldSettings
-from beamspread.inspection import Focus, WaterPath, analyse_immersion
+from beamspread.coupling.immersion import Focus, WaterPath, analyse_immersion
 from beamspread.media.quantities import Wave
 from beamspread.probes import Disc
 

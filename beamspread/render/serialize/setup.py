@@ -63,7 +63,7 @@ SECTION_CSV_COLUMNS = (
 def section_to_csv(footprints, mode: str) -> str:
     """CSV of ``beamspread section``: one row per leg and level footprint (SI units).
 
-    ``footprints`` are :class:`beamspread.inspection.WedgeFootprint`; ``near_m``
+    ``footprints`` are :class:`beamspread.coupling.result.WedgeFootprint`; ``near_m``
     and ``far_m`` are where the level's edges cross the flaw depth, along the
     surface from the exit point, empty where an edge does not reach it.
     """
