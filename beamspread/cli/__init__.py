@@ -19,11 +19,11 @@ from ..errors import BeamspreadError, InputError, TableError
 __all__ = ["cli", "main"]
 
 _COMMANDS = {
-    "across": "beamspread.cli.field:across",
-    "axis": "beamspread.cli.field:axis",
+    "across": "beamspread.cli.profiles:across",
+    "axis": "beamspread.cli.profiles:axis",
     "beam": "beamspread.cli.beam:beam",
     "demo": "beamspread.cli.demo:demo",
-    "map": "beamspread.cli.field:map_",
+    "map": "beamspread.cli.fieldmap:map_",
     "materials": "beamspread.cli.materials:materials",
     "plugins": "beamspread.cli.plugins:plugins",
     "report": "beamspread.cli.report:report",

@@ -1,0 +1,195 @@
+"""``beamspread map``: a 2-D map of the computed amplitude in a plane through the axis."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import click
+
+from .field import (
+    MAX_MAP_POINTS,
+    _axis_label,
+    _caption,
+    _check_plane,
+    _check_range,
+    _check_validity,
+    _last_maximum,
+    _note,
+    _points_option,
+    _reference_length,
+    _setup,
+    _write_atomically,
+)
+from .options import check_plot, emit_warnings, plot_option
+from .params import LENGTH
+from .setupargs import setup_file_options
+from .techniqueargs import technique_options
+
+
+@click.command("map")
+@technique_options
+@click.option(
+    "--plane",
+    default=None,
+    metavar="NAME",
+    help="diameter (disc), length or width (rectangle); on a wedge the incidence plane "
+    "of a disc; default the first.",
+)
+@click.option(
+    "--from",
+    "start",
+    type=LENGTH,
+    default=None,
+    help="First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+)
+@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
+@click.option(
+    "--span",
+    type=LENGTH,
+    default=None,
+    help="Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture at the last depth).",
+)
+@_points_option(256, 16384, "--depth-points", "Number of depths")
+@_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
+@click.option(
+    "--output",
+    "-o",
+    type=click.Path(dir_okay=False),
+    default=None,
+    help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+)
+@click.option("--force", is_flag=True, help="Overwrite an existing --output or --plot file.")
+@click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
+@plot_option(
+    "Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.", force=False
+)
+@click.option(
+    "--units",
+    type=click.Choice(["mm", "in"]),
+    default="mm",
+    show_default=True,
+    help="Lengths on the picture.",
+)
+@setup_file_options
+def map_(
+    plane,
+    start,
+    stop,
+    span,
+    depth_points,
+    lateral_points,
+    output,
+    force,
+    as_json,
+    plot_path,
+    units,
+    setup_path,
+    save_path,
+    **common,
+):
+    """A 2-D map of the computed amplitude in a plane through the axis.
+
+    \b
+    CSV: one row per point, columns depth_m, lateral_m, amplitude, level_db
+    (dB relative to the largest amplitude of the map).
+    JSON: depth_m, lateral_m, and amplitude[i][j] at depth_m[i], lateral_m[j].
+    NPZ: arrays depth_m, lateral_m, amplitude, level_db and a JSON string
+    "metadata" with the probe, medium and field settings.
+    """
+    import numpy as np
+
+    target = None
+    if output is not None:
+        target = Path(output)
+        if target.suffix.lower() not in (".csv", ".json", ".npz"):
+            raise click.BadParameter(
+                f"{output!r}: the suffix must be .csv, .json or .npz", param_hint="--output"
+            )
+        if not target.parent.is_dir():
+            raise click.BadParameter(
+                f"{output!r}: the folder {str(target.parent)!r} does not exist",
+                param_hint="--output",
+            )
+        if target.exists() and not force:
+            raise click.BadParameter(
+                f"{output!r} exists; add --force to overwrite it", param_hint="--output"
+            )
+    if depth_points * lateral_points > MAX_MAP_POINTS:
+        raise click.UsageError(
+            f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
+            f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
+        )
+    check_plot(plot_path, force)
+    computed, settings, warnings = _setup(common)
+    probe, medium, mode = computed.technique.element, computed.beam.wave, computed.mode
+    source = computed.source
+    plane = _check_plane(source, plane or source.planes[0])
+    simple = _reference_length(computed)
+    start = 0.1 * simple if start is None else start
+    stop = 3.0 * simple if stop is None else stop
+    _check_range(start, stop, depth_points, "map")
+    if computed.coupling == "contact" and not computed.focused:
+        _check_validity(warnings, start, simple)
+    aperture = dict(source.element.planes)[source.element_plane(plane)]
+    wavelength = source.speed / source.element.frequency
+    far = float(source.ranges(stop))
+    half = span if span is not None else max(aperture, 4 * wavelength * far / aperture)
+    result = source.map(
+        np.linspace(-half, half, lateral_points),
+        np.linspace(start, stop, depth_points),
+        plane,
+        mode,
+        settings,
+    )
+    if plot_path is not None:
+        from ..render.plots import plot_map
+
+        # The near field in the part (the continuous-wave last on-axis maximum) is marked
+        # where there is one; a pulse's own last on-axis maximum, where the map's beam is
+        # strongest, too.
+        near = computed.beam.near_field
+        pulse_maximum = _last_maximum(computed, settings, mode) if settings.bandwidth > 0 else None
+        plot_map(
+            result,
+            plot_path,
+            near_field=near,
+            axial_maximum=pulse_maximum,
+            near_label="near field (continuous wave)" if settings.bandwidth > 0 else "near field",
+            axis_label=_axis_label(computed),
+            caption=_caption(probe, medium, settings, mode),
+            units=units,
+        )
+        click.echo(f"beamspread: drew {plot_path}", err=True)
+        if target is None:  # the picture was what was asked for
+            emit_warnings(warnings)
+            return
+    emit_warnings(warnings)
+    from ..render.serialize import field as serialize
+    from ..render.serialize.common import dumps
+
+    def text(kind):
+        if kind == ".json":
+            data = serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
+            return dumps(_note(data, computed))
+        return serialize.map_to_csv(result)
+
+    if target is None:
+        click.echo(text(".json" if as_json else ".csv"), nl=False)
+        return
+    suffix = target.suffix.lower()
+    if suffix == ".npz":
+
+        def write(path):
+            with open(path, "wb") as handle:
+                serialize.map_to_npz(handle, probe, medium, settings, mode, result)
+    else:
+
+        def write(path):
+            Path(path).write_text(text(suffix), encoding="utf-8")
+
+    _write_atomically(target, write)
+    click.echo(
+        f"wrote {target} ({depth_points} depths x {lateral_points} offsets, plane {plane})",
+        err=True,
+    )
