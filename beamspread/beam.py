@@ -266,17 +266,7 @@ def analyse(
             for level in level_list:
                 angle = half_angles[level_key(level)]
                 width = None if angle is None else 2.0 * depth * math.tan(math.radians(angle))
-                spots.append(
-                    Spot(
-                        depth,
-                        -level,
-                        width,
-                        valid,
-                        sound_path=depth,
-                        surface_distance=0.0,
-                        footprint=width,
-                    )
-                )
+                spots.append(straight_spot(depth, level, width, valid))
             if field is not None:
                 spots.extend(field_spots(probe, wave.speed, depth, level_list, name, mode, field))
         planes.append(PlaneResult(name, aperture, half_angles, tuple(spots)))
@@ -349,19 +339,22 @@ def field_spots(probe, speed, depth, levels, plane, mode, settings: FieldSetting
 
 def straight_field_spots(widths, depth: float) -> list[Spot]:
     """The computed-field Spots of a straight beam at ``depth`` from its BeamWidths."""
-    spots = []
-    for w in widths:
-        width = None if math.isnan(w.width) else w.width
-        spots.append(
-            Spot(
-                depth,
-                -w.level_db,
-                width,
-                None,
-                method="field",
-                sound_path=depth,
-                surface_distance=0.0,
-                footprint=width,
-            )
-        )
-    return spots
+    return [
+        straight_spot(depth, w.level_db, None if math.isnan(w.width) else w.width, None, "field")
+        for w in widths
+    ]
+
+
+def straight_spot(depth, level_db, width, valid, method="far-field") -> Spot:
+    """The spot of a beam straight down at ``depth`` (m) and ``level_db`` (dB down, positive):
+    its sound path is the depth, its footprint its width."""
+    return Spot(
+        depth,
+        -abs(level_db),
+        width,
+        valid,
+        method=method,
+        sound_path=depth,
+        surface_distance=0.0,
+        footprint=width,
+    )

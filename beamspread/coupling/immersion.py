@@ -36,11 +36,11 @@ from ..beam import (
     Convention,
     FieldSettings,
     PlaneResult,
-    Spot,
     analyse,
     field_spots,
     level_key,
     straight_field_spots,
+    straight_spot,
 )
 from ..errors import InputError
 from ..media.quantities import Wave
@@ -158,17 +158,7 @@ def analyse_immersion(
                         wp * math.tan(math.radians(plane.half_angles[key]))
                         + depth * math.tan(math.radians(half[key]))
                     )
-                spots.append(
-                    Spot(
-                        depth,
-                        -lv,
-                        width,
-                        valid,
-                        sound_path=depth,
-                        surface_distance=0.0,
-                        footprint=width,
-                    )
-                )
+                spots.append(straight_spot(depth, lv, width, valid))
             if field is not None:
                 spots.extend(
                     field_spots(
@@ -227,10 +217,7 @@ def _focused_spots(probe, c_water, focus, depth, equivalent, levels, plane, mode
     from ..field import focused_beam_widths
 
     if equivalent < probe.longest_side:
-        return [
-            Spot(depth, -lv, None, None, method="field", sound_path=depth, surface_distance=0.0)
-            for lv in levels
-        ]
+        return [straight_spot(depth, lv, None, None, "field") for lv in levels]
     found = focused_beam_widths(
         probe,
         c_water,
