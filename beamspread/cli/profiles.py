@@ -6,6 +6,7 @@ import click
 
 from .field import (
     MAX_PROFILE_POINTS,
+    _axis_label,
     _caption,
     _check_plane,
     _check_range,
@@ -67,6 +68,7 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
             axial_maximum=axial,
             caption=_caption(probe, medium, settings, mode),
             units=units,
+            **({} if result.coupling == "contact" else {"axis_label": _axis_label(result)}),
         )
         click.echo(f"beamspread: drew {plot_path}", err=True)
     emit_warnings(warnings)
@@ -83,7 +85,20 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     else:
         from ..render.text.field import axial_table
 
-        click.echo(axial_table(probe, medium, settings, mode, profile, near, simple, axial, units))
+        click.echo(
+            axial_table(
+                probe,
+                medium,
+                settings,
+                mode,
+                profile,
+                near,
+                simple,
+                axial,
+                units,
+                coordinate=result.source.coordinate,
+            )
+        )
 
 
 @click.command()

@@ -64,6 +64,7 @@ def draw_axis(
     axial_maximum: float | None = None,
     levels_db=(6.0,),
     units: str = "mm",
+    axis_label: str = "depth on the beam axis",
 ) -> list:
     """Draw an :class:`~beamspread.field.AxialProfile` in dB into ``ax``; return the legend handles.
 
@@ -108,7 +109,7 @@ def draw_axis(
     pad = 0.02 * (depth[-1] - depth[0]) * s
     ax.set_xlim(depth[0] * s - pad, depth[-1] * s + pad)
     ax.set_ylim(FLOOR_DB, 3.0)
-    ax.set_xlabel(f"depth on the beam axis, {unit}")
+    ax.set_xlabel(f"{axis_label}, {unit}")
     ax.set_ylabel(f"dB re the largest on-axis amplitude ({profile.mode})")
     ax.set_title(f"On-axis profile: {_mode_text(profile.mode, profile.bandwidth)}", fontsize=10)
     ax.grid(True, color="0.88", lw=0.6)
@@ -124,6 +125,7 @@ def axis_figure(
     caption: str = "",
     units: str = "mm",
     size: tuple[float, float] = FIGSIZE,
+    axis_label: str = "depth on the beam axis",
 ) -> Figure:
     """:func:`plot_axis`'s picture as a Figure."""
     _scale(units)
@@ -137,6 +139,7 @@ def axis_figure(
         axial_maximum=axial_maximum,
         levels_db=levels_db,
         units=units,
+        axis_label=axis_label,
     )
     ax.legend(loc="lower right", fontsize=8, framealpha=0.9)
     return fig
@@ -151,6 +154,7 @@ def plot_axis(
     levels_db=(6.0,),
     caption: str = "",
     units: str = "mm",
+    axis_label: str = "depth on the beam axis",
 ) -> Path:
     """Draw an :class:`~beamspread.field.AxialProfile` in dB to ``path``; return the path.
 
@@ -168,6 +172,7 @@ def plot_axis(
             levels_db=levels_db,
             caption=caption,
             units=units,
+            axis_label=axis_label,
         ),
         path,
     )

@@ -34,7 +34,9 @@ def _profile_rows(coordinate, amplitude, units, limit=41):
     return rows, step
 
 
-def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units="mm") -> str:
+def axial_table(
+    probe, wave, settings, mode, profile, near, simple, axial, units="mm", *, coordinate="depth"
+) -> str:
     """The human-readable report of ``beamspread axis``."""
     out = medium_and_probe_lines(probe, wave, units)
     out.append(f"Field: {field_description(settings, mode)}")
@@ -51,10 +53,10 @@ def axial_table(probe, wave, settings, mode, profile, near, simple, axial, units
     out.append("")
     table, step = _profile_rows(profile.depth, profile.amplitude, units)
     out.append("On-axis amplitude; dB relative to the largest in the profile")
-    out.append(columns([["depth", "amplitude", "dB", ""], *table]))
+    out.append(columns([[coordinate, "amplitude", "dB", ""], *table]))
     if step > 1:
         out.append(
-            f"  every {step}th of {len(profile.depth)} depths shown; --format csv gives them all"
+            f"  every {step}th of {len(profile.depth)} points shown; --format csv gives them all"
         )
     out.append("")
     out.extend(textwrap.wrap(caution_for(wave.state), 100))
