@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import textwrap
 
-from ...probes import Disc
 from ...units import format_length
 
 CAUTION = (
@@ -53,10 +52,11 @@ def _speed(speed: float, units: str) -> str:
 def _probe_line(p, units: str) -> str:
     f = p.frequency
     freq = f"{f / 1e6:g} MHz" if f >= 1e6 else f"{f / 1e3:g} kHz"
-    if isinstance(p, Disc):
+    if p.shape == "disc":
         return f"disc element, diameter {format_length(p.diameter, units)}, {freq}"
+    kind = "elliptical" if p.shape == "ellipse" else "rectangular"
     return (
-        f"rectangular element, length {format_length(p.length, units)} x width "
+        f"{kind} element, length {format_length(p.length, units)} x width "
         f"{format_length(p.width, units)}, {freq}"
     )
 
