@@ -85,10 +85,6 @@ class FieldSource:
             return depth
         return depth / math.cos(self.refracted)
 
-    def near_validity(self, coordinate: float) -> bool:
-        """Whether the focused field's paraxial form holds there (one element size out)."""
-        return self.focus is None or float(self.ranges(coordinate)) >= self.element.longest_side
-
     def widths(self, coordinate: float, levels, plane: str, mode: str, settings) -> list:
         """The computed field's widths (:class:`beamspread.BeamWidth`) at a coordinate, m.
 
@@ -163,10 +159,6 @@ class FieldSource:
             )
             found = AxialProfile(ranges, amplitude[:, 0], str(mode), settings.bandwidth)
         return replace(found, depth=np.asarray(coordinates, dtype=float))
-
-    def flat(self) -> FieldSource:
-        """The same source without its focus."""
-        return replace(self, focus=None)
 
 
 def _kwargs(settings, mode, plane) -> dict:

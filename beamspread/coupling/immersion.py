@@ -37,7 +37,6 @@ from ..beam import (
     FieldSettings,
     PlaneResult,
     analyse,
-    field_spots,
     level_key,
     straight_field_spots,
     straight_spot,
@@ -45,6 +44,7 @@ from ..beam import (
 from ..errors import InputError
 from ..media.quantities import Wave
 from ..probes import Disc, Rectangle, check_positive
+from ..source import FieldSource
 from ..units import length_text as _mm
 from .result import FocusResult, SetupResult
 
@@ -115,6 +115,16 @@ def analyse_immersion(
     if focus is not None:
         focus_result = _focus(probe, focus, in_water, water, c_p, level_list[0], mode, warnings)
         warnings.extend(_focused_field_warnings(probe, focus, wp, c_w, c_p, depth_list, field))
+    # The computed field in the part: the element in the couplant at the equivalent water
+    # path WP + d c_part / c_water (see the module notes), focused or not.
+    source = FieldSource(
+        probe,
+        c_w,
+        start=wp,
+        stretch=c_p / c_w,
+        focus=None if focus is None else focus.focal_length,
+        plane_names=tuple((name, name) for name, _ in probe.planes),
+    )
     planes = []
     for plane in in_water.planes:
         half = {}
@@ -132,23 +142,14 @@ def analyse_immersion(
                 )
         spots = []
         for depth in depth_list:
-            equivalent = wp + depth * c_p / c_w
+            if field is not None:
+                computed = straight_field_spots(
+                    source.widths(depth, level_list, plane.name, mode, field), depth
+                )
             if focus is not None:  # no far-field row: the flat element's cone does not converge
-                if field is not None:
-                    spots.extend(
-                        _focused_spots(
-                            probe,
-                            c_w,
-                            focus,
-                            depth,
-                            equivalent,
-                            level_list,
-                            plane.name,
-                            mode,
-                            field,
-                        )
-                    )
+                spots.extend(computed if field is not None else [])
                 continue
+            equivalent = float(source.ranges(depth))
             valid = n_w is None or equivalent >= n_w
             for lv in level_list:
                 key = level_key(lv)
@@ -160,11 +161,7 @@ def analyse_immersion(
                     )
                 spots.append(straight_spot(depth, lv, width, valid))
             if field is not None:
-                spots.extend(
-                    field_spots(
-                        probe, c_w, depth, level_list, plane.name, mode, field, at=equivalent
-                    )
-                )
+                spots.extend(computed)
         planes.append(PlaneResult(plane.name, plane.aperture, half, tuple(spots)))
     direct = wp == 0 and water.speed == c_p  # a focused probe straight in the medium
     transmission = None
@@ -204,33 +201,6 @@ def analyse_immersion(
         focus=focus_result,
         warnings=tuple(warnings),
     )
-
-
-def _focused_spots(probe, c_water, focus, depth, equivalent, levels, plane, mode, settings):
-    """Widths of the focused element's computed field at ``depth`` in the part.
-
-    The field is that in the couplant at the equivalent water path
-    ``equivalent`` (m), with the lateral scale unchanged (see the module notes).
-    Within one element size of the face the paraxial field does not hold (and
-    its quadrature grows without bound): no width is given there.
-    """
-    from ..field import focused_beam_widths
-
-    if equivalent < probe.longest_side:
-        return [straight_spot(depth, lv, None, None, "field") for lv in levels]
-    found = focused_beam_widths(
-        probe,
-        c_water,
-        focus.focal_length,
-        equivalent,
-        levels,
-        plane=plane,
-        bandwidth=settings.bandwidth,
-        mode=mode,
-        frequencies=settings.frequencies,
-        spectrum=settings.spectrum,
-    )
-    return straight_field_spots(found, depth)
 
 
 def _focused_field_warnings(probe, focus, wp, c_water, c_part, depths, field) -> list[str]:
