@@ -22,8 +22,20 @@ class BeamspreadError(Exception):
 class InputError(BeamspreadError, ValueError):
     """A value given by the caller is outside what is allowed.
 
-    The message names the value and says what is allowed.
+    The message names the value and says what is allowed, in the library's
+    words: it never names a command-line option.
+
+    Attributes
+    ----------
+    remedy : tuple of (str, str or None), or None
+        Where the message suggests giving a parameter, the parameter's name
+        (as the library spells it, e.g. ``"temperature"``) and the value to
+        give (None for "give one"); a front end names its own option from it.
     """
+
+    def __init__(self, message: str = "", *, remedy: tuple[str, str | None] | None = None):
+        super().__init__(message)
+        self.remedy = remedy
 
 
 class MaterialError(InputError, LookupError):

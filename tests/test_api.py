@@ -34,3 +34,27 @@ def test_import_loads_the_later_tools_only_on_use():
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     before, after = json.loads(out.stdout)
     assert before == [] and "design" in after
+
+
+def test_library_errors_name_no_command_line_option_and_the_cli_adds_it():
+    """The core speaks in its own terms; the CLI names the option that mends the error."""
+    from click.testing import CliRunner
+
+    from beamspread.cli import cli, error_text
+
+    registry = beamspread.build_registry()
+    with pytest.raises(beamspread.MaterialError) as caught:
+        registry.get("water").medium.evaluate("shear")
+    assert "--" not in str(caught.value)
+    assert caught.value.remedy == ("wave", "longitudinal")
+    assert error_text(caught.value).endswith("(--wave longitudinal)")
+    with pytest.raises(beamspread.InputError) as caught:
+        beamspread.build_registry(["/no/such/directory"])
+    assert "--" not in str(caught.value)
+    assert error_text(caught.value).endswith("(--materials-dir)")
+    result = CliRunner().invoke(
+        cli, ["beam", "--diameter", "10mm", "--frequency", "5MHz", "--material", "water",
+              "--wave", "shear"]
+    )  # fmt: skip
+    assert result.exit_code == 2
+    assert "(--wave longitudinal)" in result.output

@@ -39,6 +39,19 @@ def _fail(message: str, code: int) -> None:
     sys.exit(code)
 
 
+_FLAGS = {"materials_dirs": "--materials-dir"}  # library parameter names that are not the flag's
+
+
+def error_text(exc: Exception) -> str:
+    """An error's message, with the option that mends it where the library suggests one."""
+    remedy = getattr(exc, "remedy", None)
+    if not remedy:
+        return str(exc)
+    name, value = remedy
+    flag = _FLAGS.get(name, "--" + name.replace("_", "-"))
+    return f"{exc} ({flag}{'' if value is None else ' ' + value})"
+
+
 class _Group(click.Group):
     """A group whose commands import on first use, and which reports errors in one line."""
 
@@ -81,7 +94,7 @@ class _Group(click.Group):
         except click.exceptions.Abort:
             _fail("aborted", 1)
         except (InputError, TableError) as exc:
-            _fail(str(exc), 2)
+            _fail(error_text(exc), 2)
         except BeamspreadError as exc:
             if debug:
                 raise

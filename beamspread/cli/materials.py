@@ -266,7 +266,11 @@ def paths(materials_dirs, as_json):
     registry = load_registry(materials_dirs)
     emit_warnings(registry.warnings)
     rows = [
-        {"source": what, "path": path, "exists": exists}
+        {
+            "source": what.replace("given directory", "--materials-dir"),
+            "path": path,
+            "exists": exists,
+        }
         for what, path, exists in reversed(registry.locations)
     ]
     if as_json:

@@ -88,7 +88,8 @@ def node_ladder(n: np.ndarray, what: str = "the computed field here") -> np.ndar
         raise InputError(
             f"{what} would need {float(np.max(n)):.3g} quadrature nodes on one piece (at most "
             f"{_MAX_NODES}): the element is too many wavelengths across or the point too close "
-            "to its face; check the units, or use the far-field formulas alone (--far-field-only)"
+            "to its face; check the units, or use the far-field formulas alone",
+            remedy=("far_field_only", None),
         )
     big = n > _LADDER_START
     rung = np.ceil(np.log(np.where(big, n, _LADDER_START) / _LADDER_START) / np.log(1.25))

@@ -205,7 +205,9 @@ class ComputedMedium:
         fn = self.longitudinal if wave == "longitudinal" else self.shear
         if fn is None:
             raise MaterialError(
-                f"{self.name} is a {self.state} and carries no shear wave; use --wave longitudinal"
+                f"{self.name} is a {self.state} and carries no shear wave; "
+                "use the longitudinal wave",
+                remedy=("wave", "longitudinal"),
             )
         with warnings.catch_warnings():
             warnings.simplefilter("error")

@@ -67,7 +67,8 @@ class Material:
         if value is None:
             raise MaterialError(
                 f"{self.name} is a {self.state} and carries no shear wave in its table; "
-                "use --wave longitudinal"
+                "use the longitudinal wave",
+                remedy=("wave", "longitudinal"),
             )
         notes: list[str] = []
         used: dict[str, float] = {}

@@ -69,7 +69,9 @@ class Value:
             assert self.value is not None
             return self.value
         if temperature_c is None:
-            raise InputError(f"{what} depends on temperature; give --temperature")
+            raise InputError(
+                f"{what} depends on temperature; give the temperature", remedy=("temperature", None)
+            )
         return self.curve.at(temperature_c, what)
 
     @property

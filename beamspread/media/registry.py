@@ -38,6 +38,7 @@ __all__ = [
 ]
 
 ENV_VAR = "BEAMSPREAD_MATERIALS"
+_GIVEN = "given directory"  # a directory the caller named (the CLI: --materials-dir)
 BUILTIN, PLUGIN, USER = 0, 1, 2
 LEVEL_NAMES = {BUILTIN: "built-in", PLUGIN: "plug-in", USER: "user"}
 Medium = Material | ComputedMedium
@@ -174,7 +175,7 @@ def user_table_dirs(extra: Sequence[str | Path] = ()) -> list[tuple[str, Path]]:
         if part.strip():
             dirs.append((ENV_VAR, Path(part)))
     for d in extra:
-        dirs.append(("--materials-dir", Path(d)))
+        dirs.append((_GIVEN, Path(d)))
     return dirs
 
 
@@ -226,8 +227,11 @@ def build_registry(materials_dirs: Sequence[str | Path] = ()) -> Registry:
         exists = directory.is_dir()
         registry.locations.append((f"user ({how})", str(directory), exists))
         if not exists:
-            if how == "--materials-dir":
-                raise InputError(f"--materials-dir: {str(directory)!r} is not a directory")
+            if how == _GIVEN:
+                raise InputError(
+                    f"materials directory: {str(directory)!r} is not a directory",
+                    remedy=("materials_dirs", None),
+                )
             if how == ENV_VAR:
                 registry.warnings.append(f"{ENV_VAR}: {str(directory)!r} is not a directory")
             continue
