@@ -15,6 +15,8 @@ degrees in results, as elsewhere.
   :class:`~beamspread.coupling.immersion.Focus` and
   :func:`~beamspread.coupling.immersion.analyse_immersion`; its notes give the
   immersion and focus models and their limits.
+* :mod:`beamspread.coupling.transmission`: plane-wave reflection and transmission
+  coefficients at a flat fluid or solid interface (welded or slip), per angle.
 * :mod:`beamspread.coupling.result`: the results (``SetupResult``, ``FocusResult``,
   ``WedgeFootprint``) and the computed widths kept along the sound path.
 """
