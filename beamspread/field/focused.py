@@ -70,7 +70,6 @@ from .spectrum import check_bandwidth, make_spectrum
 
 __all__ = ["focused_amplitude", "focused_beam_widths", "focused_pressure"]
 
-_BUDGET = 1 << 18  # real elements of one (depth x frequency x offset x node) block
 _MAX_ROUNDS = 12  # the scan across the beam doubles its extent at most this often
 
 
