@@ -143,7 +143,7 @@ def analyse_wedge(
             raise InputError(f"depth {_mm(d)} lies below the part, which is {_mm(thickness)} thick")
     view = probe.seen_through_wedge(alpha, beta)
     virtual, names = view.virtual, view.plane_names
-    inc = virtual.length  # the virtual element's size in the incidence plane
+    inc = virtual.aperture()  # the virtual element's size in the incidence plane (its first)
     from ..field import last_maximum
 
     n_virtual = last_maximum(virtual, c_part, bandwidth=0.0, mode="one-way")

@@ -174,7 +174,10 @@ class Element:
     # ---- sizes and words -------------------------------------------------
     @property
     def planes(self) -> tuple[tuple[str, float], ...]:
-        """The planes of the beam, as (name, aperture in m)."""
+        """The planes of the beam, as (name, aperture in m); the first is the x-z plane.
+
+        The x-z plane is the one a picture draws and a wedge's incidence plane.
+        """
         raise NotImplementedError
 
     def sizes(self) -> dict[str, float]:
