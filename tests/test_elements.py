@@ -26,8 +26,11 @@ import scipy.special
 
 import beamspread
 from beamspread import Disc, InputError, Rectangle, analyse
-from beamspread.field import pressure
+from beamspread.field import field_map, focused_pressure, pressure
+from beamspread.field.interface import Crossing
 from beamspread.probes import Element, Ellipse, check_element, element_class, kinds
+from beamspread.scan import plan_scan_for
+from beamspread.sonar.directivity import directivity_index
 
 LAM = 5920.0 / 5e6  # 1.184 mm: 5 MHz in steel
 EXAMPLES = {
@@ -319,6 +322,15 @@ def test_an_unknown_element_type_is_refused_in_one_line(thing):
         pressure(thing, 5920.0, 0.0, 0.0, 0.01)
     with pytest.raises(InputError, match="not an element type"):
         beamspread.Technique(thing, beamspread.PartMedium(speed=5920.0))
+    for call in (
+        lambda: focused_pressure(thing, 1480.0, 0.05, [0.0], [0.05]),
+        lambda: field_map(thing, 5920.0, [0.0, 0.001], [0.01, 0.02]),
+        lambda: plan_scan_for(thing, 5920.0, 0.01, 0.05, 0.1, method="far-field"),
+        lambda: directivity_index(thing, 0.0075),
+        lambda: Crossing(thing, 2730.0, 5920.0, 0.3, 0.01),
+    ):
+        with pytest.raises(InputError, match="not an element type"):
+            call()
 
 
 def test_a_virtual_element_is_refused_where_a_probe_is_asked_for():
