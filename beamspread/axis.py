@@ -40,12 +40,14 @@ from functools import lru_cache
 
 import numpy as np
 
+from ._checks import check_positive
 from ._search import golden_max
-from .probes import check_positive
 
 __all__ = [
     "disc_axial_pressure",
     "disc_near_field",
+    "ellipse_axial_pressure",
+    "ellipse_near_field",
     "rectangle_axial_pressure",
     "rectangle_near_field",
     "simple_near_field",
@@ -177,18 +179,26 @@ def rectangle_near_field(length: float, width: float, wavelength: float) -> floa
 
 @lru_cache(maxsize=4096)
 def _rectangle_near_field(length: float, width: float, wavelength: float) -> float:
-    """:func:`rectangle_near_field`, kept per (length, width, wavelength).
+    """:func:`rectangle_near_field`, kept per (length, width, wavelength)."""
+    return _last_maximum(
+        lambda z: rectangle_axial_pressure(z, length, width, wavelength),
+        max(length, width),
+        wavelength,
+    )
+
+
+def _last_maximum(pressure, longer: float, wavelength: float) -> float:
+    """The farthest local maximum of ``pressure(z)`` (on-axis, exact), m; NaN where none.
 
     The grid is scanned from its far end: the farthest 600 points first, all
     4001 only where those hold no maximum. The farthest local maximum of the
     whole grid is the farthest of any tail that holds one, so the bracket,
     and the result, are the same either way.
     """
-    longer = max(length, width)
     scale = float(simple_near_field(longer, wavelength))
     z = np.geomspace(1e-4 * scale, 4.0 * scale, 4001)
     for start in (z.size - 600, 0):
-        p = rectangle_axial_pressure(z[start:], length, width, wavelength)
+        p = pressure(z[start:])
         peaks = np.flatnonzero((p[1:-1] > p[:-2]) & (p[1:-1] >= p[2:])) + 1
         if peaks.size:
             break
@@ -197,6 +207,65 @@ def _rectangle_near_field(length: float, width: float, wavelength: float) -> flo
     i = start + int(peaks[-1])
 
     def amplitude(zi: float) -> float:
-        return float(rectangle_axial_pressure(zi, length, width, wavelength))
+        return float(pressure(zi))
 
     return float(golden_max(amplitude, float(z[i - 1]), float(z[i + 1]), 1e-10 * float(z[i])))
+
+
+@lru_cache(maxsize=64)
+def _ellipse_nodes(half_x: float, half_y: float, k: float):
+    """Gauss-Legendre nodes in the polar angle over a quarter ellipse: edge distances, weights.
+
+    The edge lies at :math:`\rho(\\phi) = ab / \\sqrt{(b\\cos\\phi)^2 + (a\\sin\\phi)^2}`,
+    smooth in :math:`\\phi`; the node count follows the phase change
+    :math:`k|a - b|` along the edge, as the rectangle's does.
+    """
+    n = 2 * int(np.ceil(k * abs(half_x - half_y) / np.pi)) + 32
+    x, w = np.polynomial.legendre.leggauss(n)
+    phi = 0.25 * np.pi * (x + 1.0)
+    rho = half_x * half_y / np.hypot(half_y * np.cos(phi), half_x * np.sin(phi))
+    weights = 0.25 * np.pi * w
+    rho.flags.writeable = False
+    weights.flags.writeable = False
+    return rho, weights
+
+
+def ellipse_axial_pressure(
+    z: np.ndarray | float, length: float, width: float, wavelength: float
+) -> np.ndarray:
+    """Exact on-axis pressure amplitude of a baffled ellipse (axes ``length``, ``width``), rho c U0.
+
+    The same polar integral to the edge as :func:`rectangle_axial_pressure`
+    (module notes), with the ellipse's edge distance.
+    """
+    length = check_positive(length, "length", "m")
+    width = check_positive(width, "width", "m")
+    wavelength = check_positive(wavelength, "wavelength", "m")
+    z = np.asarray(z, dtype=float)
+    k = 2.0 * np.pi / wavelength
+    rho, weights = _ellipse_nodes(0.5 * length, 0.5 * width, k)
+    zz = z[..., None]
+    theta = k * rho * rho / (np.sqrt(zz * zz + rho * rho) + zz)  # k (R - z)
+    half = 0.5 * theta
+    s = np.sin(half)
+    re = (2.0 * s * np.sin(half)) @ weights
+    im = (2.0 * s * np.cos(half)) @ weights
+    return (4.0 / (2.0 * np.pi)) * np.hypot(re, im)
+
+
+@lru_cache(maxsize=1024)
+def ellipse_near_field(length: float, width: float, wavelength: float) -> float:
+    r"""Position of the last on-axis maximum of an ellipse, m; NaN where there is none.
+
+    Found as :func:`rectangle_near_field` finds a rectangle's, on
+    :func:`ellipse_axial_pressure`. A circle gives the disc's
+    :math:`(D^2 - \lambda^2) / 4\lambda`:
+
+    >>> round(ellipse_near_field(0.01, 0.01, 0.001184) / float(disc_near_field(0.01, 0.001184)), 6)
+    1.0
+    """
+    return _last_maximum(
+        lambda z: ellipse_axial_pressure(z, length, width, wavelength),
+        max(float(length), float(width)),
+        float(wavelength),
+    )

@@ -13,11 +13,11 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from . import axis, pattern
+from . import pattern
 from .conventions import Coupling, level_key
 from .errors import InputError
 from .media.quantities import Wave
-from .probes import Disc, Probe, Rectangle, check_positive
+from .probes import Probe, check_element, check_positive
 from .units import length_text as _mm
 from .units import parse_level
 
@@ -199,14 +199,14 @@ def analyse(
 
     Examples
     --------
+    >>> from beamspread import Disc
     >>> r = analyse(Disc(0.010, 5e6), 5920.0, depths=[0.1])
     >>> round(r.wavelength * 1e3, 3), round(r.near_field * 1e3, 2)
     (1.184, 20.82)
     >>> r.planes[0].half_angles["-6"]  # doctest: +ELLIPSIS
     3.486...
     """
-    if not isinstance(probe, (Disc, Rectangle)):
-        raise InputError(f"probe: {probe!r} is not a Disc or a Rectangle")
+    check_element(probe, probe=True)
     if mode not in pattern.MODES:
         raise InputError(f"mode {mode!r} is unknown; use one of {', '.join(pattern.MODES)}")
     if not isinstance(wave, Wave):
@@ -217,16 +217,8 @@ def analyse(
     warnings: list[str] = list(wave.warnings)
 
     longest = probe.longest_side
-    near_simple = float(axis.simple_near_field(longest, wavelength))
-    factor = None
-    if isinstance(probe, Disc):
-        near = float(axis.disc_near_field(probe.diameter, wavelength))
-        method = "last on-axis maximum, exact: (D^2 - lambda^2) / (4 lambda)"
-    else:
-        near = axis.rectangle_near_field(probe.length, probe.width, wavelength)
-        method = "last on-axis maximum of the exact on-axis Rayleigh integral"
-        if not math.isnan(near):
-            factor = near / near_simple
+    found = probe.near_field(wavelength)
+    near, near_simple, method, factor = found.length, found.simple, found.method, found.factor
     if math.isnan(near):
         warnings.append(
             f"no near field: the element ({_mm(longest)}) is no larger than a wavelength "
@@ -236,11 +228,10 @@ def analyse(
     else:
         near_field = near
 
-    shape = probe.pattern
     planes = []
     for name, aperture in probe.planes:
-        angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
-        null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
+        angles = np.degrees(probe.half_angle(level_list, wavelength, mode, name))
+        null = float(np.degrees(probe.first_null(wavelength, name)))
         half_angles: dict[str, float | None] = {}
         for level, angle in zip(level_list, angles, strict=True):
             if math.isnan(angle):

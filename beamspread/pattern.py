@@ -54,10 +54,15 @@ def _check_mode(mode: str) -> None:
         raise ValueError(f"mode {mode!r} is unknown; use one of {', '.join(MODES)}")
 
 
-def _pattern(shape: str, x: np.ndarray) -> np.ndarray:
-    if shape == "disc":
-        return jinc(x)
+def _sinc(x) -> np.ndarray:
     return np.sinc(np.asarray(x) / np.pi)  # numpy's sinc is sin(pi t)/(pi t)
+
+
+_PATTERNS = {"disc": jinc, "side": _sinc}  # one-way amplitude by pattern family
+
+
+def _pattern(shape: str, x: np.ndarray) -> np.ndarray:
+    return _PATTERNS[shape](x)
 
 
 def _bisect(f, lo: np.ndarray, hi: np.ndarray, iterations: int = 64) -> np.ndarray:
@@ -80,9 +85,13 @@ def first_null_x(shape: str) -> float:
     where J1 has its first positive zero.
     """
     _check_shape(shape)
-    if shape == "side":
-        return float(np.pi)
-    return float(_bisect(lambda x: j1(x), np.array(3.0), np.array(4.5)))
+    return _FIRST_ZERO[shape]()
+
+
+_FIRST_ZERO = {
+    "side": lambda: float(np.pi),
+    "disc": lambda: float(_bisect(lambda x: j1(x), np.array(3.0), np.array(4.5))),
+}
 
 
 def level_amplitude(level_db: np.ndarray | float, mode: str = "pulse-echo") -> np.ndarray:

@@ -33,7 +33,7 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from .errors import InputError
-from .probes import check_positive, plane_name
+from .probes import check_element, check_positive, plane_name
 from .units import length_text as _mm
 
 __all__ = [
@@ -231,7 +231,7 @@ def field_widths(
     """
     from .field import beam_widths
 
-    plane = plane_name(probe, plane)
+    plane = plane_name(check_element(probe), plane)
     kwargs = {
         "plane": plane,
         "bandwidth": bandwidth,
@@ -282,13 +282,9 @@ def far_field_widths(
     does not hold in the near field (use :func:`field_widths` there). NaN
     where the pattern has no half-angle at the level.
     """
-    from .pattern import half_angle
-
-    plane = plane_name(probe, plane)
-    aperture = dict(probe.planes)[plane]
-    shape = probe.pattern
+    plane = plane_name(check_element(probe), plane)
     speed = check_positive(speed, "speed", "m/s")
-    theta = float(half_angle(level_db, aperture, speed / probe.frequency, shape, mode))
+    theta = float(probe.half_angle(level_db, speed / probe.frequency, mode, plane))
     depths = scan_depths(start, stop, count)
     return {float(d): 2.0 * float(d) * math.tan(theta) for d in dict.fromkeys(depths.tolist())}
 
@@ -327,7 +323,7 @@ def plan_scan_for(
     'depths 10 mm to 20.67 mm lie inside the near field (20.82 mm)'
     """
     check_overlap(overlap)
-    plane = plane_name(probe, plane)
+    plane = plane_name(check_element(probe), plane)
     speed = check_positive(speed, "speed", "m/s")
     if method == "field":
         widths = field_widths(
@@ -430,11 +426,5 @@ def index_step(
 
 def _near_field(probe, wavelength: float) -> tuple[float | None, float]:
     """The last on-axis maximum (None where there is none) and D^2/4 lambda, m, as ``analyse``."""
-    from . import axis
-
-    simple = float(axis.simple_near_field(probe.longest_side, wavelength))
-    if probe.shape == "disc":
-        near = float(axis.disc_near_field(probe.diameter, wavelength))
-    else:
-        near = axis.rectangle_near_field(probe.length, probe.width, wavelength)
-    return (None if math.isnan(near) else near), simple
+    found = probe.near_field(wavelength)
+    return (None if math.isnan(found.length) else found.length), found.simple

@@ -20,8 +20,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from ._checks import check_positive
 from .errors import InputError
-from .probes import check_positive
 
 __all__ = [
     "Refraction",

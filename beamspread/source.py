@@ -26,7 +26,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from .probes import Disc, Ellipse, Rectangle
+from .probes import Element, check_element
 
 __all__ = ["FieldSource"]
 
@@ -54,7 +54,7 @@ class FieldSource:
         The result's plane names with the element's: ("incidence", "length")...
     """
 
-    element: Disc | Rectangle | Ellipse
+    element: Element
     speed: float
     start: float = 0.0
     stretch: float = 1.0
@@ -62,6 +62,9 @@ class FieldSource:
     refracted: float = 0.0
     coordinate: str = "depth"
     plane_names: tuple[tuple[str, str], ...] = ()
+
+    def __post_init__(self) -> None:
+        check_element(self.element)
 
     @property
     def planes(self) -> tuple[str, ...]:

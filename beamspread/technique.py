@@ -24,7 +24,7 @@ from dataclasses import dataclass, field, replace
 
 from .conventions import Coupling, Mode
 from .errors import InputError
-from .probes import Disc, Rectangle
+from .probes import Disc, Rectangle, check_element, element_class
 from .units import parse_level, parse_quantity
 
 __all__ = [
@@ -179,8 +179,7 @@ class Technique:
     description: str | None = None
 
     def __post_init__(self) -> None:
-        if not isinstance(self.element, (Disc, Rectangle)):
-            raise InputError(f"element: {self.element!r} is not an element type beamspread models")
+        check_element(self.element, probe=True)
         if self.sonar.asked and (
             self.coupling.kind is not Coupling.CONTACT or self.element.focus is not None
         ):
@@ -260,10 +259,7 @@ class Technique:
         """The technique as the setup file's option names -> SI values (None left out)."""
         e, m, c, r, s = self.element, self.medium, self.coupling, self.request, self.sonar
         out: dict[str, object] = {"--frequency": e.frequency, "--focus": e.focus}
-        if isinstance(e, Disc):
-            out["--diameter"] = e.diameter
-        else:
-            out.update({"--length": e.length, "--width": e.width})
+        out.update({f"--{name}": size for name, size in e.sizes().items()})
         out.update(
             {
                 "--material": m.material,
@@ -331,10 +327,9 @@ def _from_setup(setup) -> Technique:
         return None if text is None else math.radians(parse_quantity(text, "angle"))
 
     frequency, focus = q(setup.frequency, "frequency"), q(setup.focus, "length")
-    if setup.shape == "disc":
-        element = Disc(q(setup.diameter, "length"), frequency, focus=focus)
-    else:
-        element = Rectangle(q(setup.length, "length"), q(setup.width, "length"), frequency, focus)
+    kind = element_class(setup.shape)
+    sizes = {name: q(getattr(setup, name), "length") for name in kind.size_names}
+    element = kind(**sizes, frequency=frequency, focus=focus)
     medium = PartMedium(
         material=setup.material,
         speed=q(setup.speed, "speed"),

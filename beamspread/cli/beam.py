@@ -201,11 +201,10 @@ def _plot(path, result, units) -> list[str]:
                 "--plot draws the flat element's far-field directivity: the focus is not in it"
             )
         probe = result.source.element
-        shape = "disc" if probe.pattern == "disc" else "rectangle"
         plots.plot_directivity(
             {pl.name: pl.aperture for pl in beam.planes},
             beam.wavelength,
-            shape,
+            probe.pattern,
             path,
             levels_db=beam.levels,
             caption=caption_of(beam),

@@ -19,11 +19,7 @@ from .techniqueargs import technique_from
 def _caption(probe, wave, settings, mode):
     from ..render.text.common import field_description
 
-    size = (
-        f"disc {probe.diameter * 1e3:g} mm"
-        if probe.shape == "disc"
-        else f"{probe.shape} {probe.length * 1e3:g} x {probe.width * 1e3:g} mm"
-    )
+    size = probe.caption()
     where = "given speed" if wave.medium == "given" else wave.medium
     from ..render.captions import frequency_text
 

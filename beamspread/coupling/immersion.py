@@ -30,7 +30,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from .. import pattern, setups
+from .. import setups
 from ..beam import (
     BeamResult,
     Convention,
@@ -43,7 +43,7 @@ from ..beam import (
 )
 from ..errors import InputError
 from ..media.quantities import Wave
-from ..probes import Disc, Rectangle, check_positive
+from ..probes import Disc, Rectangle, check_element, check_positive
 from ..source import FieldSource
 from ..units import length_text as _mm
 from .result import FocusResult, SetupResult
@@ -92,6 +92,7 @@ def analyse_immersion(
         A water path below 0 or over 2 m, a focus at or behind the element
         (not beyond its radius), a focus on a rectangle.
     """
+    check_element(probe, probe=True)
     wp = float(water.path)
     if not math.isfinite(wp) or wp < 0 or wp > MAX_WATER_PATH:
         raise InputError(
@@ -235,12 +236,11 @@ def _focus(
     warnings: list[str],
 ) -> FocusResult:
     big_f = float(focus.focal_length)
-    disc = isinstance(probe, Disc)
-    a = 0.5 * (probe.diameter if disc else probe.length)  # the focused aperture
+    a = probe.focused_half_aperture  # half the focused aperture
     if not math.isfinite(big_f) or big_f <= a:
         raise InputError(
             f"focus: {big_f * 1e3:g} mm is not allowed; a focal length must lie in "
-            f"front of the element, beyond its radius ({a * 1e3:g} mm)"
+            f"front of the element, beyond its {probe.focus_half_name} ({a * 1e3:g} mm)"
         )
     lam = water.speed / probe.frequency
     n_w = in_water.near_field or in_water.near_field_simple
@@ -251,20 +251,12 @@ def _focus(
             "beam's narrowest point lies at the near field anyway"
         )
     power = 2 if mode == "pulse-echo" else 1
-    if disc:
-        z = np.linspace(0.02 * big_f, 3.0 * big_f, 20001)
-        amp = setups.focused_disc_axial_pressure(z, probe.diameter, big_f, lam) ** power
-    else:  # cylindrical, in the length plane: the Fresnel form, from 2 half-lengths out
-        z = np.linspace(max(0.02 * big_f, 2.0 * a), 3.0 * big_f, 20001)
-        amp = (
-            setups.focused_rectangle_axial_pressure(z, probe.length, probe.width, big_f, lam)
-            ** power
-        )
+    z, one_way = probe.focused_axis(big_f, lam)
+    amp = one_way**power
     if a / big_f > 0.3:
-        what = "radius" if disc else "half-length"
-        kind = "spherical" if disc else "cylindrical"
         warnings.append(
-            f"the {kind} focus is strong ({what} / F = {a / big_f:.2f}): the "
+            f"the {probe.focus_kind} focus is strong ({probe.focus_half_name} / F = "
+            f"{a / big_f:.2f}): the "
             "Fresnel (paraxial) form of its field is rough here"
         )
     i = int(np.argmax(amp))
@@ -277,7 +269,7 @@ def _focus(
     while hi < z.size - 1 and above[hi + 1]:
         hi += 1
     zone = None if lo == 0 or hi == z.size - 1 else (float(z[lo]), float(z[hi]))
-    x = float(pattern.pattern_x(level, "disc" if disc else "side", mode))
+    x = float(probe.level_x(level, mode))
     spot = setups.focal_spot_width(big_f, lam, 2.0 * a, x)
     rule = n_w * s * s * 2.0 / (1.0 + 0.5 * s)
     wp = water.path

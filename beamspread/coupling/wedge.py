@@ -29,11 +29,11 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from .. import pattern, setups
+from .. import setups
 from ..beam import BeamResult, Convention, FieldSettings, PlaneResult, Spot, level_key
 from ..errors import InputError
 from ..media.quantities import Wave
-from ..probes import Disc, Ellipse, Rectangle, check_positive
+from ..probes import Disc, Rectangle, check_element, check_positive
 from ..units import length_text as _mm
 from .crossing import _edge_crossing
 from .result import SetupResult, WedgeFootprint, _ComputedWidths
@@ -95,6 +95,7 @@ def analyse_wedge(
         Angles outside [0, 90) degrees or past critical for the mode, a
         refracted angle no incident angle reaches, a depth below the part.
     """
+    check_element(probe, probe=True)
     check_positive(wedge.speed, "wedge speed", "m/s")
     if not (math.isfinite(wedge.path) and wedge.path >= 0):
         raise InputError(f"wedge path: {wedge.path!r} m is not allowed; give 0 or more")
@@ -140,16 +141,9 @@ def analyse_wedge(
     for d in depth_list:
         if thickness is not None and d > thickness:
             raise InputError(f"depth {_mm(d)} lies below the part, which is {_mm(thickness)} thick")
-    if isinstance(probe, Disc):
-        inc = setups.effective_aperture(probe.diameter, alpha, beta)
-        virtual = Ellipse(inc, probe.diameter, f)
-        names = {"length": "incidence", "width": "transverse"}
-        shape = "disc"
-    else:
-        inc = setups.effective_aperture(probe.length, alpha, beta)
-        virtual = Rectangle(inc, probe.width, f)
-        names = {"length": "length", "width": "width"}
-        shape = "side"
+    view = probe.seen_through_wedge(alpha, beta)
+    virtual, names = view.virtual, view.plane_names
+    inc = virtual.aperture()  # the virtual element's size in the incidence plane (its first)
     from ..field import last_maximum
 
     n_virtual = last_maximum(virtual, c_part, bandwidth=0.0, mode="one-way")
@@ -161,14 +155,8 @@ def analyse_wedge(
             f"inside the wedge (its path counts as {_mm(offset)} of the part)"
         )
         near = None
-    if shape == "disc":  # the disc of the virtual ellipse's area: D² cos(beta) / cos(alpha)
-        simple = inc * virtual.width / (4 * wavelength) - offset
-        simple_formula = (
-            "a disc of the virtual ellipse's area, D²·cos(refracted)/(4λ·cos(incident))"
-        )
-    else:
-        simple = max(inc, probe.width) ** 2 / (4 * wavelength) - offset
-        simple_formula = "L²/4λ, L the virtual rectangle's longer side"
+    simple = view.simple_square / (4 * wavelength) - offset
+    simple_formula = view.simple_formula
     level_list = _levels(levels)
     warnings.extend(_incident_spread_warnings(probe, wedge.speed, r, wave, level_list, mode))
     cache: dict = {}
@@ -181,8 +169,8 @@ def analyse_wedge(
     planes, prints = [], []
     for index, (vname, aperture) in enumerate(virtual.planes):
         in_plane = index == 0  # the incidence plane: footprints where the edges cross the depth
-        angles = np.degrees(pattern.half_angle(level_list, aperture, wavelength, shape, mode))
-        null = float(np.degrees(pattern.first_null(aperture, wavelength, shape)))
+        angles = np.degrees(virtual.half_angle(level_list, wavelength, mode, vname))
+        null = float(np.degrees(virtual.first_null(wavelength, vname)))
         half = {
             level_key(lv): (None if math.isnan(a) else float(a))
             for lv, a in zip(level_list, angles, strict=True)
@@ -336,10 +324,8 @@ def _incident_spread_warnings(probe, c_wedge, r, wave, levels, mode) -> list[str
         bound, which = r.first_critical, "first"
     if bound is None:
         return []
-    disc = isinstance(probe, Disc)
-    aperture = probe.diameter if disc else probe.length
     lam = c_wedge / probe.frequency
-    angles = pattern.half_angle(levels, aperture, lam, "disc" if disc else "side", mode)
+    angles = probe.half_angle(levels, lam, mode)  # in the incidence plane, the first
     for level, angle in sorted(zip(levels, angles, strict=True)):
         reach = math.pi / 2 if math.isnan(angle) else r.incident + float(angle)
         if reach > bound:

@@ -67,7 +67,7 @@ class Design:
     @property
     def diameter(self) -> float | np.ndarray:
         """The diameter of a disc solution, m."""
-        if self.shape != "disc":
+        if self.other_side is not None:
             raise AttributeError("a rectangle has no diameter; see aperture and other_side")
         return self.aperture
 

@@ -86,8 +86,7 @@ import math
 import numpy as np
 
 from ..errors import InputError
-from ..probes import Disc, Ellipse, Rectangle, check_positive
-from ._boundary import disc_table, ellipse_table, rectangle_table
+from ..probes import check_element, check_positive
 from ._sums import node_sums as _sums
 from .spectrum import Spectrum, make_spectrum
 
@@ -134,27 +133,11 @@ def _lateral(probe, x: np.ndarray, y: np.ndarray):
     pairs up; the rounding moves no point measurably.
     """
     quantum = 2.0**-40 * probe.longest_side
-    if isinstance(probe, Disc):
-        r = np.round(np.hypot(x, y) / quantum) * quantum
-        unique, inverse = np.unique(r, return_inverse=True)
-        return (unique,), inverse.reshape(-1)
-    if isinstance(probe, (Rectangle, Ellipse)):
-        key = np.round(np.abs(x) / quantum) + 1j * np.round(np.abs(y) / quantum)
-        unique, inverse = np.unique(key * quantum, return_inverse=True)
-        return (unique.real, unique.imag), inverse.reshape(-1)
-    raise InputError(f"probe: {probe!r} is not a Disc, a Rectangle or an Ellipse")
+    return probe.lateral(x, y, quantum)
 
 
 def _table(probe, lateral, k_max: float, z_min: float):
-    if isinstance(probe, Disc):
-        return disc_table(lateral[0], 0.5 * probe.diameter, k_max, z_min)
-    if isinstance(probe, Ellipse):
-        return ellipse_table(
-            lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width, k_max, z_min
-        )
-    return rectangle_table(
-        lateral[0], lateral[1], 0.5 * probe.length, 0.5 * probe.width, k_max, z_min
-    )
+    return probe.boundary_table(lateral, k_max, z_min)
 
 
 def _prepare(probe, x, y, z, k_max):
@@ -229,6 +212,7 @@ def pressure(probe, speed: float, x, y, z, *, frequency: float | None = None) ->
     >>> round(float(abs(pressure(disc, 5920, 0, 0, (0.01**2 - lam**2) / (4 * lam)))), 9)
     2.0
     """
+    check_element(probe)
     speed = check_positive(speed, "speed", "m/s")
     f = probe.frequency if frequency is None else check_positive(frequency, "frequency", "Hz")
     x, y, z = _check_points(x, y, z)
@@ -311,6 +295,7 @@ def field_amplitude(
     >>> round(float(field_amplitude(disc, 5920, 0, 0, z)), 6)
     4.0
     """
+    check_element(probe)
     speed = check_positive(speed, "speed", "m/s")
     check_mode(mode)
     spec = _spectrum(probe, bandwidth, frequencies, spectrum)

@@ -61,59 +61,16 @@ import math
 
 import numpy as np
 
-from .._bessel import j0
 from ..errors import InputError
-from ..probes import Disc, Rectangle, check_positive, plane_name
+from ..probes import check_element, check_positive, element_class, kinds, plane_name
 from ..units import parse_level
-from ._boundary import gauss_legendre, node_ladder
-from ._threads import one_blas_thread
 from .engine import check_mode
 from .profiles import BeamWidth
 from .spectrum import check_bandwidth, make_spectrum
 
 __all__ = ["focused_amplitude", "focused_beam_widths", "focused_pressure"]
 
-_BUDGET = 1 << 18  # real elements of one (depth x frequency x offset x node) block
 _MAX_ROUNDS = 12  # the scan across the beam doubles its extent at most this often
-
-
-def _node_count(phase: float) -> int:
-    """Gauss-Legendre nodes for a total phase change across the half-aperture."""
-    return int(
-        node_ladder(
-            np.array([math.ceil(0.5 * phase) + 24]),
-            "the focused element's field here (the depth is too close to the face for its "
-            "paraxial field to be of use)",
-        )[0]
-    )
-
-
-def _integrals(half, kind, alpha, beta):
-    """The aperture integrals of the module notes, complex, shape (D, F, R).
-
-    ``alpha`` (D, F) is the quadratic phase coefficient per depth and
-    frequency, ``beta`` (D, F, R) the linear one (:math:`k r / z`) per offset.
-    ``kind`` is ``"disc"`` (:math:`\\int_0^a ... J_0(\\beta\\rho)\\rho\\,d\\rho`) or
-    ``"line"`` (:math:`\\int_{-a}^{a} ... e^{i\\beta\\xi} d\\xi`).
-    """
-    phase = float(np.max(np.abs(alpha))) * half * half + float(np.max(np.abs(beta))) * half
-    t, w = gauss_legendre(_node_count(phase))
-    rho = half * t
-    weight = half * w * (rho if kind == "disc" else 2.0)
-    arg = alpha[..., None] * (rho * rho)  # (D, F, n)
-    e_re = weight * np.cos(arg)
-    e_im = -weight * np.sin(arg)
-    d, f, r = beta.shape
-    out = np.empty((d, f, r), dtype=complex)
-    kernel = j0 if kind == "disc" else np.cos
-    step = max(1, _BUDGET // (f * rho.size))
-    with one_blas_thread():
-        for i in range(0, d):
-            for j in range(0, r, step):
-                k = kernel(beta[i, :, j : j + step, None] * rho)  # (F, Rc, n)
-                out[i, :, j : j + step].real = np.matmul(k, e_re[i][:, :, None])[..., 0]
-                out[i, :, j : j + step].imag = np.matmul(k, e_im[i][:, :, None])[..., 0]
-    return out
 
 
 def _check_focus(probe, focal_length) -> float:
@@ -121,43 +78,25 @@ def _check_focus(probe, focal_length) -> float:
         big_f = float(focal_length)
     except (TypeError, ValueError):
         raise InputError(f"focal length: {focal_length!r} is not a number") from None
-    half = 0.5 * (probe.diameter if isinstance(probe, Disc) else probe.length)
+    half = probe.focused_half_aperture
     if not big_f > half:  # also refuses NaN; inf (no focus) is allowed
         raise InputError(
             f"focal length: {big_f * 1e3:g} mm is not allowed; it must lie in front of the "
-            f"element, beyond its radius ({half * 1e3:g} mm)"
+            f"element, beyond its {probe.focus_half_name} ({half * 1e3:g} mm)"
         )
     return big_f
 
 
 def _check_probe(probe):
-    if not isinstance(probe, (Disc, Rectangle)):
-        raise InputError(
-            f"probe: {probe!r} cannot be focused here; give a Disc (spherical focus) or a "
-            "Rectangle (cylindrical focus in its length plane)"
-        )
+    check_element(probe)
+    if probe.focus_kind is None:
+        focusable = [f"a {k} ({element_class(k).focus_kind} focus)" for k in kinds(probe=True)]
+        raise InputError(f"probe: {probe!r} cannot be focused here; give {' or '.join(focusable)}")
 
 
 def _pressures(probe, focal_length, offsets, depths, wavenumbers, plane):
     """|p| / (rho c U0) on offsets in ``plane`` x depths, per wavenumber: shape (D, F, R)."""
-    z = depths[:, None]  # (D, 1)
-    k = wavenumbers[None, :]  # (1, F)
-    inv_f = 0.0 if math.isinf(focal_length) else 1.0 / focal_length
-    beta = (k / z)[:, :, None] * offsets  # (D, F, R)
-    if isinstance(probe, Disc):
-        alpha = 0.5 * k * (1.0 / z - inv_f)
-        return (k / z)[:, :, None] * np.abs(_integrals(0.5 * probe.diameter, "disc", alpha, beta))
-    a, b = 0.5 * probe.length, 0.5 * probe.width
-    focused = 0.5 * k * (1.0 / z - inv_f)  # the length plane carries the focus
-    plain = 0.5 * k / z
-    zero = np.zeros((*beta.shape[:2], 1))
-    if plane == "length":
-        along = _integrals(a, "line", focused, beta)
-        other = _integrals(b, "line", plain, zero)
-    else:
-        along = _integrals(b, "line", plain, beta)
-        other = _integrals(a, "line", focused, zero)
-    return (k / (2.0 * math.pi * z))[:, :, None] * np.abs(along) * np.abs(other)
+    return probe.focused_pressures(focal_length, offsets, depths, wavenumbers, plane)
 
 
 def focused_pressure(
@@ -197,6 +136,7 @@ def focused_pressure(
     --------
     At the focus of a disc the paraxial amplitude is :math:`k a^2 / 2F`:
 
+    >>> from beamspread import Disc
     >>> disc = Disc(0.0127, 5e6)
     >>> k = 2 * math.pi * 5e6 / 1480.0
     >>> p = focused_pressure(disc, 1480.0, 0.05, [0.0], [0.05])
@@ -255,6 +195,7 @@ def focused_amplitude(
 
     Examples
     --------
+    >>> from beamspread import Disc
     >>> a = focused_amplitude(Disc(0.0127, 5e6), 1480.0, 0.05, [0.0, 0.001], [0.05])
     >>> a.shape, bool(a[0, 0] > a[0, 1])
     ((1, 2), True)
@@ -311,6 +252,7 @@ def focused_beam_widths(
     --------
     The -6 dB pulse-echo focal spot of a disc, about 1.027 F lambda / D:
 
+    >>> from beamspread import Disc
     >>> disc = Disc(0.0127, 5e6)
     >>> w = focused_beam_widths(disc, 1480.0, 0.05, 0.05, [6], bandwidth=0.0)[0]
     >>> round(w.width / (0.05 * 1480.0 / 5e6 / 0.0127), 3)
@@ -329,7 +271,8 @@ def focused_beam_widths(
     def amplitude(offsets):
         return _amplitude(probe, speed, big_f, np.atleast_1d(offsets), z, plane, spec, mode)[0]
 
-    converge = 0.0 if plane == "width" or math.isinf(big_f) else depth / big_f
+    focused = plane == probe.focused_plane
+    converge = depth / big_f if focused and not math.isinf(big_f) else 0.0
     spacing = lam * depth / (8.0 * half)
     extent = half * abs(1.0 - converge) + 4.0 * lam * depth / half
     tol = 1e-10 * half

@@ -47,7 +47,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..errors import InputError
-from ..probes import Disc, Rectangle, check_positive
+from ..probes import Disc, Rectangle, check_element, check_positive
 from .spectrum import make_spectrum
 
 __all__ = ["Crossing", "crossing_amplitude", "crossing_pressure"]
@@ -91,8 +91,7 @@ class Crossing:
     transmission: Callable[[np.ndarray], np.ndarray] | None = None
 
     def __post_init__(self) -> None:
-        if not isinstance(self.element, (Disc, Rectangle)):
-            raise InputError(f"element: {self.element!r} is not a Disc or a Rectangle")
+        check_element(self.element, probe=True)
         check_positive(self.upper_speed, "upper speed", "m/s")
         check_positive(self.lower_speed, "lower speed", "m/s")
         check_positive(self.path, "path", "m")
@@ -128,26 +127,7 @@ class Crossing:
         v_axis = np.array([0.0, 1.0, 0.0])
         w_axis = np.array([math.sin(a), 0.0, math.cos(a)])  # the element's axis, towards the part
         focus = e.focus
-        if isinstance(e, Disc):
-            radius = 0.5 * e.diameter
-            n_r = _count(wavenumber * radius * spread)
-            n_phi = 2 * _count(math.pi * wavenumber * radius * spread)
-            t, w = np.polynomial.legendre.leggauss(n_r)
-            rho = 0.5 * radius * (t + 1.0)
-            w_rho = 0.5 * radius * w * rho
-            phi = (np.arange(n_phi) + 0.5) * (2.0 * math.pi / n_phi)
-            u = (rho[:, None] * np.cos(phi)).ravel()
-            v = (rho[:, None] * np.sin(phi)).ravel()
-            weight = np.repeat(w_rho, n_phi) * (2.0 * math.pi / n_phi)
-            lateral2 = u * u + v * v
-        else:
-            half_u, half_v = 0.5 * e.length, 0.5 * e.width
-            tu, wu = np.polynomial.legendre.leggauss(_count(wavenumber * half_u * spread))
-            tv, wv = np.polynomial.legendre.leggauss(_count(wavenumber * half_v * spread))
-            u = np.repeat(half_u * tu, tv.size)
-            v = np.tile(half_v * tv, tu.size)
-            weight = np.repeat(half_u * wu, tv.size) * np.tile(half_v * wv, tu.size)
-            lateral2 = u * u  # a cylindrical focus curves the length plane only
+        u, v, weight, lateral2 = e.face_nodes(wavenumber, spread, _count)
         sag = np.zeros_like(u)
         if focus is not None:
             if lateral2.max() >= focus * focus:

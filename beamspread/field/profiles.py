@@ -23,7 +23,7 @@ import numpy as np
 from .._search import golden_max
 from ..axis import simple_near_field
 from ..errors import InputError
-from ..probes import check_positive, plane_name
+from ..probes import check_element, check_positive, plane_name
 from ..units import parse_level
 from ._crossings import crossings
 from .engine import _grid_amplitude, check_mode
@@ -98,17 +98,17 @@ class FieldMap:
     bandwidth: float
 
 
-def _along(plane: str, offset: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Lateral (x, y) for offsets in a plane."""
+def _along(probe, plane: str, offset: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Lateral (x, y) for offsets in a plane of the element."""
     zero = np.zeros_like(offset)
-    return (zero, offset) if plane == "width" else (offset, zero)
+    return (zero, offset) if probe.lateral_axis(plane) == 1 else (offset, zero)
 
 
 def _across(
     probe, speed, depth, plane, offsets, bandwidth, mode, frequencies, spectrum, single=False
 ) -> np.ndarray:
     """The amplitude at ``offsets`` (m) across the beam in ``plane``, at one depth."""
-    x, y = _along(plane, np.atleast_1d(np.asarray(offsets, dtype=float)))
+    x, y = _along(probe, plane, np.atleast_1d(np.asarray(offsets, dtype=float)))
     return _grid_amplitude(
         probe,
         speed,
@@ -123,7 +123,8 @@ def _across(
     )[0]
 
 
-def _options(speed, bandwidth, mode):
+def _options(probe, speed, bandwidth, mode):
+    check_element(probe)
     speed = check_positive(speed, "speed", "m/s")
     return speed, check_bandwidth(bandwidth), check_mode(mode)
 
@@ -147,7 +148,7 @@ def axial_profile(
     >>> profile.amplitude.shape
     (2,)
     """
-    speed, bandwidth, mode = _options(speed, bandwidth, mode)
+    speed, bandwidth, mode = _options(probe, speed, bandwidth, mode)
     depth = np.atleast_1d(np.asarray(depth, dtype=float))
     amp = _grid_amplitude(
         probe,
@@ -193,7 +194,7 @@ def last_maximum(
     >>> round(n / ((0.01**2 - lam**2) / (4 * lam)), 6)
     1.0
     """
-    speed, bandwidth, mode = _options(speed, bandwidth, mode)
+    speed, bandwidth, mode = _options(probe, speed, bandwidth, mode)
     wavelength = speed / probe.frequency
     scale = max(float(simple_near_field(probe.longest_side, wavelength)), wavelength)
 
@@ -248,7 +249,7 @@ def transverse_profile(
     >>> bool(p.amplitude[0] > p.amplitude[1])
     True
     """
-    speed, bandwidth, mode = _options(speed, bandwidth, mode)
+    speed, bandwidth, mode = _options(probe, speed, bandwidth, mode)
     plane = plane_name(probe, plane)
     depth = check_positive(depth, "depth", "m")
     offset = np.atleast_1d(np.asarray(offset, dtype=float))
@@ -318,7 +319,7 @@ def beam_widths(
     spectrum: str = "gaussian",
 ) -> list[BeamWidth]:
     """:func:`beam_width` at several levels, sharing the scans across the beam."""
-    speed, bandwidth, mode = _options(speed, bandwidth, mode)
+    speed, bandwidth, mode = _options(probe, speed, bandwidth, mode)
     plane = plane_name(probe, plane)
     depth = check_positive(depth, "depth", "m")
     levels = [parse_level(level) for level in levels_db]
@@ -381,13 +382,13 @@ def field_map(
     >>> m.amplitude.shape
     (2, 3)
     """
-    speed, bandwidth, mode = _options(speed, bandwidth, mode)
+    speed, bandwidth, mode = _options(probe, speed, bandwidth, mode)
     plane = plane_name(probe, plane)
     lateral = np.asarray(lateral, dtype=float).ravel()
     depth = np.asarray(depth, dtype=float).ravel()
     if lateral.size == 0 or depth.size == 0:
         raise InputError("grid: the lateral and depth axes must each hold at least one point")
-    x, y = _along(plane, lateral)
+    x, y = _along(probe, plane, lateral)
     amp = _grid_amplitude(
         probe,
         speed,

@@ -13,11 +13,7 @@ def frequency_text(hertz: float) -> str:
 def caption_of(result) -> str:
     """A one-line caption naming the inputs of a :class:`beamspread.BeamResult`."""
     p, w = result.probe, result.wave
-    size = (
-        f"disc {p.diameter * 1e3:g} mm"
-        if p.shape == "disc"
-        else f"rectangle {p.length * 1e3:g} x {p.width * 1e3:g} mm"
-    )
+    size = p.caption()
     where = "given speed" if w.medium == "given" else w.medium
     return (
         f"{size}, {frequency_text(p.frequency)}; {where}, {w.wave} {w.speed:.1f} m/s; "

@@ -7,6 +7,7 @@ import re
 from dataclasses import dataclass, fields
 
 from ..errors import InputError
+from ..probes import check_sizes
 from .keys import _BY_FIELD, _BY_OPTION, _KEYS, _MODE_FLAGS, _NUMBER, _check, _in_unit, _Key, _where
 
 __all__ = ["Setup"]
@@ -65,11 +66,8 @@ class Setup:
             object.__setattr__(self, f.name, _check(_BY_FIELD[f.name], value))
         if self.sonar is False:
             object.__setattr__(self, "sonar", None)
-        if self.shape == "disc":
-            if self.diameter is None or self.length is not None or self.width is not None:
-                raise InputError("probe: a disc takes a diameter (and no length or width)")
-        elif self.length is None or self.width is None or self.diameter is not None:
-            raise InputError("probe: a rectangle takes a length and a width (and no diameter)")
+        sizes = ("diameter", "length", "width")
+        check_sizes(self.shape, [name for name in sizes if getattr(self, name) is not None])
         if (self.material is None) == (self.speed is None):
             raise InputError("medium: give either a material or a speed")
         if self.speed is not None and (self.temperature is not None or self.conditions):

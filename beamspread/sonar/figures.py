@@ -69,11 +69,7 @@ def sonar_figures(
     probe, wavelength = result.probe, result.wavelength
     shape = probe.pattern
     q = directivity_factor(probe, wavelength)
-    method = (
-        "exact: (ka)^2 / (1 - J1(2ka)/(ka))"
-        if shape == "disc"
-        else "exact: from the radiation resistance (integral over the face autocorrelation)"
-    )
+    method = probe.directivity_factor_method
     full = {
         plane.name: {
             key: (None if value is None else 2.0 * value)

@@ -31,7 +31,7 @@ def design_to_dict(found, wave, warnings) -> dict[str, Any]:
         "frequency_hz": float(found.frequency),
         "wavelength_m": float(found.wavelength),
     }
-    if found.shape == "disc":
+    if found.other_side is None:  # a disc: one size
         out["diameter_m"] = float(found.aperture)
     else:
         out["side_m"] = float(found.aperture)

@@ -6,7 +6,6 @@ import textwrap
 
 from ...beam import BeamResult, level_key
 from ...conventions import Coupling
-from ...probes import Disc
 from ...units import format_length
 from .common import _angle, caution_for, columns, field_description, medium_and_probe_lines
 
@@ -84,12 +83,8 @@ def beam_table(
     near = result.near_field
     contact = result.coupling is Coupling.CONTACT and result.focus is None
     if contact:
-        method = "last on-axis maximum, " + (
-            "exact (D² − λ²)/4λ"
-            if isinstance(result.probe, Disc)
-            else "from the exact on-axis integral"
-        )
-        simple_label = "D²/4λ" if isinstance(result.probe, Disc) else "L²/4λ, L the longer side"
+        method = "last on-axis maximum, " + result.probe.near_field_label
+        simple_label = result.probe.simple_near_field_label
     else:  # an inspection setup states its own method
         method = result.near_field_method
         simple_label = result.near_field_simple_method or "the same from the simple formula"

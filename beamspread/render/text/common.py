@@ -52,13 +52,8 @@ def _speed(speed: float, units: str) -> str:
 def _probe_line(p, units: str) -> str:
     f = p.frequency
     freq = f"{f / 1e6:g} MHz" if f >= 1e6 else f"{f / 1e3:g} kHz"
-    if p.shape == "disc":
-        return f"disc element, diameter {format_length(p.diameter, units)}, {freq}"
-    kind = "elliptical" if p.shape == "ellipse" else "rectangular"
-    return (
-        f"{kind} element, length {format_length(p.length, units)} x width "
-        f"{format_length(p.width, units)}, {freq}"
-    )
+    sizes = " x ".join(f"{name} {format_length(v, units)}" for name, v in p.sizes().items())
+    return f"{p.noun} element, {sizes}, {freq}"
 
 
 def _wave_line(w, units: str) -> str:

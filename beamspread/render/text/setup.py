@@ -30,11 +30,7 @@ def setup_lines(setup, extra, units="mm") -> list[str]:
             f"part {_len_or_none(setup.near_field_in_part, units)}"
         )
     elif setup.setup == "focused":
-        kind = (
-            "a spherically focused disc"
-            if setup.beam.probe.shape == "disc"
-            else "a rectangle focused cylindrically in its length plane"
-        )
+        kind = setup.beam.probe.focus_description
         lines.append(f"Setup: {kind} straight in {setup.beam.wave.medium}, no water path")
     else:
         c = extra["couplant"]
