@@ -79,23 +79,14 @@ def scalar_or_array(array):
     return array
 
 
-def make_design(
-    shape,
-    solved,
-    mode,
-    level,
-    aperture,
-    other,
-    frequency,
-    speed,
-    wavelength,
-    theta,
-    other_half,
-    near,
-    di,
-    depth,
-    impossible,
-) -> Design:
+def make_design(shape, solved, mode, level, element, beam, depth, impossible) -> Design:
+    """A solver's arrays as a :class:`Design`, NaN where the target is impossible.
+
+    ``element`` is (aperture, other side or None, frequency, speed, wavelength) and
+    ``beam`` (half-angle in rad, the other plane's half-angle or None, near field, DI in dB).
+    """
+    aperture, other, frequency, speed, wavelength = element
+    theta, other_half, near, di = beam
     aperture = np.where(impossible, np.nan, aperture)
     frequency = np.where(impossible, np.nan, frequency)
     wavelength = np.where(impossible, np.nan, wavelength)

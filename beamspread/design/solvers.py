@@ -149,23 +149,9 @@ def size_disc(
         raise InputError(
             spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest)
         )
-    return make_design(
-        "disc",
-        "diameter",
-        mode,
-        level,
-        diameter,
-        None,
-        frequency,
-        speed,
-        wavelength,
-        theta,
-        None,
-        near,
-        _disc_di(diameter, wavelength),
-        depth,
-        impossible,
-    )
+    element = (diameter, None, frequency, speed, wavelength)
+    beam = (theta, None, near, _disc_di(diameter, wavelength))
+    return make_design("disc", "diameter", mode, level, element, beam, depth, impossible)
 
 
 def size_frequency(
@@ -211,23 +197,9 @@ def size_frequency(
         )
         message = spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], smallest)
         raise InputError(message + (" with this diameter" if np.isfinite(smallest) else ""))
-    return make_design(
-        "disc",
-        "frequency",
-        mode,
-        level,
-        diameter,
-        None,
-        frequency,
-        speed,
-        wavelength,
-        theta,
-        None,
-        near,
-        _disc_di(diameter, wavelength),
-        depth,
-        impossible,
-    )
+    element = (diameter, None, frequency, speed, wavelength)
+    beam = (theta, None, near, _disc_di(diameter, wavelength))
+    return make_design("disc", "frequency", mode, level, element, beam, depth, impossible)
 
 
 def size_rectangle_side(
@@ -285,20 +257,6 @@ def size_rectangle_side(
         raise InputError(
             spot_message(z, 2.0 * z * np.tan(theta.flat[i]), solution, near.flat[i], np.nan)
         )
-    return make_design(
-        "rectangle",
-        "side",
-        mode,
-        level,
-        side,
-        other,
-        frequency,
-        speed,
-        wavelength,
-        theta,
-        other_half,
-        near,
-        di,
-        depth,
-        impossible,
-    )
+    element = (side, other, frequency, speed, wavelength)
+    beam = (theta, other_half, near, di)
+    return make_design("rectangle", "side", mode, level, element, beam, depth, impossible)
