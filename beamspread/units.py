@@ -48,94 +48,57 @@ class _Kind:
 
 
 _INCH = 0.0254
-_F = 5.0 / 9.0
-KINDS: dict[str, _Kind] = {
-    "length": _Kind(
-        "length",
+_FT = 12 * _INCH
+_IN_US = _INCH * 1e6
+_F9 = 5.0 / 9.0
+_F = (_F9, -32.0 * _F9)  # degF: (factor, offset); the other units convert by a factor alone
+_K = (1.0, -273.15)
+# kind: (the unit of a bare number, each unit's factor to SI)
+_UNITS = {
+    "length": (
         "mm",
         {
-            "m": (1.0, 0.0),
-            "km": (1e3, 0.0),
-            "cm": (1e-2, 0.0),
-            "mm": (1e-3, 0.0),
-            "um": (1e-6, 0.0),
-            "µm": (1e-6, 0.0),
-            "in": (_INCH, 0.0),
-            "ft": (12 * _INCH, 0.0),
+            "m": 1.0,
+            "km": 1e3,
+            "cm": 1e-2,
+            "mm": 1e-3,
+            "um": 1e-6,
+            "µm": 1e-6,
+            "in": _INCH,
+            "ft": _FT,
         },
     ),
-    "frequency": _Kind(
-        "frequency",
-        "MHz",
-        {
-            "Hz": (1.0, 0.0),
-            "kHz": (1e3, 0.0),
-            "MHz": (1e6, 0.0),
-            "GHz": (1e9, 0.0),
-        },
-    ),
-    "speed": _Kind(
-        "speed",
+    "frequency": ("MHz", {"Hz": 1.0, "kHz": 1e3, "MHz": 1e6, "GHz": 1e9}),
+    "speed": (
         "m/s",
         {
-            "m/s": (1.0, 0.0),
-            "km/s": (1e3, 0.0),
-            "mm/us": (1e3, 0.0),
-            "mm/µs": (1e3, 0.0),
-            "in/us": (_INCH * 1e6, 0.0),
-            "in/µs": (_INCH * 1e6, 0.0),
-            "ft/s": (12 * _INCH, 0.0),
+            "m/s": 1.0,
+            "km/s": 1e3,
+            "mm/us": 1e3,
+            "mm/µs": 1e3,
+            "in/us": _IN_US,
+            "in/µs": _IN_US,
+            "ft/s": _FT,
         },
     ),
-    "temperature": _Kind(
-        "temperature",
+    "temperature": (
         "degC",
-        {
-            "degC": (1.0, 0.0),
-            "°C": (1.0, 0.0),
-            "C": (1.0, 0.0),
-            "degF": (_F, -32.0 * _F),
-            "°F": (_F, -32.0 * _F),
-            "F": (_F, -32.0 * _F),
-            "K": (1.0, -273.15),
-        },
+        {"degC": 1.0, "°C": 1.0, "C": 1.0, "degF": _F, "°F": _F, "F": _F, "K": _K},
     ),
-    "density": _Kind(
-        "density",
-        "kg/m3",
-        {
-            "kg/m3": (1.0, 0.0),
-            "kg/m^3": (1.0, 0.0),
-            "g/cm3": (1e3, 0.0),
-            "g/cm^3": (1e3, 0.0),
-        },
-    ),
-    "salinity": _Kind(
-        "salinity",
-        "g/kg",
-        {
-            "g/kg": (1.0, 0.0),
-            "ppt": (1.0, 0.0),
-            "psu": (1.0, 0.0),
-            "‰": (1.0, 0.0),
-        },
-    ),
-    "pressure": _Kind(
-        "pressure",
-        "dbar",
-        {
-            "dbar": (1.0, 0.0),
-            "bar": (10.0, 0.0),
-            "kPa": (0.1, 0.0),
-            "MPa": (100.0, 0.0),
-            "Pa": (1e-4, 0.0),
-        },
-    ),
-    "power": _Kind("power", "W", {"W": (1.0, 0.0), "kW": (1e3, 0.0)}),
-    "decibel": _Kind("decibel", "dB", {"dB": (1.0, 0.0)}),
-    "percent": _Kind("percent", "%", {"%": (1.0, 0.0)}),
-    "angle": _Kind("angle", "deg", {"deg": (1.0, 0.0), "°": (1.0, 0.0)}),
-    "number": _Kind("number", "", {}),
+    "density": ("kg/m3", {"kg/m3": 1.0, "kg/m^3": 1.0, "g/cm3": 1e3, "g/cm^3": 1e3}),
+    "salinity": ("g/kg", {"g/kg": 1.0, "ppt": 1.0, "psu": 1.0, "‰": 1.0}),
+    "pressure": ("dbar", {"dbar": 1.0, "bar": 10.0, "kPa": 0.1, "MPa": 100.0, "Pa": 1e-4}),
+    "power": ("W", {"W": 1.0, "kW": 1e3}),
+    "decibel": ("dB", {"dB": 1.0}),
+    "percent": ("%", {"%": 1.0}),
+    "angle": ("deg", {"deg": 1.0, "°": 1.0}),
+    "number": ("", {}),
+}
+KINDS: dict[str, _Kind] = {
+    kind: _Kind(
+        kind, default, {u: f if isinstance(f, tuple) else (f, 0.0) for u, f in factors.items()}
+    )
+    for kind, (default, factors) in _UNITS.items()
 }
 # Case-insensitive aliases, built once: "mhz" -> "MHz". Ambiguous spellings
 # ("mm" vs "Mm") do not exist among the units above.
