@@ -18,6 +18,7 @@ rather than one silently preferred.
 
 from __future__ import annotations
 
+from dataclasses import replace
 from importlib.resources import files
 from pathlib import Path
 
@@ -109,27 +110,9 @@ _UN_LAT = Parameter(
     "latitude in degrees, for the depth-to-pressure conversion",
 )
 # Del Grosso (1974): 0-30 degC, salinity 30-40, 0-1000 kg/cm2 (9800 dbar).
-_DG_T = Parameter(
-    "temperature",
-    "temperature",
-    "degC",
-    10.0,
-    (0.0, 30.0),
-    (-3.0, 40.0),
-    "water temperature (ITS-90; converted to IPTS-68 for the equation)",
-)
-_DG_S = Parameter(
-    "salinity", "salinity", "g/kg", 35.0, (30.0, 40.0), (0.0, 50.0), "salinity, parts per thousand"
-)
-_DG_P = Parameter(
-    "pressure",
-    "pressure",
-    "dbar",
-    0.0,
-    (0.0, 9800.0),
-    (0.0, 11500.0),
-    "sea pressure above the atmosphere; give this or depth, not both",
-)
+_DG_T = replace(_UN_T, valid=(0.0, 30.0), limits=(-3.0, 40.0))
+_DG_S = replace(_SEA_S, valid=(30.0, 40.0))
+_DG_P = replace(_UN_P, valid=(0.0, 9800.0))
 # Absorption only: the pH of seawater (Francois & Garrison; Ainslie & McColm's stated range).
 _PH = Parameter("ph", "number", "", 8.0, (7.7, 8.3), (6.0, 9.0), "pH of the seawater")
 _SEA_ABSORPTION_BAND = (200.0, 1e6)  # Hz, Francois & Garrison's measurements (from memory)
@@ -205,6 +188,40 @@ def _sea_density(temperature, salinity, pressure, depth, latitude):
     return 1025.0
 
 
+# What the two equations of pure water share: density, absorption, description.
+_FRESH_WATER = dict(
+    density=eq.water_density_kell,
+    density_source=_KELL,
+    category="liquid",
+    description="pure water at atmospheric pressure, by temperature",
+    absorption=lambda frequency, temperature: ab.fresh_water(frequency, temperature),
+    absorption_source=ab.FRESH_WATER,
+    absorption_frequency=_SEA_ABSORPTION_BAND,
+)
+_SEA_DENSITY_SOURCE = "typical surface seawater, 1025 kg/m3 (common practice)"
+
+
+def _pressure_seawater(name, speed, source, parameters, aliases):
+    """A seawater equation by sea pressure (or depth), with Francois & Garrison's absorption."""
+    return ComputedMedium(
+        name,
+        "liquid",
+        speed,
+        source=source,
+        parameters=parameters,
+        density=_sea_density,
+        density_source=_SEA_DENSITY_SOURCE,
+        aliases=aliases,
+        category="liquid",
+        description="seawater by temperature, salinity and pressure (or depth)",
+        absorption=_pressure_absorption(name),
+        derived=_pressure_and_depth(name),
+        absorption_source=ab.FRANCOIS_GARRISON,
+        absorption_parameters=(_PH,),
+        absorption_frequency=_SEA_ABSORPTION_BAND,
+    )
+
+
 MEDIA = (
     ComputedMedium(
         "water",
@@ -212,14 +229,8 @@ MEDIA = (
         eq.water_marczak,
         source="Marczak (1997), J. Acoust. Soc. Am. 102, 2776: pure water, 0-95 degC",
         parameters=(_WATER_T,),
-        density=eq.water_density_kell,
-        density_source=_KELL,
         aliases=("fresh-water", "water-marczak"),
-        category="liquid",
-        description="pure water at atmospheric pressure, by temperature",
-        absorption=lambda frequency, temperature: ab.fresh_water(frequency, temperature),
-        absorption_source=ab.FRESH_WATER,
-        absorption_frequency=_SEA_ABSORPTION_BAND,
+        **_FRESH_WATER,
     ),
     ComputedMedium(
         "water-bilaniuk-wong",
@@ -227,24 +238,8 @@ MEDIA = (
         eq.water_bilaniuk_wong,
         source="Bilaniuk & Wong (1993, erratum 1996), J. Acoust. Soc. Am. 93, 1609: "
         "148-point fit, 0-100 degC",
-        parameters=(
-            Parameter(
-                "temperature",
-                "temperature",
-                "degC",
-                20.0,
-                (0.0, 100.0),
-                (-5.0, 100.0),
-                "water temperature (ITS-90)",
-            ),
-        ),
-        density=eq.water_density_kell,
-        density_source=_KELL,
-        category="liquid",
-        description="pure water at atmospheric pressure, by temperature",
-        absorption=lambda frequency, temperature: ab.fresh_water(frequency, temperature),
-        absorption_source=ab.FRESH_WATER,
-        absorption_frequency=_SEA_ABSORPTION_BAND,
+        parameters=(replace(_WATER_T, valid=(0.0, 100.0)),),
+        **_FRESH_WATER,
     ),
     ComputedMedium(
         "seawater-mackenzie",
@@ -253,7 +248,7 @@ MEDIA = (
         source="Mackenzie (1981), J. Acoust. Soc. Am. 70, 807: nine-term equation",
         parameters=(_SEA_T, _SEA_S, _SEA_D),
         density=lambda temperature, salinity, depth: 1025.0,
-        density_source="typical surface seawater, 1025 kg/m3 (common practice)",
+        density_source=_SEA_DENSITY_SOURCE,
         aliases=("seawater", "sea-water"),
         category="liquid",
         description="seawater by temperature, salinity and depth (the default seawater)",
@@ -262,43 +257,23 @@ MEDIA = (
         absorption_parameters=(_PH,),
         absorption_frequency=_SEA_ABSORPTION_BAND,
     ),
-    ComputedMedium(
+    _pressure_seawater(
         "seawater-unesco",
-        "liquid",
         _unesco_speed,
-        source="UNESCO equation: Chen & Millero (1977), J. Acoust. Soc. Am. 62, 1129, as coded "
+        "UNESCO equation: Chen & Millero (1977), J. Acoust. Soc. Am. 62, 1129, as coded "
         "by Fofonoff & Millard (1983), UNESCO Tech. Pap. Mar. Sci. 44 (T68 = 1.00024 T90); "
         "depth to pressure by Saunders (1981), J. Phys. Oceanogr. 11, 573",
-        parameters=(_UN_T, _UN_S, _UN_P, _UN_D, _UN_LAT),
-        density=_sea_density,
-        density_source="typical surface seawater, 1025 kg/m3 (common practice)",
-        aliases=("seawater-chen-millero",),
-        category="liquid",
-        description="seawater by temperature, salinity and pressure (or depth)",
-        absorption=_pressure_absorption("seawater-unesco"),
-        derived=_pressure_and_depth("seawater-unesco"),
-        absorption_source=ab.FRANCOIS_GARRISON,
-        absorption_parameters=(_PH,),
-        absorption_frequency=_SEA_ABSORPTION_BAND,
+        (_UN_T, _UN_S, _UN_P, _UN_D, _UN_LAT),
+        ("seawater-chen-millero",),
     ),
-    ComputedMedium(
+    _pressure_seawater(
         "seawater-del-grosso",
-        "liquid",
         _del_grosso_speed,
-        source="Del Grosso (1974), J. Acoust. Soc. Am. 56, 1084: the NRL II equation "
+        "Del Grosso (1974), J. Acoust. Soc. Am. 56, 1084: the NRL II equation "
         "(T68 = 1.00024 T90, pressure in kg/cm2 = dbar / 9.80665); depth to pressure by "
         "Saunders (1981), J. Phys. Oceanogr. 11, 573",
-        parameters=(_DG_T, _DG_S, _DG_P, _UN_D, _UN_LAT),
-        density=_sea_density,
-        density_source="typical surface seawater, 1025 kg/m3 (common practice)",
-        aliases=("seawater-nrl2",),
-        category="liquid",
-        description="seawater by temperature, salinity and pressure (or depth)",
-        absorption=_pressure_absorption("seawater-del-grosso"),
-        derived=_pressure_and_depth("seawater-del-grosso"),
-        absorption_source=ab.FRANCOIS_GARRISON,
-        absorption_parameters=(_PH,),
-        absorption_frequency=_SEA_ABSORPTION_BAND,
+        (_DG_T, _DG_S, _DG_P, _UN_D, _UN_LAT),
+        ("seawater-nrl2",),
     ),
     ComputedMedium(
         "air",
