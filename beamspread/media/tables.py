@@ -129,6 +129,19 @@ def _positive(number: Any, ctx: _Context, entry: str, key: str) -> float:
     return float(number)
 
 
+def _known_keys(raw: dict, allowed, ctx: _Context, entry: str, key: str | None = None) -> None:
+    """Refuse a key not in ``allowed``: of the value under ``key``, or of the entry itself."""
+    unknown = sorted(set(raw) - allowed)
+    if unknown:
+        where = "" if key is None else f" '{unknown[0]}' in the value"
+        raise ctx.error(
+            f"unknown key{where}{_closest(unknown[0], allowed)}; "
+            f"allowed: {', '.join(sorted(allowed))}",
+            entry,
+            key or unknown[0],
+        )
+
+
 def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
     if not isinstance(raw, dict):
         raise ctx.error(
@@ -137,14 +150,7 @@ def _value(raw: Any, ctx: _Context, entry: str, key: str) -> Value:
             entry,
             key,
         )
-    unknown = sorted(set(raw) - VALUE_KEYS)
-    if unknown:
-        raise ctx.error(
-            f"unknown key '{unknown[0]}' in the value{_closest(unknown[0], VALUE_KEYS)}; "
-            f"allowed: {', '.join(sorted(VALUE_KEYS))}",
-            entry,
-            key,
-        )
+    _known_keys(raw, VALUE_KEYS, ctx, entry, key)
     kind = _QUANTITY_KIND[key]
     unit = raw.get("unit")
     if not isinstance(unit, str) or not unit.strip():
@@ -217,14 +223,7 @@ def _material(raw: Any, index: int, ctx: _Context) -> Material:
             name,
             "name",
         )
-    unknown = sorted(set(raw) - ENTRY_KEYS)
-    if unknown:
-        raise ctx.error(
-            f"unknown key{_closest(unknown[0], ENTRY_KEYS)}; allowed: "
-            f"{', '.join(sorted(ENTRY_KEYS))}",
-            name,
-            unknown[0],
-        )
+    _known_keys(raw, ENTRY_KEYS, ctx, name)
     state = raw.get("state")
     if state not in STATES:
         raise ctx.error(
