@@ -19,7 +19,7 @@ from .errors import InputError
 from .media.quantities import Wave
 from .probes import Probe, check_element, check_positive
 from .units import length_text as _mm
-from .units import parse_level
+from .units import parse_level, positive_numbers
 
 __all__ = [
     "DEFAULT_BANDWIDTH",
@@ -143,20 +143,8 @@ def _levels(levels: Iterable[float | str]) -> tuple[float, ...]:
 
 
 def _depths(depths: Iterable[float]) -> tuple[float, ...]:
-    out: list[float] = []
-    for depth in depths:
-        try:
-            value = float(depth)
-        except (TypeError, ValueError):
-            raise InputError(f"depth: {depth!r} is not a number") from None
-        if not math.isfinite(value) or value <= 0:
-            raise InputError(
-                f"depth: {depth!r} m is not allowed; a depth must lie in front of the face "
-                "(above 0)"
-            )
-        if value not in out:
-            out.append(value)
-    return tuple(out)
+    rule = "a depth must lie in front of the face (above 0)"
+    return tuple(dict.fromkeys(positive_numbers(depths, "depth", rule)))
 
 
 def analyse(

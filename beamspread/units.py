@@ -28,6 +28,7 @@ __all__ = [
     "parse_quantity",
     "parse_speed",
     "parse_temperature",
+    "positive_numbers",
     "unit_of",
 ]
 
@@ -258,6 +259,26 @@ def parse_level(value: object, what: str | None = None) -> float:
             "give a level from above 0 up to 200 dB below the peak"
         )
     return level
+
+
+def positive_numbers(values, what: str, rule: str) -> list[float]:
+    """Each of ``values`` (m) as a float, refusing one that is not a finite number above 0.
+
+    ``what`` names the values and ``rule`` says what is allowed, in the messages.
+
+    >>> positive_numbers(["0.1", 2], "depth", "give a depth above 0")
+    [0.1, 2.0]
+    """
+    out = []
+    for item in values:
+        try:
+            value = float(item)
+        except (TypeError, ValueError):
+            raise InputError(f"{what}: {item!r} is not a number") from None
+        if not math.isfinite(value) or value <= 0:
+            raise InputError(f"{what}: {item!r} m is not allowed; {rule}")
+        out.append(value)
+    return out
 
 
 def length_text(metres: float) -> str:

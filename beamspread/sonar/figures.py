@@ -7,7 +7,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from ..beam import level_key
-from ..errors import InputError
+from ..units import positive_numbers
 from .beam_angle import equivalent_beam_angle
 from .directivity import directivity_factor, rayleigh_distance
 from .footprint import Footprint, footprint_width
@@ -82,15 +82,7 @@ def sonar_figures(
         for name, aperture in probe.planes
     )
     psi = equivalent_beam_angle(probe, wavelength)
-    depths = []
-    for depth in bottom_depths:
-        try:
-            value = float(depth)
-        except (TypeError, ValueError):
-            raise InputError(f"bottom depth: {depth!r} is not a number") from None
-        if not math.isfinite(value) or value <= 0:
-            raise InputError(f"bottom depth: {depth!r} m is not allowed; give a depth above 0")
-        depths.append(value)
+    depths = positive_numbers(bottom_depths, "bottom depth", "give a depth above 0")
     near = result.near_field
     prints = []
     for depth in depths:
