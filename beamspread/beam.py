@@ -281,20 +281,33 @@ def analyse(
             f"{len(inside)} depths, {_mm(min(inside))} to {_mm(max(inside))}, lie inside the "
             f"near field ({_mm(near_field)}): the far-field spot size does not hold there"
         )
-    return BeamResult(
-        probe=probe,
-        wave=wave,
-        convention=Convention(mode),
-        levels=level_list,
-        wavelength=wavelength,
+    return beam_result(
+        (probe, wave, mode, level_list, depth_list, planes, warnings),
         near_field=near_field,
         near_field_simple=near_simple,
         near_field_method=method,
         near_field_factor=factor,
-        planes=tuple(planes),
-        depths=depth_list,
-        warnings=tuple(warnings),
         field=summary,
+    )
+
+
+def beam_result(analysed, **figures) -> BeamResult:
+    """A :class:`BeamResult` from what every analysis finds and its near-field ``figures``.
+
+    ``analysed`` is (probe, wave in the part, mode, levels, depths, planes, warnings); the
+    figures are the near-field keywords of :class:`BeamResult` and its ``field`` summary.
+    """
+    probe, wave, mode, levels, depths, planes, warnings = analysed
+    return BeamResult(
+        probe=probe,
+        wave=wave,
+        convention=Convention(mode),
+        levels=levels,
+        wavelength=wave.speed / probe.frequency,
+        planes=tuple(planes),
+        depths=depths,
+        warnings=tuple(warnings),
+        **figures,
     )
 
 

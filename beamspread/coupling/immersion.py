@@ -26,17 +26,18 @@ Models and their limits
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, replace
+from dataclasses import dataclass
 
 import numpy as np
 
 from .. import setups
 from ..beam import (
     BeamResult,
-    Convention,
     FieldSettings,
+    FieldSummary,
     PlaneResult,
     analyse,
+    beam_result,
     level_key,
     straight_field_spots,
     straight_spot,
@@ -98,7 +99,7 @@ def analyse_immersion(
         raise InputError(
             f"water path: {wp * 1e3:g} mm is not allowed; give 0 to {MAX_WATER_PATH * 1e3:g} mm"
         )
-    c_w, c_p, f = water.speed, part.speed, probe.frequency
+    c_w, c_p = water.speed, part.speed
     in_water = analyse(
         probe, Wave(water.name, "longitudinal", c_w, "couplant"), levels=levels, mode=mode
     )
@@ -176,24 +177,14 @@ def analyse_immersion(
         if direct
         else "(N_water - water path) c_water / c_part (common practice)"
     )
-    beam = BeamResult(
-        probe=probe,
-        wave=part,
-        convention=Convention(mode),
-        levels=level_list,
-        wavelength=c_p / f,
+    beam = beam_result(
+        (probe, part, mode, level_list, depth_list, planes, warnings),
         near_field=near,
         near_field_simple=simple_part,
         near_field_method=method,
         near_field_factor=None,
-        planes=tuple(planes),
-        depths=depth_list,
-        warnings=tuple(warnings),
+        field=None if field is None else FieldSummary(field, None),
     )
-    if field is not None:
-        from ..beam import FieldSummary
-
-        beam = replace(beam, field=FieldSummary(field, None))
     return SetupResult(
         beam,
         "focused" if direct else "immersion",

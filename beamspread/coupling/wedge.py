@@ -30,7 +30,7 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from .. import setups
-from ..beam import BeamResult, Convention, FieldSettings, PlaneResult, Spot, level_key
+from ..beam import FieldSettings, FieldSummary, PlaneResult, Spot, beam_result, level_key
 from ..errors import InputError
 from ..media.quantities import Wave
 from ..probes import Disc, Rectangle, check_element, check_positive
@@ -256,27 +256,16 @@ def analyse_wedge(
                 )
             )
     warnings.extend(text for _, text in by_method)
-    beam = BeamResult(
-        probe=probe,
-        wave=part,
-        convention=Convention(mode),
-        levels=level_list,
-        wavelength=wavelength,
+    beam = beam_result(
+        (probe, part, mode, level_list, depth_list, planes, warnings),
         near_field=near,
         near_field_simple=simple if simple > 0 else None,
         near_field_method="last on-axis maximum of the virtual element in the part, less "
         "the wedge path's equivalent (common practice)",
         near_field_simple_method=f"{simple_formula}, less the wedge path's equivalent",
         near_field_factor=None,
-        planes=tuple(planes),
-        depths=depth_list,
-        warnings=tuple(warnings),
-        field=None,
+        field=None if field is None else FieldSummary(field, None),
     )
-    if field is not None:
-        from ..beam import FieldSummary
-
-        beam = replace(beam, field=FieldSummary(field, None))
     return SetupResult(
         beam,
         "wedge",

@@ -243,20 +243,11 @@ def _material(raw: Any, index: int, ctx: _Context) -> Material:
     aliases = raw.get("aliases", [])
     if not isinstance(aliases, list) or not all(isinstance(a, str) and a.strip() for a in aliases):
         raise ctx.error("aliases must be a list of non-empty strings", name, "aliases")
-    for key in ("category", "description", "note"):
-        if key in raw and not isinstance(raw[key], str):
+    text = {key: raw.get(key) for key in ("category", "description", "note")}
+    for key, value in text.items():
+        if value is not None and not isinstance(value, str):
             raise ctx.error("must be a string", name, key)
-    return Material(
-        name=name,
-        state=state,
-        longitudinal=longitudinal,
-        shear=shear,
-        density=density,
-        aliases=tuple(aliases),
-        category=raw.get("category"),
-        description=raw.get("description"),
-        note=raw.get("note"),
-    )
+    return Material(name, state, longitudinal, shear, density, tuple(aliases), **text)
 
 
 def parse_table(text: str, path: str = "<table>") -> TableFile:
