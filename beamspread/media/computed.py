@@ -8,7 +8,7 @@ from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 
 from ..errors import InputError, MaterialError
-from .quantities import NAME_PATTERN, STATES, Absorption, Parameter, Wave, check_wave
+from .quantities import NAME_PATTERN, STATES, Absorption, Parameter, Wave, check_wave, of_wave
 
 SpeedFunction = Callable[..., float]
 
@@ -202,13 +202,7 @@ class ComputedMedium:
         """The speed of ``wave`` under ``conditions`` (defaults fill the rest)."""
         check_wave(wave)
         values, notes = self._conditions(conditions, self.parameters)
-        fn = self.longitudinal if wave == "longitudinal" else self.shear
-        if fn is None:
-            raise MaterialError(
-                f"{self.name} is a {self.state} and carries no shear wave; "
-                "use the longitudinal wave",
-                remedy=("wave", "longitudinal"),
-            )
+        fn = of_wave(self, wave, self.longitudinal, self.shear)
         with warnings.catch_warnings():
             warnings.simplefilter("error")
             speed = float(fn(**values))

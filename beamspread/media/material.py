@@ -6,7 +6,7 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 
 from ..errors import MaterialError
-from .quantities import Parameter, Value, Wave, check_wave
+from .quantities import Parameter, Value, Wave, check_wave, of_wave
 
 
 @dataclass(frozen=True)
@@ -63,13 +63,7 @@ class Material:
                 f"{self.name} takes no condition {', '.join(sorted(conditions))}; "
                 "a table material depends at most on temperature"
             )
-        value = self.longitudinal if wave == "longitudinal" else self.shear
-        if value is None:
-            raise MaterialError(
-                f"{self.name} is a {self.state} and carries no shear wave in its table; "
-                "use the longitudinal wave",
-                remedy=("wave", "longitudinal"),
-            )
+        value = of_wave(self, wave, self.longitudinal, self.shear, " in its table")
         notes: list[str] = []
         used: dict[str, float] = {}
         if temperature is not None:

@@ -19,7 +19,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ..errors import InputError
+from ..errors import InputError, MaterialError
 
 WAVES = ("longitudinal", "shear")
 STATES = ("solid", "liquid", "gas")
@@ -173,6 +173,22 @@ class Wave:
 def check_wave(wave: str) -> None:
     if wave not in WAVES:
         raise InputError(f"wave mode {wave!r} is unknown; use one of {', '.join(WAVES)}")
+
+
+def of_wave(medium, wave: str, longitudinal, shear, where: str = ""):
+    """``longitudinal`` or ``shear``, as ``wave`` asks; a medium without shear refuses it.
+
+    ``medium`` gives its name and state to the message; ``where`` says where the
+    shear wave is missing (" in its table").
+    """
+    chosen = longitudinal if wave == "longitudinal" else shear
+    if chosen is None:
+        raise MaterialError(
+            f"{medium.name} is a {medium.state} and carries no shear wave{where}; "
+            "use the longitudinal wave",
+            remedy=("wave", "longitudinal"),
+        )
+    return chosen
 
 
 @dataclass(frozen=True)
