@@ -219,15 +219,16 @@ def test_save_happens_only_after_the_command_works(run, tmp_path):
     assert not saved.exists()
 
 
-def test_setup_options_a_command_cannot_use_are_named(run, tmp_path):
+def test_section_takes_a_water_path_setup(run, tmp_path):
     saved = tmp_path / "tank.toml"
     tank = ("--diameter", "10mm", "--frequency", "5MHz", "--material", "reference-steel")
     args = (*tank, "--water-path", "30mm", "--far-field-only", "--save", str(saved))
     assert run("beam", *args).code == 0
-    # section cannot model a water path: it refuses the setup rather than draw another beam
+    # section models a water path: it draws the beam in the part, and asks for the plate
     r = run("section", "--setup", str(saved), "--json")
-    assert r.code == 2
-    assert "--water-path" in r.stderr and "cannot model" in r.stderr
+    assert r.code == 2 and "--thickness" in r.stderr
+    r = run("section", "--setup", str(saved), "--thickness", "20mm", "--json")
+    assert r.code == 0 and r.json()["couplant"]["path_m"] == 0.030
 
 
 def test_map_picture_marks_the_near_field(run, tmp_path, monkeypatch):

@@ -163,11 +163,15 @@ def test_the_commands_that_can_model_a_wedge_take_it(run, tmp_path):
     assert run("report", str(path), "--output", str(out)).code == 0
 
 
-def test_a_water_path_and_focus_are_refused_where_they_cannot_be_modelled(run, tmp_path):
+def test_every_command_reading_setups_models_a_water_path_and_focus(run, tmp_path):
+    # section draws a straight beam too: no command that reads a setup file refuses one.
     path, _ = _saved(run, tmp_path, "beam", *IMMERSION, "--far-field-only")
-    line = _one_line_refusal(run("section", "--setup", str(path)))
-    assert "a water path and a focus (--water-path 40mm, --focus 60mm)" in line
-    assert line.endswith("use across, axis, beam, index-step, map or report with this setup")
+    beam = run("beam", "--setup", str(path), "--json").json()
+    r = run("section", "--setup", str(path), "--thickness", "30mm", "--json")
+    assert r.code == 0, r.stderr
+    data = json.loads(r.stdout)
+    assert data["coupling"] == "immersion" and data["couplant"]["path_m"] == 0.040
+    assert data["focus"] == beam["focus"]
 
 
 def test_options_that_do_not_change_the_beam_only_warn(run, tmp_path):

@@ -143,7 +143,6 @@ def test_computed_footprint_is_where_the_computed_edges_cross_the_depth(run):
     # the field engine's widths at the crossings' sound paths, independently of the search.
     # beam, section and the drawn section agree.
     import beamspread
-    from beamspread.cli.section import section_geometry
     from beamspread.field import beam_widths
     from beamspread.render import plots
 
@@ -202,7 +201,14 @@ def test_computed_footprint_is_where_the_computed_edges_cross_the_depth(run):
     )
     assert table[(1, -20.0)] > 1.1 * w20 / math.cos(beta)
     # the drawn section's footprints (the edges sampled at the crossings) agree, < 0.01 %
-    drawn = plots.section_footprints(section_geometry(result, 0.020, 0.010, settings, None))
+    technique = beamspread.Technique(
+        beamspread.Disc(0.010, 4e6),
+        beamspread.PartMedium("reference-steel"),
+        beamspread.WedgeCoupling(speed=ACRYLIC, refracted=beta, path=0.010),
+        0.020,
+        beamspread.Request(depths=(0.010,)),
+    )
+    drawn = plots.section_footprints(plots.section_of(beamspread.compute(technique), 0.020, 0.010))
     assert len(drawn) == 4
     for f in drawn:
         assert f.width == pytest.approx(table[(f.leg, -f.level_db)], rel=1e-4)

@@ -188,11 +188,9 @@ def _plot(path, result, units) -> list[str]:
             in_air=beam.wave.state == "gas",
         )
     elif setup is not None and setup.refraction is not None and result.technique.thickness:
-        from .section import section_geometry
-
         depths = result.technique.request.depths
-        geometry = section_geometry(
-            setup, result.technique.thickness, depths[0] if depths else None, result.settings, None
+        geometry = plots.section_of(
+            result, result.technique.thickness, depths[0] if depths else None
         )
         plots.plot_section(geometry, path, caption=caption_of(beam), units=units)
     else:

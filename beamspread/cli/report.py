@@ -98,11 +98,10 @@ def _view(result, units):
         )
         thickness = result.technique.thickness
         if thickness is not None:
-            from .section import section_geometry
+            from ..render.plots import section_of
 
             depths = result.technique.request.depths
-            depth = depths[0] if depths else None
-            geometry = section_geometry(setup, thickness, depth, result.settings, None)
+            geometry = section_of(result, thickness, depths[0] if depths else None)
     elif setup is not None:
         # As the table's computed widths: the element in the couplant at the water-equivalent
         # range, water path + depth c_part / c_water (paraxial), drawn at the depth.

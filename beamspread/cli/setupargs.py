@@ -18,10 +18,9 @@ source) replace the setup's options they stand in for. A typed option replaces:
   ``--incident`` and ``--refracted`` each other, ``--diameter`` a rectangle's
   sides and ``--length``/``--width`` a disc's diameter.
 
-A command that cannot model the setup's wedge, water path or focus refuses
-the file (it would compute another technique and present it as this one);
-other options it does not take (depths, levels, the bottom, the sonar
-figures) are named in a warning. A command without ``--setup`` (``size``,
+Every command that reads setup files models every technique (a wedge, a
+water path, a focus); the options it does not take (depths, levels, the
+bottom, the sonar figures) are named in a warning. A command without ``--setup`` (``size``,
 ``report``, ...) refuses ``--setup`` and ``--save`` with one line (:func:`refusal`).
 
 ``--save`` records the options the command line resolves to (typed, with
@@ -105,7 +104,6 @@ def _read_setup(ctx: click.Context, param, path):
 
     options = load_setup(path).to_options()
     accepted = _accepted(ctx.command)
-    _refuse_techniques(ctx.info_name, path, options, accepted)
     defaults: dict[str, object] = {}
     for option, value in options.items():
         p = accepted.get(option)
@@ -122,27 +120,17 @@ def _read_setup(ctx: click.Context, param, path):
     return path
 
 
-# What a setup can record that changes the beam itself, with the options that record it.
-# A command that cannot model one refuses the setup instead of computing another technique.
-_TECHNIQUES = (
-    (
-        "an angle-beam wedge",
-        ("--wedge", "--wedge-speed", "--incident", "--refracted", "--wedge-path"),
-    ),
-    ("a water path", ("--water-path", "--couplant")),
-    ("a focus", ("--focus",)),
-)
 _READ_AS = {"report": "beam"}  # report reads a setup file as beam's options
 
 
-def _commands_that(can) -> list[str]:
-    """The commands reading setup files for which ``can(accepted options)`` holds."""
+def _setup_readers() -> list[str]:
+    """The commands that read setup files."""
     from . import _COMMANDS, cli
 
     names = []
     for other in sorted(_COMMANDS):
         command = cli.get_command(None, _READ_AS.get(other, other))
-        if any(p.name == "setup_path" for p in command.params) and can(_accepted(command)):
+        if any(p.name == "setup_path" for p in command.params):
             names.append(other)
     return names
 
@@ -159,7 +147,7 @@ def refusal(error: click.NoSuchOption) -> str | None:
     while ctx.parent.parent is not None:  # the command under beamspread (materials, not list)
         ctx = ctx.parent
     name = ctx.info_name
-    readers = _commands_that(lambda accepted: True)
+    readers = _setup_readers()
     writers = [n for n in readers if n not in _READ_AS]
     verb, names = ("read", readers) if option == _SETUP else ("written", writers)
     others = f"setup files are {verb} by {_listed(names, 'and')}"
@@ -174,27 +162,6 @@ def refusal(error: click.NoSuchOption) -> str | None:
             f"file records; give it the medium and the target on its command line ({others})"
         )
     return f"{name} does not take {option}; {others}"
-
-
-def _refuse_techniques(name: str, path: str, options: dict, accepted) -> None:
-    """Refuse a setup whose wedge, water path or focus the command cannot model."""
-    missing = [
-        (what, [o for o in opts if o in options])
-        for what, opts in _TECHNIQUES
-        if any(o in options for o in opts) and not all(o in accepted for o in opts)
-    ]
-    if not missing:
-        return
-    needed = {o for _, opts in missing for o in opts}
-    details = ", ".join(f"{o} {options[o]}" for _, opts in missing for o in opts)
-    straight = not any(o in accepted for _, opts in _TECHNIQUES for o in opts)
-    can = _commands_that(lambda accepted: needed <= set(accepted))
-    raise click.UsageError(
-        f"{path} records {' and '.join(what for what, _ in missing)} ({details}), which "
-        f"{name} cannot model"
-        + (" (it computes a contact beam straight from the probe's face)" if straight else "")
-        + (f"; use {_listed(can)} with this setup" if can else "")
-    )
 
 
 # Options that stand in for others: typing the key replaces the setup's options listed.

@@ -2,7 +2,8 @@
 
 The computed field gives the beam's full width at any sound path but not in
 closed form, so the ends of a computed footprint are found by root finding
-(:func:`_edge_crossing`), within the sound paths set here.
+(:func:`_edge_crossing`), within the sound paths set here, on the widths of
+:class:`_ComputedWidths`.
 """
 
 from __future__ import annotations
@@ -78,3 +79,38 @@ def _edge_crossing(
             return b, wb
         b = (p * gq - q * gp) / (gq - gp)
     return None
+
+
+class _ComputedWidths:
+    """The computed field's full widths per level at sound paths from the exit point.
+
+    The virtual element's field at ``s + offset`` (see :mod:`beamspread.coupling.wedge`),
+    kept while one analysis runs, so the footprints' root finding reuses the
+    widths at the depths asked for.
+    """
+
+    def __init__(self, virtual, speed, offset, levels, mode, field):
+        self.virtual, self.speed, self.offset = virtual, speed, offset
+        self.levels, self.mode, self.field = levels, mode, field
+        self.cache: dict = {}
+
+    def __call__(self, plane: str, path: float) -> dict[float, float]:
+        from ..field import beam_widths
+
+        key = (plane, float(path))
+        found = self.cache.get(key)
+        if found is None:
+            widths = beam_widths(
+                self.virtual,
+                self.speed,
+                path + self.offset,
+                self.levels,
+                plane=plane,
+                bandwidth=self.field.bandwidth,
+                mode=self.mode,
+                frequencies=self.field.frequencies,
+                spectrum=self.field.spectrum,
+            )
+            found = {level: w.width for level, w in zip(self.levels, widths, strict=True)}
+            self.cache[key] = found
+        return found

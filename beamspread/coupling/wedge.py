@@ -35,8 +35,8 @@ from ..errors import InputError
 from ..media.quantities import Wave
 from ..probes import Disc, Rectangle, check_element, check_positive
 from ..units import length_text as _mm
-from .crossing import _edge_crossing
-from .result import SetupResult, WedgeFootprint, _ComputedWidths
+from .crossing import _ComputedWidths, _edge_crossing
+from .result import SetupResult, WedgeFootprint
 
 __all__ = ["Wedge", "analyse_wedge"]
 
@@ -159,11 +159,8 @@ def analyse_wedge(
     simple_formula = view.simple_formula
     level_list = _levels(levels)
     warnings.extend(_incident_spread_warnings(probe, wedge.speed, r, wave, level_list, mode))
-    cache: dict = {}
     computed = (
-        None
-        if field is None
-        else _ComputedWidths(virtual, c_part, offset, level_list, mode, field, cache)
+        None if field is None else _ComputedWidths(virtual, c_part, offset, level_list, mode, field)
     )
     legs = (1, 2) if thickness is not None else (1,)
     planes, prints = [], []
@@ -277,7 +274,6 @@ def analyse_wedge(
         offset=offset,
         footprints=tuple(prints),
         method_warnings=tuple(by_method),
-        _widths=cache,
     )
 
 

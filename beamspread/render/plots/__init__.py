@@ -24,7 +24,13 @@ from .figure import (
 from .footprint import draw_footprint, footprint_figure, plot_footprint
 from .map import MapArtists, draw_map, map_figure, plot_map
 from .section import draw_section, plot_section, section_figure
-from .section_geometry import BeamEdge, SectionFootprint, SectionGeometry, section_footprints
+from .section_geometry import (
+    BeamEdge,
+    SectionFootprint,
+    SectionGeometry,
+    section_footprints,
+    section_of,
+)
 
 __all__ = [
     "COLORMAP",
@@ -58,4 +64,5 @@ __all__ = [
     "save_figure",
     "section_figure",
     "section_footprints",
+    "section_of",
 ]

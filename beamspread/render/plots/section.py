@@ -1,4 +1,4 @@
-"""The angle beam on the plate's section: the picture of a :class:`SectionGeometry`."""
+"""The beam on a plate's section, angled or straight: the picture of a SectionGeometry."""
 
 from __future__ import annotations
 
@@ -31,7 +31,7 @@ if TYPE_CHECKING:
 
 
 def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> list:
-    """Draw the angle beam on the plate's section into ``ax``; return the legend handles.
+    """Draw the beam on the plate's section into ``ax``; return the legend handles.
 
     The plate to scale (depth downward), the exit point, the beam axis and
     each level's edges through the legs (mirrored at the back wall), the main
@@ -65,6 +65,26 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
     )
     ax.add_patch(plate)
     handles = [_line(color="#e9ecef", lw=8, label=f"plate, {_length(t, units)} thick")]
+    clip = plate
+    if g.mirror:  # leg 2 unfolded, in the plate's mirror image below the back wall
+        ax.add_patch(
+            Box(
+                (left * s, t * s),
+                (right - left) * s,
+                (g.drawn_depth - t) * s,
+                facecolor="#f5f6f7",
+                edgecolor="0.78",
+                hatch="//",
+                lw=0.8,
+                ls="--",
+                zorder=0,
+            )
+        )
+        handles.append(
+            _line(color="0.7", lw=8, alpha=0.4, label="below the back wall: its mirror, leg 2")
+        )
+        clip = Box((left * s, 0.0), (right - left) * s, g.drawn_depth * s, visible=False)
+        ax.add_patch(clip)
 
     # The axis, folded at the back wall.
     ends = np.linspace(0.0, g.path_length, g.legs + 1)
@@ -75,7 +95,9 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
             color=_PALETTE[0],
             lw=1.3,
             ls="-.",
-            label=f"beam axis, {math.degrees(beta):.1f}\u00b0 {g.wave}",
+            label=f"beam axis, {math.degrees(beta):.1f}\u00b0 {g.wave}"
+            if beta > 0
+            else f"beam axis, straight down, {g.wave}",
         )
     )
     colours, rows = {}, {}
@@ -91,9 +113,9 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
                 (line,) = ax.plot(
                     x[: n + 1] * s, y[: n + 1] * s, color=colour, lw=1.3, ls=ls, alpha=0.45
                 )
-                line.set_clip_path(plate)
+                line.set_clip_path(clip)
             (line,) = ax.plot(x[n:] * s, y[n:] * s, color=colour, lw=1.3, ls=ls, zorder=3)
-            line.set_clip_path(plate)  # an edge that leaves the plate is not drawn outside
+            line.set_clip_path(clip)  # an edge that leaves the plate is not drawn outside
         if i == 0:  # shade the main beam between its first pair of edges
             (x1, y1, _), (x2, y2, _) = sides
             ok1, ok2 = np.isfinite(x1), np.isfinite(x2)
@@ -105,7 +127,7 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
                 lw=0,
                 zorder=2,
             )
-            shade.set_clip_path(plate)
+            shade.set_clip_path(clip)
         handles.append(
             _line(color=colour, lw=1.3, ls=ls, label=f"{_level_text(edge.level_db)} beam edges")
         )
@@ -135,23 +157,35 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
             ms=7,
             color=_PALETTE[0],
             ls="none",
-            label=f"exit point, {_length(g.exit_point, units)}",
+            label=f"{_entry(g)}, {_length(g.exit_point, units)}",
         )
     )
+    if g.water_path is not None:
+        handles.append(
+            _line(
+                color="none",
+                label=f"above it (not drawn): a water path of {_length(g.water_path, units)} "
+                f"in {g.couplant}",
+            )
+        )
     if g.flaw_depth is not None:
         y = g.flaw_depth * s
         ax.axhline(y, color=_MARKS, lw=1.0, ls=(0, (2, 2)), zorder=1)
+        where = "(leg 1 above, leg 2 below):"
+        if g.mirror:
+            ax.axhline((2 * t - g.flaw_depth) * s, color=_MARKS, lw=1.0, ls=(0, (2, 2)), zorder=1)
+            where = "(leg 1 above it, leg 2 below its mirror):"
         handles.append(
             _line(
                 color=_MARKS,
                 lw=1.0,
                 ls=(0, (2, 2)),
-                label=f"flaw depth {_length(g.flaw_depth, units)}; footprints "
-                "(leg 1 above, leg 2 below):",
+                label=f"flaw depth {_length(g.flaw_depth, units)}; footprints {where}",
             )
         )
         for fp in traced.footprints:
             colour = colours[fp.level_db]
+            y = (g.flaw_depth if fp.leg == 1 or not g.mirror else 2 * t - g.flaw_depth) * s
             up = 2.5 + 4.0 * rows[fp.level_db]  # points off the line: a row per level
             shifted = offset_copy(
                 ax.transData, fig=ax.figure, y=up if fp.leg == 1 else -up, units="points"
@@ -183,17 +217,29 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
     ax.set_xlim(left * s, right * s)
     # Room above the surface for the exit point's mark: 10 points at about 6.3 in of width.
     above = max(0.06 * t, 10.0 * (right - left) / (6.3 * 72.0))
-    ax.set_ylim(t * s * 1.04, -above * s)
+    ax.set_ylim(g.drawn_depth * s * (1.02 if g.mirror else 1.04), -above * s)
     ax.set_aspect("equal", adjustable="box")  # the section to scale
-    ax.set_xlabel(f"surface distance from the exit point's origin, {unit}")
-    ax.set_ylabel(f"depth, {unit}")
+    if beta > 0:
+        ax.set_xlabel(f"surface distance from the exit point's origin, {unit}")
+    else:
+        ax.set_xlabel(f"distance across the beam axis, {unit}")
+    ax.set_ylabel(f"depth, {unit}" + (" (below the back wall: unfolded)" if g.mirror else ""))
     levels = ", ".join(_level_text(e.level_db) for e in g.edges)
+    kind = "Angle beam" if beta > 0 else "Straight beam"
     ax.set_title(
-        f"Angle beam on the section: {g.legs} leg{'s' if g.legs > 1 else ''}"
+        f"{kind} on the section: {g.legs} leg{'s' if g.legs > 1 else ''}"
+        + (f", {g.plane} plane" if g.plane else "")
         + (f", edges at {levels}" if levels else ""),
         fontsize=10,
     )
     return handles
+
+
+def _entry(g: SectionGeometry) -> str:
+    """What the mark on the surface is: a wedge's exit point, or where a straight beam enters."""
+    if g.refracted > 0:
+        return "exit point"
+    return "beam entry point" if g.water_path is not None else "probe's centre"
 
 
 def section_figure(
@@ -206,7 +252,7 @@ def section_figure(
     """:func:`plot_section`'s picture as a Figure (default: 7 in wide, as tall as needed)."""
     if size is None:  # the plate to scale in about 6.3 in of width, plus the rest
         traced = _trace_section(geometry)
-        ratio = geometry.thickness / (traced.right - traced.left)
+        ratio = geometry.drawn_depth / (traced.right - traced.left)
         rows = -(-(len(geometry.edges) * (geometry.legs + 1) + 4) // 2)  # legend rows
         size = (FIGSIZE[0], min(7.0, 6.3 * 1.1 * ratio + 1.45 + rows * 0.15))
     fig = new_figure(size, caption=caption)

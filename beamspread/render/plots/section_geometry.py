@@ -1,6 +1,8 @@
-"""The angle beam on a plate's section, in numbers: edges, legs, footprints at a depth.
+"""The beam on a plate's section, in numbers: edges, legs, footprints at a depth.
 
-What :mod:`.section` draws is traced here, in metres, without matplotlib.
+What :mod:`.section` draws is traced here, in metres, without matplotlib; a
+computed technique's section is built by :func:`section_of` (its edges from
+:mod:`beamspread.edges`).
 """
 
 from __future__ import annotations
@@ -84,6 +86,17 @@ class SectionGeometry:
         1 (down to the back wall) or 2 (and back up after the bounce).
     wave : str
         Named in the title: "shear" or "longitudinal".
+    water_path : float, optional
+        Behind a water path, its length, m: noted, not drawn (the beam is
+        drawn from where it enters the part).
+    couplant : str
+        The water path's couplant, named with it.
+    plane : str
+        The plane drawn, named in the title where it is not the only one.
+    mirror : bool
+        Draw leg 2 unfolded, in the plate's mirror image below the back wall,
+        rather than folded back into the plate: for a straight beam, whose
+        second leg would fold back onto its first.
     """
 
     thickness: float
@@ -93,6 +106,10 @@ class SectionGeometry:
     flaw_depth: float | None = None
     legs: int = 2
     wave: str = "shear"
+    water_path: float | None = None
+    couplant: str = ""
+    plane: str = ""
+    mirror: bool = False
 
     def __post_init__(self) -> None:
         from ...probes import check_positive
@@ -135,10 +152,18 @@ class SectionGeometry:
         return x, s * math.cos(b) - o * math.sin(b)
 
     def fold(self, y) -> np.ndarray:
-        """Unfolded depth to depth in the plate: mirrored at the back wall."""
+        """Unfolded depth to depth in the plate: mirrored at the back wall (unchanged,
+        in the plate's mirror image, with ``mirror``)."""
         y = np.asarray(y, dtype=float)
         t = self.thickness
+        if self.mirror:
+            return y
         return np.where(y > t, 2.0 * t - y, y)
+
+    @property
+    def drawn_depth(self) -> float:
+        """How deep the drawing goes, m: the plate, and its mirror image with ``mirror``."""
+        return self.legs * self.thickness if self.mirror else self.thickness
 
 
 @dataclass(frozen=True)
@@ -182,7 +207,8 @@ def _edge_polyline(
     start = first
     if to_surface:  # the held line meets the surface where s cos b - o sin b = 0
         start = min(first, side * 0.5 * edge.width[0] * math.tan(b))
-    s = np.unique(np.concatenate([np.linspace(start, edge.sound_path[-1], samples), [first]]))
+    dense = np.linspace(start, edge.sound_path[-1], samples)
+    s = np.unique(np.concatenate([dense, edge.sound_path]))  # its own samples: exact there
 
     def at(s):
         return geometry.unfolded(s, side * 0.5 * np.interp(s, edge.sound_path, edge.width))
@@ -266,4 +292,61 @@ def _trace_section(g: SectionGeometry) -> _Traced:
     xs += [v for fp in prints for v in (fp.near, fp.far)]
     low, high = min(xs), max(xs)
     margin = 0.03 * (high - low) + 0.1 * g.thickness
-    return _Traced(edges, prints, low - margin, high + margin)
+    low, high = low - margin, high + margin
+    if g.mirror:  # a straight beam: symmetric about its axis, and not a sliver
+        half = max(high - g.exit_point, g.exit_point - low, 0.3 * g.drawn_depth)
+        low, high = g.exit_point - half, g.exit_point + half
+    return _Traced(edges, prints, low, high)
+
+
+def section_of(result, thickness: float, depth: float | None = None, *, plane=None):
+    """The :class:`SectionGeometry` of a computed technique (:func:`beamspread.compute`).
+
+    The beam axis (refracted under a wedge, straight down otherwise), each
+    level's edges over both legs (:func:`beamspread.edges.beam_edges`, in
+    ``plane``: default the first, a rectangle's length plane, a wedge's
+    incidence plane), and the flaw ``depth``. The edges are sampled at the
+    flaw's sound paths on both legs and, under a wedge, at the sound paths
+    where the result's footprints found the edges crossing the depth, so the
+    drawn footprints are those of the table. Behind a water path the beam is
+    drawn from where it enters the part, and the water path is noted.
+    """
+    from ...edges import beam_edges, plane_of
+
+    source = result.source
+    beta = source.refracted
+    name = plane_of(result, plane).name
+    at = []
+    if depth is not None:
+        at = [depth / math.cos(beta), (2 * thickness - depth) / math.cos(beta)]
+    if source.coordinate == "sound path":  # past the second leg's return to the surface
+        length = 2 * thickness / math.cos(beta) * 1.4
+        footprints = result.setup.footprints
+        at += [
+            s
+            for p in footprints
+            if p.depth == depth
+            for s in (p.near_path, p.far_path)
+            if s is not None
+        ]
+    else:
+        length = 2 * thickness * 1.05
+    edges = tuple(
+        BeamEdge(level, paths, widths)
+        for level, (paths, widths) in beam_edges(result, length, plane=name, at=at).items()
+    )
+    couplant = result.couplant
+    water = None if couplant is None or couplant.path == 0 else couplant
+    return SectionGeometry(
+        thickness,
+        beta,
+        0.0,
+        edges,
+        depth,
+        2,
+        result.beam.wave.wave,
+        water_path=None if water is None else water.path,
+        couplant="" if water is None else water.wave.medium,
+        plane=name if len(result.beam.planes) > 1 else "",
+        mirror=beta == 0.0,
+    )

@@ -6,7 +6,7 @@ from .beam import beam_table
 from .common import conditions_text
 from .setup import setup_lines
 
-__all__ = ["result_table"]
+__all__ = ["result_table", "setup_shown"]
 
 
 def result_table(result, units: str = "mm") -> str:
@@ -16,17 +16,21 @@ def result_table(result, units: str = "mm") -> str:
         return beam_table(result.beam, units, **options)
     table = beam_table(result.beam, units).split("\n")
     head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
+    shown = setup_lines(result.setup, setup_shown(result), units)
+    return "\n".join(table[:head] + shown + table[head:])
+
+
+def setup_shown(result) -> dict:
+    """The wedge or couplant as :func:`~beamspread.render.text.setup.setup_lines` names it."""
     if result.wedge is not None:
         w = result.wedge
-        shown = {"wedge": {"name": w.name, "speed_m_s": w.speed, "path_m": w.path}}
-    else:
-        c = result.couplant
-        shown = {
-            "couplant": {
-                "name": c.wave.medium,
-                "speed_m_s": c.wave.speed,
-                "path_m": c.path,
-                "at": conditions_text(c.wave),
-            }
+        return {"wedge": {"name": w.name, "speed_m_s": w.speed, "path_m": w.path}}
+    c = result.couplant
+    return {
+        "couplant": {
+            "name": c.wave.medium,
+            "speed_m_s": c.wave.speed,
+            "path_m": c.path,
+            "at": conditions_text(c.wave),
         }
-    return "\n".join(table[:head] + setup_lines(result.setup, shown, units) + table[head:])
+    }
