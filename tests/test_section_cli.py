@@ -1,4 +1,5 @@
-"""``beamspread section`` and ``index-step``: what they state, their CSV, and grazing beams."""
+"""``beamspread section`` and ``index-step``: what they state, their CSV, grazing beams, and
+straight beams on the section (contact, water path, focus, a rectangle's plane)."""
 
 from __future__ import annotations
 
@@ -245,3 +246,191 @@ def test_grazing_beam_computed_edge_that_never_comes_down(run):
     assert all(s["footprint_m"] > 0 for s in computed if s["level_db"] == -6)
     (line,) = [w for w in data["warnings"] if "computed -20 dB edge" in w]
     assert "on leg 1" in line and "on leg 2" in line
+
+
+# --- Straight beams on the section: contact, water path, focus, a rectangle's plane --------
+
+
+def _drawn(monkeypatch, run, *args):
+    """The section's JSON and the SectionGeometry it draws (the picture is not written)."""
+    from beamspread.render import plots
+
+    seen = {}
+    monkeypatch.setattr(plots, "plot_section", lambda g, path, **kw: seen.update(g=g, **kw))
+    data = run("section", *args, "--plot", "unused.png", "--json").json()
+    return data, seen["g"], seen["caption"]
+
+
+def _rows(data) -> dict[tuple[int, float], dict]:
+    return {(f["leg"], f["level_db"]): f for f in data["footprints"]}
+
+
+def test_contact_disc_far_field_edges_are_the_bessel_cone(run, monkeypatch):
+    # A 10 mm 4 MHz disc in steel: N = D^2/4lambda = 16.9 mm, so 80 mm and the mirror leg's
+    # 2t - d = 120 mm lie in the far field. The drawn edges lie z tan(theta) either side of
+    # the axis, theta from the disc's pulse-echo pattern (2 J1(x)/x)^2 solved with scipy;
+    # common practice: sin(theta_-6) = 0.514 lambda / D for a disc, pulse-echo.
+    from beamspread.render import plots
+
+    t, d = 0.100, 0.080
+    args = (*PROBE, *STEEL, "--thickness", "100mm", "--depth", "80mm", "--far-field-only")
+    data, geometry, caption = _drawn(monkeypatch, run, *args)
+    assert data["coupling"] == "contact" and data["wedge"] is None
+    assert data["refracted_deg"] == 0.0 and data["edges"] == "far-field"
+    lam = CL / 4e6
+    theta6 = _pulse_echo_half_angle(6.0, 0.010, lam)
+    assert math.sin(theta6) == pytest.approx(0.514 * lam / 0.010, rel=2e-3)
+    rows = _rows(data)
+    drawn = {(f.leg, f.level_db): f for f in plots.section_footprints(geometry)}
+    assert geometry.refracted == 0.0 and geometry.mirror
+    for level in (6.0, 20.0):
+        theta = _pulse_echo_half_angle(level, 0.010, lam)
+        # leg 1 at the depth d; leg 2 back up after the back wall, at the sound path 2t - d
+        for leg, path in ((1, d), (2, 2 * t - d)):
+            row = rows[(leg, -level)]
+            assert row["sound_path_m"] == pytest.approx(path, rel=1e-12)
+            assert row["far_m"] == pytest.approx(path * math.tan(theta), rel=1e-9)
+            assert row["near_m"] == pytest.approx(-path * math.tan(theta), rel=1e-9)
+            edge = drawn[(leg, level)]
+            assert edge.far == pytest.approx(path * math.tan(theta), rel=1e-9)
+            assert edge.near == pytest.approx(-path * math.tan(theta), rel=1e-9)
+    assert "the length plane" not in caption  # a disc has one plane: none is named
+
+
+def test_mirror_leg_is_the_width_at_the_unfolded_sound_path(run, monkeypatch):
+    # The computed field: the back wall mirrors the beam, so at depth d on the way back up
+    # the width is the beam's width at the sound path 2t - d (geometry), here read from
+    # `beam --depth` at that path; leg 1 is `beam`'s own width at d.
+    from beamspread.render import plots
+
+    args = (*PROBE, *STEEL, "--bandwidth", "0.5")
+    data, geometry, _ = _drawn(monkeypatch, run, *args, "--thickness", "25mm", "--depth", "15mm")
+    beam = run("beam", *args, "--depth", "15mm", "--depth", "35mm", "--json").json()
+    widths = {
+        (s["depth_m"], s["level_db"]): s["width_m"]
+        for s in beam["planes"][0]["spots"]
+        if s["method"] == "field"
+    }
+    rows = _rows(data)
+    assert data["edges"] == "field" and len(rows) == 4
+    for level in (-6.0, -20.0):
+        assert rows[(1, level)]["footprint_m"] == widths[(0.015, level)]
+        assert rows[(2, level)]["sound_path_m"] == pytest.approx(2 * 0.025 - 0.015, rel=1e-12)
+        assert rows[(2, level)]["footprint_m"] == pytest.approx(widths[(0.035, level)], rel=1e-12)
+    # the drawn edges are sampled at both paths: the picture's footprints are the table's
+    for f in plots.section_footprints(geometry):
+        assert f.width == pytest.approx(rows[(f.leg, -f.level_db)]["footprint_m"], rel=1e-9)
+    # and leg 2 is drawn unfolded, in the plate's mirror image below the back wall
+    edge = geometry.edges[0]
+    assert max(edge.sound_path) >= 2 * 0.025 and geometry.drawn_depth == 2 * 0.025
+
+
+def test_immersion_widths_in_the_part_are_the_beam_commands(run, monkeypatch):
+    # Behind a 30 mm water path the section's widths in the part are `beam`'s computed widths
+    # at those depths (leg 2 at 2t - d); the water path is noted, not drawn.
+    from beamspread.render import plots
+
+    probe = ("--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path", "30mm")
+    data, geometry, caption = _drawn(
+        monkeypatch, run, *probe, "--thickness", "25mm", "--depth", "15mm"
+    )
+    beam = run("beam", *probe, "--depth", "15mm", "--depth", "35mm", "--json").json()
+    widths = {
+        (s["depth_m"], s["level_db"]): s["width_m"]
+        for s in beam["planes"][0]["spots"]
+        if s["method"] == "field"
+    }
+    rows = _rows(data)
+    for level in (-6.0, -20.0):
+        assert rows[(1, level)]["footprint_m"] == widths[(0.015, level)]
+        assert rows[(2, level)]["footprint_m"] == pytest.approx(widths[(0.035, level)], rel=1e-12)
+    assert data["coupling"] == "immersion" and data["couplant"]["path_m"] == 0.030
+    assert data["couplant"]["speed_m_s"] == beam["couplant"]["speed_m_s"]
+    assert data["transmission_coefficient"] == beam["transmission_coefficient"]
+    assert geometry.water_path == 0.030 and "water path 30 mm" in caption
+    for f in plots.section_footprints(geometry):
+        assert f.width == pytest.approx(rows[(f.leg, -f.level_db)]["footprint_m"], rel=1e-9)
+    text = run("section", *probe, "--thickness", "25mm", "--depth", "15mm").stdout
+    assert "Straight beam on the section" in text and "water path 30.00 mm" in text
+
+
+def test_immersion_far_field_cone_refracts_at_the_surface(run):
+    # The far-field edge leaves the element at the half-angle in water and refracts at the
+    # surface (Snell's law): width 2 (WP tan(theta_w) + z tan(theta_p)), sin(theta_p) =
+    # sin(theta_w) c_p / c_w, theta_w from scipy's Bessel J1 (pulse-echo, 2 J1(x)/x squared).
+    probe = ("--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, "--water-path", "30mm")
+    args = (*probe, "--thickness", "25mm", "--depth", "15mm", "--far-field-only")
+    data = run("section", *args, "--json").json()
+    c_w = data["couplant"]["speed_m_s"]
+    rows = _rows(data)
+    for level in (6.0, 20.0):
+        theta_w = _pulse_echo_half_angle(level, 0.0127, c_w / 5e6)
+        theta_p = math.asin(math.sin(theta_w) * CL / c_w)
+        for leg, z in ((1, 0.015), (2, 0.035)):
+            want = 2 * (0.030 * math.tan(theta_w) + z * math.tan(theta_p))
+            assert rows[(leg, -level)]["footprint_m"] == pytest.approx(want, rel=1e-9)
+
+
+def test_focus_in_contact_and_behind_water_are_drawn_from_the_computed_field(run, monkeypatch):
+    # A focused probe's section: leg 1 is `beam`'s computed width of the focused element.
+    for coupling in (("--focus", "60mm"), ("--water-path", "50mm", "--focus", "75mm")):
+        probe = ("--diameter", "12.7mm", "--frequency", "5MHz", *STEEL, *coupling)
+        data, geometry, _ = _drawn(
+            monkeypatch, run, *probe, "--thickness", "40mm", "--depth", "20mm"
+        )
+        beam = run("beam", *probe, "--depth", "20mm", "--json").json()
+        widths = {s["level_db"]: s["width_m"] for s in beam["planes"][0]["spots"]}
+        rows = _rows(data)
+        assert data["focus"] == beam["focus"]
+        for level in (-6.0, -20.0):
+            assert rows[(1, level)]["footprint_m"] == widths[level]
+        assert {e.level_db for e in geometry.edges} == {6.0, 20.0}
+
+
+def test_rectangle_plane_is_chosen_and_stated(run, monkeypatch):
+    # A 20 x 10 mm rectangle: the length plane by default, the width plane with --plane;
+    # each the beam command's width in that plane, the plane named in caption and text.
+    probe = ("--length", "20mm", "--width", "10mm", "--frequency", "5MHz", *STEEL)
+    where = ("--thickness", "30mm", "--depth", "20mm", "--far-field-only")
+    beam = run("beam", *probe, "--depth", "20mm", "--far-field-only", "--json").json()
+    for plane in ("length", "width"):
+        chosen = () if plane == "length" else ("--plane", "width")
+        data, geometry, caption = _drawn(monkeypatch, run, *probe, *where, *chosen)
+        (spots,) = [p["spots"] for p in beam["planes"] if p["name"] == plane]
+        widths = {s["level_db"]: s["width_m"] for s in spots}
+        assert data["plane"] == plane and geometry.plane == plane
+        assert f"the {plane} plane drawn" in caption
+        for level in (-6.0, -20.0):
+            assert _rows(data)[(1, level)]["footprint_m"] == widths[level]
+        text = run("section", *probe, *where, *chosen).stdout
+        assert f"drawn in the {plane} plane" in text
+
+
+@pytest.mark.parametrize(
+    ("args", "words"),
+    [
+        ((*PROBE, *STEEL, *PLATE, "--plane", "width"), "a disc has one"),
+        (
+            ("--length", "20mm", "--width", "22mm", "--frequency", "4MHz", *STEEL, *_wedge(45)),
+            "--plane width cannot be drawn",
+        ),
+        ((*PROBE, *STEEL, *PLATE, "--focus", "60mm", "--far-field-only"), "no far-field edges"),
+        ((*PROBE, *STEEL, *PLATE, "--depth", "30mm"), "lies below the part"),
+        ((*PROBE, *STEEL), "needs the part --thickness"),
+    ],
+    ids=["disc-plane", "wedge-width-plane", "focus-far-field", "below-the-part", "no-plate"],
+)
+def test_section_refusals_are_one_line(run, args, words):
+    extra = ("--plane", "width", *PLATE) if "22mm" in args else ()
+    r = run("section", *args, *extra)
+    assert r.code == 2
+    lines = r.stderr.strip().splitlines()
+    assert len(lines) == 1 and words in lines[0] and r.stdout == ""
+
+
+def test_straight_section_pictures_are_drawn(run, tmp_path):
+    for name, coupling in (("contact", ()), ("immersion", ("--water-path", "30mm"))):
+        out = tmp_path / f"{name}.png"
+        r = run("section", *PROBE, *STEEL, *PLATE, *coupling, "--depth", "12mm", "--plot", out)
+        assert r.code == 0, r.stderr
+        assert out.stat().st_size > 10_000
