@@ -434,3 +434,21 @@ def test_straight_section_pictures_are_drawn(run, tmp_path):
         r = run("section", *PROBE, *STEEL, *PLATE, *coupling, "--depth", "12mm", "--plot", out)
         assert r.code == 0, r.stderr
         assert out.stat().st_size > 10_000
+
+
+def test_a_straight_section_setup_is_read_by_beam_which_draws_the_same_section(
+    run, tmp_path, monkeypatch
+):
+    # A straight setup with a plate, saved by section: beam reads it (the thickness no longer
+    # needs a wedge) and its --plot draws the section section draws (the same geometry).
+    from beamspread.render import plots
+
+    saved = tmp_path / "plate.toml"
+    args = (*PROBE, *STEEL, *PLATE, "--depth", "12mm", "--far-field-only")
+    assert run("section", *args, "--save", str(saved)).code == 0
+    _, geometry, _ = _drawn(monkeypatch, run, "--setup", str(saved))
+    seen = {}
+    monkeypatch.setattr(plots, "plot_section", lambda g, path, **kw: seen.update(g=g))
+    r = run("beam", "--setup", str(saved), "--plot", str(tmp_path / "b.png"))
+    assert r.code == 0, r.stderr
+    assert seen["g"] == geometry and geometry.flaw_depth == 0.012

@@ -77,8 +77,7 @@ from .techniqueargs import given, technique_from, technique_options
 )
 @plot_option(
     "Draw to FILE (.png, .svg, .pdf): the far-field directivity; with "
-    "--bottom-depth the footprint on the bottom; with a wedge and --thickness the "
-    "section."
+    "--bottom-depth the footprint on the bottom; with --thickness the section."
 )
 @setup_file_options
 @output_options
@@ -113,7 +112,6 @@ def beam(
       beamspread beam --diameter 25mm --frequency 200kHz --material seawater \\
           --temperature 12 --condition depth=30m --one-way --level 3
     """
-    from ..conventions import Coupling
     from ..pipeline import compute
     from ..technique import Sonar
 
@@ -129,8 +127,6 @@ def beam(
     technique = technique_from(
         options, depths=depths, levels=levels, far_field_only=far_field_only, sonar=asked
     )
-    if options["thickness"] is not None and technique.coupling.kind is not Coupling.WEDGE:
-        raise click.UsageError("--thickness (for the second leg) needs a wedge")
     if power is not None and not bottoms:
         raise click.UsageError("--power gives an echo budget at each --bottom-depth; give one")
     registry = load_registry(options["materials_dirs"]) if technique.names_a_medium else None
@@ -168,12 +164,12 @@ def _plot(path, result, units) -> list[str]:
     """Draw the technique's picture; the warnings it adds.
 
     The footprint on the bottom (a sonar's bottom depths), the section (a
-    wedge with a thickness), or the far-field directivity (in the part).
+    thickness, angled or straight), or the far-field directivity (in the part).
     """
     from ..render import plots
     from ..render.captions import caption_of
 
-    beam, setup, warnings = result.beam, result.setup, []
+    beam, warnings = result.beam, []
     figures = result.sonar.figures if result.sonar is not None else None
     if figures is not None and figures.footprints:
         depths, by_level = result.sonar.footprint_widths(beam)
@@ -187,7 +183,7 @@ def _plot(path, result, units) -> list[str]:
             units="m" if units == "mm" else "ft",
             in_air=beam.wave.state == "gas",
         )
-    elif setup is not None and setup.refraction is not None and result.technique.thickness:
+    elif result.technique.thickness:
         depths = result.technique.request.depths
         geometry = plots.section_of(
             result, result.technique.thickness, depths[0] if depths else None

@@ -4,65 +4,30 @@ from __future__ import annotations
 
 import click
 
-from .options import (
-    check_plot,
-    emit_warnings,
-    field_options,
-    load_registry,
-    medium_options,
-    output_options,
-    pass_output,
-    plot_option,
-    probe_options,
-)
+from .options import output_options, pass_output, plot_option
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
-from .techniqueargs import coupling_options, technique_from
+from .techniqueargs import technique_from, technique_options
 
 
 @click.command()
-@probe_options
-@medium_options
-@coupling_options
+@technique_options
+@click.option("--depth", type=LENGTH, help="Flaw depth: the footprint is drawn there on both legs.")
 @click.option(
-    "--depth",
-    type=LENGTH,
-    default=None,
-    help="Flaw depth: the footprint is drawn there on both legs.",
-)
-@click.option(
-    "--level",
-    "levels",
-    type=LEVEL,
-    multiple=True,
-    help="Levels of the edges drawn, dB below the axis (default 6 and 20).",
+    "--level", "levels", type=LEVEL, multiple=True, help="Edge levels, dB down (default 6 and 20)."
 )
 @click.option(
     "--plane",
     type=click.Choice(["length", "width"]),
-    default=None,
     help="A rectangle's plane drawn (default: its length, the plane a wedge's incidence "
     "plane holds).",
 )
-@field_options
 @click.option("--far-field-only", is_flag=True, help="Edges from the far-field cone only.")
 @plot_option("Draw the section to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
-def section(
-    depth,
-    levels,
-    plane,
-    far_field_only,
-    plot_path,
-    force_plot,
-    setup_path,
-    save_path,
-    fmt,
-    units,
-    **options,
-):
+def section(depth, levels, plane, far_field_only, plot_path, force_plot, fmt, units, **options):
     """The beam on the part's section: the plate, where the beam enters, the axis and
     its level edges down to the back wall and back up (the mirror leg), and the
     footprint at the flaw depth on both legs.
@@ -76,6 +41,7 @@ def section(
     from ..conventions import Coupling
     from ..edges import straight_footprints
     from ..pipeline import compute
+    from .options import check_plot, emit_warnings, load_registry
 
     check_plot(plot_path, force_plot)
     thickness = options["thickness"]

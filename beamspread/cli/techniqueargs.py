@@ -65,7 +65,7 @@ _WEDGE = (
         "--thickness",
         type=LENGTH,
         default=None,
-        help="Part thickness: each depth then gets the second leg too.",
+        help="Part thickness: the back wall (on a wedge each depth also gets the second leg).",
     ),
 )
 _IMMERSION = (
