@@ -116,7 +116,8 @@ def beam_edges(
     """The beam's full width along its axis, per level: ``{level: (coordinates, widths)}``, m.
 
     From the computed field when the result has one (sampled from a little
-    way into the part, 5 % of the near field, to ``length``; a focused
+    way into the part, 5 % of the near field, to ``length``, half the samples
+    within 1.5 near fields; a focused
     element from one element size from its face, where its paraxial field
     starts to hold), else the far-field cone from the surface (which, like
     the far-field rows, does not hold inside the near field). The
@@ -138,7 +139,11 @@ def beam_edges(
     if source.focus is not None:  # the paraxial field holds from one element size out
         first = max(first, (1.001 * source.element.longest_side - source.start) / source.stretch)
     extra = [float(s) for s in at if first <= s < check]
-    paths = np.unique(np.concatenate([np.linspace(first, check, samples), extra]))
+    # half the samples within 1.5 near fields, where the width changes most
+    near = min(check, 1.5 * (beam.near_field or beam.near_field_simple or check))
+    close = np.linspace(first, near, samples // 2) if near > first else []
+    spread = np.linspace(first, check, samples - len(close))
+    paths = np.unique(np.concatenate([close, spread, extra]))
     out = {}
     for level, w in computed_widths(result, paths, plane).items():
         ok = np.flatnonzero(np.isfinite(w))
