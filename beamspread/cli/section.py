@@ -56,8 +56,10 @@ def section(depth, levels, plane, far_field_only, plot_path, force_plot, fmt, un
             "--far-field-only: a focused probe has no far-field edges (the flat element's "
             "cone does not converge); drop it to draw the computed edges"
         )
-    if plane is not None and technique.element.shape == "disc":
-        raise click.UsageError("--plane chooses a rectangle's plane; a disc has one")
+    if plane is not None and len(technique.element.planes) == 1:
+        raise click.UsageError(
+            f"--plane chooses between an element's planes; a {technique.element.shape} has one"
+        )
     if plane == "width" and on_wedge:
         raise click.UsageError(
             "on a wedge the section is the incidence plane, which holds the rectangle's "
