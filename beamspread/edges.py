@@ -117,32 +117,32 @@ def beam_edges(
 
     From the computed field when the result has one (sampled from a little
     way into the part, 5 % of the near field, to ``length``, half the samples
-    within 1.5 near fields; a focused
-    element from one element size from its face, where its paraxial field
-    starts to hold), else the far-field cone from the surface (which, like
-    the far-field rows, does not hold inside the near field). The
+    within 1.5 near fields; a focused element from one element size from its
+    face, where its paraxial field starts to hold), else the far-field cone
+    from the surface (which, like the far-field rows, does not hold inside
+    the near field). The
     coordinates in ``at`` (m) are sampled too, so a width read there is
     computed, not interpolated. A level is left out where its widths are not
     found along one unbroken stretch of at least two samples.
     """
-    check = float(length)
-    if not (math.isfinite(check) and check > 0):
+    end = float(length)
+    if not (math.isfinite(end) and end > 0):
         raise InputError(f"length: {length!r} m is not allowed; give a length above 0")
     if result.settings is None:
-        paths = np.linspace(0.0, check, samples)
+        paths = np.linspace(0.0, end, samples)
         widths = far_field_widths(result, paths, plane)
         return {
             level: (tuple(paths), tuple(w)) for level, w in widths.items() if np.all(np.isfinite(w))
         }
     beam, source = result.beam, result.source
-    first = max(0.05 * (beam.near_field or beam.near_field_simple or check), _SHORTEST)
+    first = max(0.05 * (beam.near_field or beam.near_field_simple or end), _SHORTEST)
     if source.focus is not None:  # the paraxial field holds from one element size out
         first = max(first, (1.001 * source.element.longest_side - source.start) / source.stretch)
-    extra = [float(s) for s in at if first <= s < check]
+    extra = [float(s) for s in at if first <= s < end]
     # half the samples within 1.5 near fields, where the width changes most
-    near = min(check, 1.5 * (beam.near_field or beam.near_field_simple or check))
+    near = min(end, 1.5 * (beam.near_field or beam.near_field_simple or end))
     close = np.linspace(first, near, samples // 2) if near > first else []
-    spread = np.linspace(first, check, samples - len(close))
+    spread = np.linspace(first, end, samples - len(close))
     paths = np.unique(np.concatenate([close, spread, extra]))
     out = {}
     for level, w in computed_widths(result, paths, plane).items():

@@ -452,3 +452,35 @@ def test_a_straight_section_setup_is_read_by_beam_which_draws_the_same_section(
     r = run("beam", "--setup", str(saved), "--plot", str(tmp_path / "b.png"))
     assert r.code == 0, r.stderr
     assert seen["g"] == geometry and geometry.flaw_depth == 0.012
+
+
+def test_edges_module_reads_a_computed_result_without_running_it_again():
+    # beamspread.edges on a wedge result: the far-field widths at sound paths s are the cone
+    # 2 (s + offset) tan(theta) from the virtual element (common practice), offset the wedge
+    # path's equivalent L c_wedge / c_part; a focus has no far-field width; an unknown plane
+    # is named. Results stay plain data: SetupResult has no edges method and no cache.
+    import beamspread as bs
+    from beamspread.edges import far_field_widths, plane_of
+    from beamspread.errors import InputError
+
+    wedge = bs.WedgeCoupling(material="acrylic", refracted=math.radians(60), path=0.010)
+    technique = bs.Technique(bs.Disc(0.010, 4e6), bs.PartMedium("reference-steel"), wedge)
+    result = bs.compute(technique)
+    offset = 0.010 * ACRYLIC / CS
+    paths = [0.01, 0.05]
+    widths = far_field_widths(result, paths)
+    # the virtual ellipse's aperture in the incidence plane, D cos(beta) / cos(alpha) (common
+    # practice), alpha by Snell's law; its pattern there is a disc's of that aperture (scipy)
+    beta = math.radians(60)
+    alpha = math.asin(ACRYLIC * math.sin(beta) / CS)
+    aperture = 0.010 * math.cos(beta) / math.cos(alpha)
+    for level in (6.0, 20.0):
+        theta = _pulse_echo_half_angle(level, aperture, CS / 4e6)
+        for s, w in zip(paths, widths[level], strict=True):
+            assert w == pytest.approx(2 * (s + offset) * math.tan(theta), rel=1e-9)
+    assert not hasattr(result.setup, "edges") and not hasattr(result.setup, "_widths")
+    with pytest.raises(InputError, match="not one of this beam's"):
+        plane_of(result, "sideways")
+    focused = bs.Technique(bs.Disc(0.010, 4e6, focus=0.05), bs.PartMedium(speed=1480.0))
+    with pytest.raises(InputError, match="no far-field width"):
+        far_field_widths(bs.compute(focused), paths)
