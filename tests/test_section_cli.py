@@ -484,3 +484,26 @@ def test_edges_module_reads_a_computed_result_without_running_it_again():
     focused = bs.Technique(bs.Disc(0.010, 4e6, focus=0.05), bs.PartMedium(speed=1480.0))
     with pytest.raises(InputError, match="no far-field width"):
         far_field_widths(bs.compute(focused), paths)
+
+
+def test_report_of_a_straight_plate_setup_draws_its_section(run, tmp_path, monkeypatch):
+    # The report page draws the section a setup with a plate records, straight as angled:
+    # the same geometry as the section command's.
+    from beamspread.render import plots
+
+    saved = tmp_path / "plate.toml"
+    args = (*PROBE, *STEEL, *PLATE, "--depth", "12mm", "--far-field-only")
+    assert run("section", *args, "--save", str(saved)).code == 0
+    _, geometry, _ = _drawn(monkeypatch, run, "--setup", str(saved), "--bandwidth", "0.5")
+    drawn, real = [], plots.draw_section
+
+    def spy(ax, g, **kw):
+        drawn.append(g)
+        return real(ax, g, **kw)
+
+    monkeypatch.setattr(plots, "draw_section", spy)
+    r = run("report", str(saved), "--output", str(tmp_path / "r.png"))
+    assert r.code == 0, r.stderr
+    (page,) = drawn
+    assert page.mirror and page.flaw_depth == 0.012 and page.thickness == 0.020
+    assert page.edges == geometry.edges

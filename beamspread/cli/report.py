@@ -74,7 +74,7 @@ def report(setup_file, output, force, units, as_json):
 def _view(result, units):
     """What the page's pictures need, on the table's terms: the map's source (the element,
     the medium, where the part's ranges start and how they stretch), the depths marked,
-    the near field; the section of an angle beam; a sonar's footprint and budgets."""
+    the near field; the plate's section, angled or straight; a sonar's footprint and budgets."""
     from ..conventions import Coupling
 
     source, beam, setup = result.source, result.beam, result.setup
@@ -96,12 +96,6 @@ def _view(result, units):
             if setup.offset > 0
             else ""
         )
-        thickness = result.technique.thickness
-        if thickness is not None:
-            from ..render.plots import section_of
-
-            depths = result.technique.request.depths
-            geometry = section_of(result, thickness, depths[0] if depths else None)
     elif setup is not None:
         # As the table's computed widths: the element in the couplant at the water-equivalent
         # range, water path + depth c_part / c_water (paraxial), drawn at the depth.
@@ -123,6 +117,12 @@ def _view(result, units):
             # The question is the bottom: the footprint against water depth, as beam --plot.
             view["footprint"] = sonar.footprint_widths(beam)
         view["budgets"] = sonar.budgets
+    thickness = result.technique.thickness
+    if thickness is not None and "footprint" not in view:  # the plate's section, as section's
+        from ..render.plots import section_of
+
+        depths = result.technique.request.depths
+        geometry = section_of(result, thickness, depths[0] if depths else None)
     # The marks: each depth of the table; for an angle beam at its sound path on each leg.
     marks = {}
     for pl in beam.planes:

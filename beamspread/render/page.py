@@ -251,7 +251,8 @@ def _draw_map(ax, view, result, geometry, units):
         axial_label=view["pulse_label"],
         depths=view["marks"],
         depth_labels=view["labels"],
-        depth_legend="the table's depths" + (" (sound path, both legs)" if geometry else ""),
+        depth_legend="the table's depths"
+        + (" (sound path, both legs)" if geometry and geometry.refracted > 0 else ""),
         near_label="near field in the part" if view["source"] else "near field",
         plane=plane,
         units=units,

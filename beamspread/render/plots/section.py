@@ -223,7 +223,7 @@ def draw_section(ax: Axes, geometry: SectionGeometry, *, units: str = "mm") -> l
         ax.set_xlabel(f"surface distance from the exit point's origin, {unit}")
     else:
         ax.set_xlabel(f"distance across the beam axis, {unit}")
-    ax.set_ylabel(f"depth, {unit}" + (" (below the back wall: unfolded)" if g.mirror else ""))
+    ax.set_ylabel(f"depth, {unit}")
     levels = ", ".join(_level_text(e.level_db) for e in g.edges)
     kind = "Angle beam" if beta > 0 else "Straight beam"
     ax.set_title(
