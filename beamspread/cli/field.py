@@ -6,10 +6,6 @@ across) and :mod:`beamspread.cli.fieldmap` (map).
 
 from __future__ import annotations
 
-import os
-import tempfile
-from pathlib import Path
-
 import click
 
 from .options import load_registry
@@ -136,18 +132,3 @@ def _check_validity(warnings, start, near_simple):
             f"({0.05 * near_simple * 1e3:.4g} mm) to the face, where the computed field is "
             "not validated"
         )
-
-
-def _write_atomically(path: Path, write) -> None:
-    """Write through a temporary file in the same folder, so nothing half-made is left."""
-    fd, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".part")
-    os.close(fd)
-    try:
-        write(temporary)
-        mask = os.umask(0)
-        os.umask(mask)
-        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
-        os.replace(temporary, path)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise

@@ -6,6 +6,7 @@ from pathlib import Path
 
 import click
 
+from ..atomic import write_atomically
 from .field import (
     MAX_MAP_POINTS,
     _axis_label,
@@ -18,7 +19,6 @@ from .field import (
     _points_option,
     _reference_length,
     _setup,
-    _write_atomically,
 )
 from .options import check_plot, emit_warnings, plot_option
 from .params import LENGTH
@@ -188,7 +188,7 @@ def map_(
         def write(path):
             Path(path).write_text(text(suffix), encoding="utf-8")
 
-    _write_atomically(target, write)
+    write_atomically(target, write)
     click.echo(
         f"wrote {target} ({depth_points} depths x {lateral_points} offsets, plane {plane})",
         err=True,

@@ -19,9 +19,8 @@ from .figure import (
     _level_text,
     _mode_text,
     _scale,
-    check_target,
     new_figure,
-    save_figure,
+    write_figure,
 )
 
 if TYPE_CHECKING:
@@ -118,5 +117,4 @@ def plot_across(
         Plane name -> list of :class:`~beamspread.field.BeamWidth` at that
         depth; each is marked at its level from -width/2 to +width/2.
     """
-    check_target(path)
-    return save_figure(across_figure(profiles, widths, caption=caption, units=units), path)
+    return write_figure(path, across_figure, profiles, widths, caption=caption, units=units)

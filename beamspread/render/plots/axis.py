@@ -20,9 +20,8 @@ from .figure import (
     _levels,
     _mode_text,
     _scale,
-    check_target,
     new_figure,
-    save_figure,
+    write_figure,
 )
 
 if TYPE_CHECKING:
@@ -117,62 +116,23 @@ def draw_axis(
 
 
 def axis_figure(
-    profile,
-    *,
-    near_field: float | None = None,
-    axial_maximum: float | None = None,
-    levels_db=(6.0,),
-    caption: str = "",
-    units: str = "mm",
-    size: tuple[float, float] = FIGSIZE,
-    axis_label: str = "depth on the beam axis",
+    profile, *, caption: str = "", size: tuple[float, float] = FIGSIZE, **options
 ) -> Figure:
-    """:func:`plot_axis`'s picture as a Figure."""
-    _scale(units)
-    _checked(profile)
+    """:func:`plot_axis`'s picture as a Figure; ``options`` as for :func:`draw_axis`."""
     fig = new_figure(size, caption=caption)
     ax = fig.add_subplot()
-    draw_axis(
-        ax,
-        profile,
-        near_field=near_field,
-        axial_maximum=axial_maximum,
-        levels_db=levels_db,
-        units=units,
-        axis_label=axis_label,
-    )
+    draw_axis(ax, profile, **options)
     ax.legend(loc="lower right", fontsize=8, framealpha=0.9)
     return fig
 
 
-def plot_axis(
-    profile,
-    path,
-    *,
-    near_field: float | None = None,
-    axial_maximum: float | None = None,
-    levels_db=(6.0,),
-    caption: str = "",
-    units: str = "mm",
-    axis_label: str = "depth on the beam axis",
-) -> Path:
+def plot_axis(profile, path, **options) -> Path:
     """Draw an :class:`~beamspread.field.AxialProfile` in dB to ``path``; return the path.
 
     The amplitude is in dB relative to the largest on the profile; the
     near-field length and the last on-axis maximum (m) are vertical lines,
     and every crossing of each level is marked (interpolated linearly in dB
-    between samples).
+    between samples). ``options``: ``caption`` and ``size`` (:func:`axis_figure`),
+    and those of :func:`draw_axis`.
     """
-    check_target(path)
-    return save_figure(
-        axis_figure(
-            profile,
-            near_field=near_field,
-            axial_maximum=axial_maximum,
-            levels_db=levels_db,
-            caption=caption,
-            units=units,
-            axis_label=axis_label,
-        ),
-        path,
-    )
+    return write_figure(path, axis_figure, profile, **options)

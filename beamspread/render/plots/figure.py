@@ -23,7 +23,6 @@ from __future__ import annotations
 
 import math
 import os
-import tempfile
 import textwrap
 from collections.abc import Sequence
 from pathlib import Path
@@ -31,6 +30,7 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
+from ...atomic import write_atomically
 from ...errors import InputError
 from ...units import format_length
 
@@ -172,18 +172,19 @@ def save_figure(fig: Figure, path: str | os.PathLike) -> Path:
     ``path`` only once complete; on any failure it is removed.
     """
     target = check_target(path)
-    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
-    os.close(fd)
-    try:
-        fig.savefig(temporary, format=target.suffix.lower()[1:], dpi=fig.dpi)
-        mask = os.umask(0)
-        os.umask(mask)
-        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
-        os.replace(temporary, target)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-    return target
+    return write_atomically(
+        target, lambda name: fig.savefig(name, format=target.suffix.lower()[1:], dpi=fig.dpi)
+    )
+
+
+def write_figure(path: str | os.PathLike, make, *args, **kwargs) -> Path:
+    """Check ``path`` (:func:`check_target`), then write ``make(*args, **kwargs)`` there.
+
+    The ``plot_*`` functions are this over their ``*_figure`` twins: a bad
+    path is refused before anything is drawn.
+    """
+    check_target(path)
+    return save_figure(make(*args, **kwargs), path)
 
 
 def _outline(width: float = 2.6):
