@@ -7,20 +7,8 @@ from pathlib import Path
 import click
 
 from ..atomic import write_atomically
-from .field import (
-    MAX_MAP_POINTS,
-    _axis_label,
-    _caption,
-    _check_plane,
-    _check_range,
-    _check_validity,
-    _last_maximum,
-    _note,
-    _points_option,
-    _reference_length,
-    _setup,
-)
-from .options import check_plot, emit_warnings, plot_option
+from .field import MAX_MAP_POINTS, FieldRun, _check_plane, _points_option, drew
+from .options import emit_warnings, plot_option
 from .params import LENGTH
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
@@ -120,17 +108,10 @@ def map_(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
         )
-    check_plot(plot_path, force)
-    computed, settings, warnings = _setup(common)
-    probe, medium, mode = computed.technique.element, computed.beam.wave, computed.mode
-    source = computed.source
+    run = FieldRun(common, plot_path, force)
+    source, mode, settings = run.source, run.mode, run.settings
     plane = _check_plane(source, plane or source.planes[0])
-    simple = _reference_length(computed)
-    start = 0.1 * simple if start is None else start
-    stop = 3.0 * simple if stop is None else stop
-    _check_range(start, stop, depth_points, "map")
-    if computed.coupling == "contact" and not computed.focused:
-        _check_validity(warnings, start, simple)
+    start, stop = run.depth_range(start, stop, depth_points, "map", first=0.1)
     aperture = dict(source.element.planes)[source.element_plane(plane)]
     wavelength = source.speed / source.element.frequency
     far = float(source.ranges(stop))
@@ -148,30 +129,27 @@ def map_(
         # The near field in the part (the continuous-wave last on-axis maximum) is marked
         # where there is one; a pulse's own last on-axis maximum, where the map's beam is
         # strongest, too.
-        near = computed.beam.near_field
-        pulse_maximum = _last_maximum(computed, settings, mode) if settings.bandwidth > 0 else None
+        pulse = settings.bandwidth > 0
         plot_map(
             result,
             plot_path,
-            near_field=near,
-            axial_maximum=pulse_maximum,
-            near_label="near field (continuous wave)" if settings.bandwidth > 0 else "near field",
-            axis_label=_axis_label(computed),
-            caption=_caption(probe, medium, settings, mode),
+            near_field=run.result.beam.near_field,
+            axial_maximum=run.last_maximum() if pulse else None,
+            near_label="near field (continuous wave)" if pulse else "near field",
+            axis_label=run.axis_label(),
+            caption=run.caption,
             units=units,
         )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
+        drew(plot_path)
         if target is None:  # the picture was what was asked for
-            emit_warnings(warnings)
+            emit_warnings(run.warnings)
             return
-    emit_warnings(warnings)
+    emit_warnings(run.warnings)
     from ..render.serialize import field as serialize
-    from ..render.serialize.common import dumps
 
     def text(kind):
         if kind == ".json":
-            data = serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
-            return dumps(_note(data, computed))
+            return run.json(serialize.map_to_dict(*run.inputs, result, run.warnings))
         return serialize.map_to_csv(result)
 
     if target is None:
@@ -182,7 +160,7 @@ def map_(
 
         def write(path):
             with open(path, "wb") as handle:
-                serialize.map_to_npz(handle, probe, medium, settings, mode, result)
+                serialize.map_to_npz(handle, *run.inputs, result)
     else:
 
         def write(path):

@@ -4,20 +4,8 @@ from __future__ import annotations
 
 import click
 
-from .field import (
-    MAX_PROFILE_POINTS,
-    _axis_label,
-    _caption,
-    _check_plane,
-    _check_range,
-    _check_validity,
-    _last_maximum,
-    _note,
-    _points_option,
-    _reference_length,
-    _setup,
-)
-from .options import check_plot, emit_warnings, output_options, pass_output, plot_option
+from .field import MAX_PROFILE_POINTS, FieldRun, _check_plane, _points_option, drew
+from .options import emit_warnings, output_options, pass_output, plot_option
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
@@ -47,37 +35,30 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     """
     import numpy as np
 
-    check_plot(plot_path, force_plot)
-    result, settings, warnings = _setup(common)
-    probe, medium, mode = result.technique.element, result.beam.wave, result.mode
-    near, simple = result.beam.near_field, _reference_length(result)
-    start = 0.05 * simple if start is None else start
-    stop = 3.0 * simple if stop is None else stop
-    _check_range(start, stop, points, "axis")
-    if result.coupling == "contact" and not result.focused:
-        _check_validity(warnings, start, simple)
-    profile = result.source.axial(np.linspace(start, stop, points), mode, settings)
-    axial = _last_maximum(result, settings, mode)
+    run = FieldRun(common, plot_path, force_plot)
+    start, stop = run.depth_range(start, stop, points, "axis", first=0.05)
+    profile = run.source.axial(np.linspace(start, stop, points), run.mode, run.settings)
+    near, axial = run.result.beam.near_field, run.last_maximum()
     if plot_path is not None:
         from ..render.plots import plot_axis
 
+        contact = run.result.coupling == "contact"
         plot_axis(
             profile,
             plot_path,
             near_field=near,
             axial_maximum=axial,
-            caption=_caption(probe, medium, settings, mode),
+            caption=run.caption,
             units=units,
-            **({} if result.coupling == "contact" else {"axis_label": _axis_label(result)}),
+            **({} if contact else {"axis_label": run.axis_label()}),
         )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
-    emit_warnings(warnings)
+        drew(plot_path)
+    emit_warnings(run.warnings)
+    figures = (profile, near, run.reference, axial)
     if fmt == "json":
-        from ..render.serialize.common import dumps
         from ..render.serialize.field import axial_to_dict
 
-        data = axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
-        click.echo(dumps(_note(data, result)))
+        click.echo(run.json(axial_to_dict(*run.inputs, *figures, run.warnings)))
     elif fmt == "csv":
         from ..render.serialize.field import axial_to_csv
 
@@ -85,20 +66,8 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     else:
         from ..render.text.field import axial_table
 
-        click.echo(
-            axial_table(
-                probe,
-                medium,
-                settings,
-                mode,
-                profile,
-                near,
-                simple,
-                axial,
-                units,
-                coordinate=result.source.coordinate,
-            )
-        )
+        coordinate = run.source.coordinate
+        click.echo(axial_table(*run.inputs, *figures, units, coordinate=coordinate))
 
 
 @click.command()
@@ -152,17 +121,10 @@ def across(
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
-    check_plot(plot_path, force_plot)
-    result, settings, warnings = _setup(common)
-    probe, medium, mode, source = (
-        result.technique.element,
-        result.beam.wave,
-        result.mode,
-        result.source,
-    )
+    run = FieldRun(common, plot_path, force_plot)
+    source, mode, settings = run.source, run.mode, run.settings
     chosen = [_check_plane(source, plane)] if plane else list(source.planes)
-    if result.coupling == "contact" and not result.focused:
-        _check_validity(warnings, depth, _reference_length(result))
+    run.check_validity(depth)
     wavelength = source.speed / source.element.frequency
     at = source.coordinate_of_depth(depth)
     distance = float(source.ranges(at))
@@ -172,25 +134,20 @@ def across(
         half = span if span is not None else max(aperture, 4 * wavelength * distance / aperture)
         offsets = np.linspace(-half, half, points)
         profiles.append(source.across(at, offsets, name, mode, settings))
-        widths[name] = source.widths(at, levels or result.technique.levels, name, mode, settings)
+        widths[name] = source.widths(
+            at, levels or run.result.technique.levels, name, mode, settings
+        )
     if plot_path is not None:
         from ..render.plots import plot_across
 
-        plot_across(
-            profiles,
-            widths,
-            plot_path,
-            caption=_caption(probe, medium, settings, mode),
-            units=units,
-        )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
-    emit_warnings(warnings)
+        plot_across(profiles, widths, plot_path, caption=run.caption, units=units)
+        drew(plot_path)
+    emit_warnings(run.warnings)
     if fmt == "json":
-        from ..render.serialize.common import dumps
         from ..render.serialize.field import across_to_dict
 
-        data = across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings)
-        click.echo(dumps(_note(data, result)))
+        data = across_to_dict(*run.inputs, depth, profiles, widths, run.warnings)
+        click.echo(run.json(data))
     elif fmt == "csv":
         from ..render.serialize.field import across_to_csv
 
@@ -198,4 +155,4 @@ def across(
     else:
         from ..render.text.field import across_table
 
-        click.echo(across_table(probe, medium, settings, mode, depth, profiles, widths, units))
+        click.echo(across_table(*run.inputs, depth, profiles, widths, units))
