@@ -94,8 +94,6 @@ def beam(
     bottom_loss,
     plot_path,
     force_plot,
-    setup_path,
-    save_path,
     fmt,
     units,
     **options,

@@ -8,57 +8,45 @@ import click
 
 from ..atomic import write_atomically
 from .field import MAX_MAP_POINTS, FieldRun, _check_plane, _points_option, drew
-from .options import emit_warnings, plot_option
-from .params import LENGTH
+from .options import (
+    depth_range_options,
+    emit_warnings,
+    output_file_option,
+    plane_option,
+    plot_option,
+    refuse_existing,
+    span_option,
+    units_option,
+)
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
 
 
 @click.command("map")
 @technique_options
-@click.option(
-    "--plane",
-    default=None,
-    metavar="NAME",
-    help="diameter (disc), length or width (rectangle); on a wedge the incidence plane "
-    "of a disc; default the first.",
+@plane_option(
+    "diameter (disc), length or width (rectangle); on a wedge the incidence plane "
+    "of a disc; default the first."
 )
-@click.option(
-    "--from",
-    "start",
-    type=LENGTH,
-    default=None,
-    help="First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+@depth_range_options(
+    "First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+    "Last depth (default 3 N).",
 )
-@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
-@click.option(
-    "--span",
-    type=LENGTH,
-    default=None,
-    help="Half-extent either side of the axis (default: the larger of the aperture "
-    "and 4 λ z / aperture at the last depth).",
+@span_option(
+    "Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture at the last depth)."
 )
 @_points_option(256, 16384, "--depth-points", "Number of depths")
 @_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
-@click.option(
-    "--output",
-    "-o",
-    type=click.Path(dir_okay=False),
-    default=None,
-    help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+@output_file_option(
+    "Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+    force_help="Overwrite an existing --output or --plot file.",
 )
-@click.option("--force", is_flag=True, help="Overwrite an existing --output or --plot file.")
 @click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
 @plot_option(
     "Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.", force=False
 )
-@click.option(
-    "--units",
-    type=click.Choice(["mm", "in"]),
-    default="mm",
-    show_default=True,
-    help="Lengths on the picture.",
-)
+@units_option("Lengths on the picture.")
 @setup_file_options
 def map_(
     plane,
@@ -72,8 +60,6 @@ def map_(
     as_json,
     plot_path,
     units,
-    setup_path,
-    save_path,
     **common,
 ):
     """A 2-D map of the computed amplitude in a plane through the axis.
@@ -99,10 +85,7 @@ def map_(
                 f"{output!r}: the folder {str(target.parent)!r} does not exist",
                 param_hint="--output",
             )
-        if target.exists() and not force:
-            raise click.BadParameter(
-                f"{output!r} exists; add --force to overwrite it", param_hint="--output"
-            )
+        refuse_existing(output, force, "--output")
     if depth_points * lateral_points > MAX_MAP_POINTS:
         raise click.UsageError(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "

@@ -5,7 +5,15 @@ from __future__ import annotations
 import click
 
 from .field import MAX_PROFILE_POINTS, FieldRun, _check_plane, _points_option, drew
-from .options import emit_warnings, output_options, pass_output, plot_option
+from .options import (
+    depth_range_options,
+    emit_warnings,
+    output_options,
+    pass_output,
+    plane_option,
+    plot_option,
+    span_option,
+)
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
@@ -13,20 +21,16 @@ from .techniqueargs import technique_options
 
 @click.command()
 @technique_options
-@click.option(
-    "--from",
-    "start",
-    type=LENGTH,
-    default=None,
-    help="First depth (on a wedge: sound path) (default 0.05 N, N = D²/4λ or L²/4λ in the part).",
+@depth_range_options(
+    "First depth (on a wedge: sound path) (default 0.05 N, N = D²/4λ or L²/4λ in the part).",
+    "Last depth (default 3 N).",
 )
-@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
 @plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
-def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt, units, **common):
+def axis(start, stop, points, plot_path, force_plot, fmt, units, **common):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -78,19 +82,13 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     required=True,
     help="Depth of the profile below the surface (on a wedge, on the first leg).",
 )
-@click.option(
-    "--plane",
-    default=None,
-    metavar="NAME",
-    help="diameter (disc), length or width (rectangle), incidence or transverse (a disc "
-    "on a wedge); default every plane.",
+@plane_option(
+    "diameter (disc), length or width (rectangle), incidence or transverse (a disc "
+    "on a wedge); default every plane."
 )
-@click.option(
-    "--span",
-    type=LENGTH,
-    default=None,
-    help="Half-extent either side of the axis (default: the larger of the aperture "
-    "and 4 λ z / aperture).",
+@span_option(
+    "Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture)."
 )
 @_points_option(201, MAX_PROFILE_POINTS, help_text="Number of offsets across the beam")
 @click.option(
@@ -104,20 +102,7 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
 @setup_file_options
 @output_options
 @pass_output
-def across(
-    depth,
-    plane,
-    span,
-    points,
-    levels,
-    plot_path,
-    force_plot,
-    setup_path,
-    save_path,
-    fmt,
-    units,
-    **common,
-):
+def across(depth, plane, span, points, levels, plot_path, force_plot, fmt, units, **common):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
