@@ -14,8 +14,6 @@ def result_table(result, units: str = "mm") -> str:
     if result.setup is None:
         options = result.sonar.table_options(result.technique.sonar.conventions)
         return beam_table(result.beam, units, **options)
-    table = beam_table(result.beam, units).split("\n")
-    head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
     if result.wedge is not None:
         w = result.wedge
         shown = {"wedge": {"name": w.name, "speed_m_s": w.speed, "path_m": w.path}}
@@ -29,4 +27,4 @@ def result_table(result, units: str = "mm") -> str:
                 "at": conditions_text(c.wave),
             }
         }
-    return "\n".join(table[:head] + setup_lines(result.setup, shown, units) + table[head:])
+    return beam_table(result.beam, units, setup=setup_lines(result.setup, shown, units))
