@@ -183,24 +183,20 @@ def medium_options(f):
     f = click.option(
         "--temperature",
         type=TEMPERATURE,
-        default=None,
         help="Temperature of the medium: degC, degF or K (bare number: degC).",
     )(f)
     f = click.option(
         "--speed",
         type=SPEED,
-        default=None,
         help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).",
     )(f)
     f = click.option(
         "--wave",
         type=click.Choice(["longitudinal", "shear"]),
-        default=None,
         help="Wave mode in the medium (default longitudinal; shear on a wedge).",
     )(f)
     f = click.option(
         "--material",
-        default=None,
         metavar="NAME",
         help="Material or medium by name or alias (beamspread materials list).",
     )(f)

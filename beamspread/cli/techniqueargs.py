@@ -35,14 +35,12 @@ def immersion_options(f):
 _WEDGE = (
     click.option(
         "--wedge",
-        default=None,
         metavar="NAME",
         help="Angle-beam wedge material by name (its longitudinal speed).",
     ),
     click.option(
         "--wedge-speed",
         type=SPEED,
-        default=None,
         help="Angle-beam wedge: a measured longitudinal speed instead of --wedge.",
     ),
     click.option(
@@ -51,28 +49,20 @@ _WEDGE = (
     click.option(
         "--refracted",
         type=ANGLE,
-        default=None,
         help="Nominal refracted angle in the part for --wave, degrees (the "
         "incident angle is solved).",
     ),
     click.option(
-        "--wedge-path",
-        type=PATH_LENGTH,
-        default=None,
-        help="Mean sound path in the wedge along the beam axis.",
+        "--wedge-path", type=PATH_LENGTH, help="Mean sound path in the wedge along the beam axis."
     ),
     click.option(
-        "--thickness",
-        type=LENGTH,
-        default=None,
-        help="Part thickness: each depth then gets the second leg too.",
+        "--thickness", type=LENGTH, help="Part thickness: each depth then gets the second leg too."
     ),
 )
 _IMMERSION = (
     click.option(
         "--water-path",
         type=PATH_LENGTH,
-        default=None,
         help="Immersion: couplant path from the probe to the part surface.",
     ),
     click.option(
@@ -85,7 +75,6 @@ _IMMERSION = (
     click.option(
         "--focus",
         type=LENGTH,
-        default=None,
         help="Focal length of a spherically focused disc (cylindrically, in the "
         "length plane, for a rectangle), in the couplant.",
     ),
