@@ -106,20 +106,11 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
         Options that do not go together (a wedge and a water path, an angle
         without a wedge...), named as typed.
     """
+    from .. import technique as t
     from ..conventions import Mode
-    from ..technique import (
-        Contact,
-        PartMedium,
-        Pulse,
-        Request,
-        Sonar,
-        Technique,
-        WaterCoupling,
-        WedgeCoupling,
-    )
 
     get = p.get
-    sonar = sonar or Sonar()
+    sonar = sonar or t.Sonar()
     on_wedge = get("wedge") is not None or get("wedge_speed") is not None
     immersed = get("water_path") is not None or get("focus") is not None
     if on_wedge and immersed:
@@ -164,16 +155,16 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
                 "--temperature and --condition describe a --material; "
                 "with --speed they mean nothing"
             )
-    medium = PartMedium(
+    medium = t.PartMedium(
         material=get("material"),
         speed=get("speed"),
         wave=get("wave"),
         temperature=temperature if get("speed") is None else None,
         conditions=tuple(get("conditions") or ()),
     )
-    coupling = Contact()
+    coupling = t.Contact()
     if on_wedge:
-        coupling = WedgeCoupling(
+        coupling = t.WedgeCoupling(
             get("wedge"),
             get("wedge_speed"),
             get("incident"),
@@ -182,17 +173,19 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
             get("temperature"),
         )
     elif get("water_path") is not None:
-        coupling = WaterCoupling(get("water_path"), get("couplant") or "water", get("temperature"))
+        coupling = t.WaterCoupling(
+            get("water_path"), get("couplant") or "water", get("temperature")
+        )
     pulse_echo = get("pulse_echo")
     mode = None if pulse_echo is None else (Mode.PULSE_ECHO if pulse_echo else Mode.ONE_WAY)
     pulse = None
     if not far_field_only:
         bandwidth = get("bandwidth") if given("bandwidth") or not sonar.conventions else None
-        pulse = Pulse(bandwidth, get("spectrum") or "gaussian", get("frequency_count") or 32)
+        pulse = t.Pulse(bandwidth, get("spectrum") or "gaussian", get("frequency_count") or 32)
     if get("focus") is not None and pulse is None and depths:
         raise click.UsageError(
             "--far-field-only: a focused probe has no far-field width (the flat "
             "element's cone does not converge); drop it to get the computed widths at --depth"
         )
-    request = Request(tuple(depths), tuple(levels), mode, pulse)
-    return Technique(element, medium, coupling, get("thickness"), request, sonar)
+    request = t.Request(tuple(depths), tuple(levels), mode, pulse)
+    return t.Technique(element, medium, coupling, get("thickness"), request, sonar)

@@ -10,18 +10,8 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _mode_text,
-    _scale,
-    new_figure,
-    write_figure,
-)
+from .figure import _PALETTE, FIGSIZE, new_figure, write_figure
+from .scales import FLOOR_DB, _db, _length, _level_text, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes

@@ -9,20 +9,8 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    _STYLES,
-    FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
-    _mode_text,
-    _scale,
-    new_figure,
-    write_figure,
-)
+from .figure import _PALETTE, _STYLES, FIGSIZE, new_figure, write_figure
+from .scales import FLOOR_DB, _db, _length, _level_text, _levels, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -73,22 +61,14 @@ def draw_axis(
     depth, amp, peak = _checked(profile)
     db = _db(amp, peak)
     ax.plot(depth * s, db, color=_PALETTE[0], lw=1.5, label="on-axis amplitude")
-    if near_field is not None and math.isfinite(near_field):
-        ax.axvline(
-            near_field * s,
-            color=_PALETTE[1],
-            lw=1.1,
-            ls="--",
-            label=f"near field N = {_length(near_field, units)}",
-        )
-    if axial_maximum is not None and math.isfinite(axial_maximum):
-        ax.axvline(
-            axial_maximum * s,
-            color=_PALETTE[2],
-            lw=1.1,
-            ls=":",
-            label=f"last on-axis maximum {_length(axial_maximum, units)}",
-        )
+    marks = (
+        (near_field, _PALETTE[1], "--", "near field N = "),
+        (axial_maximum, _PALETTE[2], ":", "last on-axis maximum "),
+    )
+    for where, colour, ls, name in marks:
+        if where is not None and math.isfinite(where):
+            label = f"{name}{_length(where, units)}"
+            ax.axvline(where * s, color=colour, lw=1.1, ls=ls, label=label)
     for i, level in enumerate(_levels(levels_db)):
         where = _crossings(depth, db, level)
         ax.axhline(-level, color="0.6", lw=0.8, ls=_STYLES[(i + 1) % len(_STYLES)])

@@ -11,14 +11,8 @@ import numpy as np
 
 from ...errors import InputError
 from .figure import (
-    _MINUS,
     _PALETTE,
     FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
     _line,
     _polar_figure,
     _strip_legend,
@@ -26,6 +20,7 @@ from .figure import (
     new_figure,
     write_figure,
 )
+from .scales import _MINUS, FLOOR_DB, _db, _length, _level_text, _levels
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes

@@ -10,16 +10,8 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    _STYLES,
-    FIGSIZE,
-    _length,
-    _level_text,
-    _scale,
-    new_figure,
-    write_figure,
-)
+from .figure import _PALETTE, _STYLES, FIGSIZE, new_figure, write_figure
+from .scales import _length, _level_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes

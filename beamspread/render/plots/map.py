@@ -16,20 +16,14 @@ from .figure import (
     _STYLES,
     COLORMAP,
     FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
     _line,
-    _mode_text,
     _outline,
-    _scale,
     _strip_legend,
     _with_strip,
     new_figure,
     write_figure,
 )
+from .scales import FLOOR_DB, _db, _length, _level_text, _levels, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
