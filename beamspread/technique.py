@@ -24,6 +24,7 @@ from dataclasses import dataclass, field, replace
 
 from .conventions import Coupling, Mode
 from .errors import InputError
+from .media.resolve import check_part_medium
 from .probes import Disc, Rectangle, check_element, element_class
 from .units import parse_level, parse_quantity
 
@@ -57,13 +58,7 @@ class PartMedium:
     conditions: tuple[tuple[str, str], ...] = ()
 
     def __post_init__(self) -> None:
-        if (self.material is None) == (self.speed is None):
-            raise InputError("medium: give either a material or a speed")
-        if self.speed is not None and (self.temperature is not None or self.conditions):
-            raise InputError(
-                "medium: temperature and conditions describe a material; with a "
-                "speed they mean nothing"
-            )
+        check_part_medium(self.material, self.speed, self.temperature, self.conditions)
         if self.wave is not None and self.wave not in ("longitudinal", "shear"):
             raise InputError(f"wave: {self.wave!r} is unknown; use longitudinal or shear")
 

@@ -55,7 +55,6 @@ from .techniqueargs import given, technique_from, technique_options
 @click.option(
     "--power",
     type=POWER,
-    default=None,
     metavar="WATTS",
     help="Electrical power for an echo budget at each --bottom-depth.",
 )
@@ -93,8 +92,6 @@ def beam(
     bottom_loss,
     plot_path,
     force_plot,
-    setup_path,
-    save_path,
     fmt,
     units,
     **options,

@@ -7,6 +7,8 @@ import textwrap
 
 import click
 
+from .options import units_option
+
 CAUTIONS = """\
 Cautions
   - These are estimates from an idealised piston model, not a measured beam profile.
@@ -46,7 +48,7 @@ SCENARIOS = (
 
 
 @click.command()
-@click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True)
+@units_option()
 def demo(units):
     """Run three invented scenarios (an inspector's and a sonar hobbyist's) end to end."""
     from .beam import beam

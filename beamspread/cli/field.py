@@ -6,48 +6,73 @@ across) and :mod:`beamspread.cli.fieldmap` (map).
 
 from __future__ import annotations
 
-import os
-import tempfile
-from pathlib import Path
-
 import click
 
-from .options import load_registry
+from .options import check_plot, load_registry
 from .techniqueargs import technique_from
-
-
-def _caption(probe, wave, settings, mode):
-    from ..render.text.common import field_description
-
-    size = probe.caption()
-    where = "given speed" if wave.medium == "given" else wave.medium
-    from ..render.captions import frequency_text
-
-    return (
-        f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} "
-        f"{wave.speed:.1f} m/s; "
-        f"{field_description(settings, mode)}; beamspread model estimate"
-    )
-
 
 MAX_PROFILE_POINTS = 100_000
 MAX_MAP_POINTS = 4_194_304  # 32 MB of float64 amplitudes; the engine works in bounded blocks
 
 
-def _setup(options):
-    """The technique the options describe, computed: (result, its pulse, the warnings).
+class FieldRun:
+    """A field command's technique, computed: the result, its pulse and the warnings so far.
 
     The field commands read the beam in the part through the result's
     :class:`beamspread.source.FieldSource`: the element itself in contact, the
     virtual element on a wedge (along the sound path), the element in the
     couplant at the water-equivalent range behind a water path, focused or not.
     """
-    from ..pipeline import compute
 
-    technique = technique_from(options)
-    registry = load_registry(options["materials_dirs"]) if technique.names_a_medium else None
-    result = compute(technique, registry=registry)
-    return result, result.settings, list(result.warnings)
+    def __init__(self, options: dict, plot_path, force_plot: bool):
+        from ..pipeline import compute
+        from ..render.captions import inputs_caption
+        from ..render.text.common import field_description
+
+        check_plot(plot_path, force_plot)
+        technique = technique_from(options)
+        registry = load_registry(options["materials_dirs"]) if technique.names_a_medium else None
+        self.result = result = compute(technique, registry=registry)
+        self.settings, self.mode, self.source = result.settings, result.mode, result.source
+        self.warnings = list(result.warnings)
+        self.reference = _reference_length(result)
+        # What the renderers name the inputs by: the element, the part's wave, the pulse, the mode.
+        self.inputs = (result.technique.element, result.beam.wave, self.settings, self.mode)
+        self.caption = inputs_caption(
+            result.technique.element, result.beam.wave, field_description(self.settings, self.mode)
+        )
+
+    def depth_range(self, start, stop, points: int, what: str, first: float):
+        """``--from`` and ``--to``, by default ``first`` N and 3 N, checked.
+
+        A range that starts closer to the face than the computed field is
+        validated adds a warning.
+        """
+        start = first * self.reference if start is None else start
+        stop = 3.0 * self.reference if stop is None else stop
+        _check_range(start, stop, points, what)
+        self.check_validity(start)
+        return start, stop
+
+    def check_validity(self, start: float) -> None:
+        if self.result.coupling == "contact" and not self.result.focused:
+            _check_validity(self.warnings, start, self.reference)
+
+    def last_maximum(self):
+        return _last_maximum(self.result, self.settings, self.mode)
+
+    def axis_label(self) -> str:
+        return _axis_label(self.result)
+
+    def json(self, data: dict) -> str:
+        """``data`` as JSON text, with the technique's coupling and coordinate beyond contact."""
+        from ..render.serialize.common import dumps
+
+        return dumps(_note(data, self.result))
+
+
+def drew(path) -> None:
+    click.echo(f"beamspread: drew {path}", err=True)
 
 
 def _reference_length(result) -> float:
@@ -136,18 +161,3 @@ def _check_validity(warnings, start, near_simple):
             f"({0.05 * near_simple * 1e3:.4g} mm) to the face, where the computed field is "
             "not validated"
         )
-
-
-def _write_atomically(path: Path, write) -> None:
-    """Write through a temporary file in the same folder, so nothing half-made is left."""
-    fd, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".part")
-    os.close(fd)
-    try:
-        write(temporary)
-        mask = os.umask(0)
-        os.umask(mask)
-        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
-        os.replace(temporary, path)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise

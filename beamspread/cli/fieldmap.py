@@ -6,71 +6,47 @@ from pathlib import Path
 
 import click
 
-from .field import (
-    MAX_MAP_POINTS,
-    _axis_label,
-    _caption,
-    _check_plane,
-    _check_range,
-    _check_validity,
-    _last_maximum,
-    _note,
-    _points_option,
-    _reference_length,
-    _setup,
-    _write_atomically,
+from ..atomic import write_atomically
+from .field import MAX_MAP_POINTS, FieldRun, _check_plane, _points_option, drew
+from .options import (
+    depth_range_options,
+    emit_warnings,
+    output_file_option,
+    plane_option,
+    plot_option,
+    refuse_existing,
+    span_option,
+    units_option,
 )
-from .options import check_plot, emit_warnings, plot_option
-from .params import LENGTH
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
 
 
 @click.command("map")
 @technique_options
-@click.option(
-    "--plane",
-    default=None,
-    metavar="NAME",
-    help="diameter (disc), length or width (rectangle); on a wedge the incidence plane "
-    "of a disc; default the first.",
+@plane_option(
+    "diameter (disc), length or width (rectangle); on a wedge the incidence plane "
+    "of a disc; default the first."
 )
-@click.option(
-    "--from",
-    "start",
-    type=LENGTH,
-    default=None,
-    help="First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+@depth_range_options(
+    "First depth (on a wedge: sound path along the refracted axis) (default 0.1 N).",
+    "Last depth (default 3 N).",
 )
-@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
-@click.option(
-    "--span",
-    type=LENGTH,
-    default=None,
-    help="Half-extent either side of the axis (default: the larger of the aperture "
-    "and 4 λ z / aperture at the last depth).",
+@span_option(
+    "Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture at the last depth)."
 )
 @_points_option(256, 16384, "--depth-points", "Number of depths")
 @_points_option(128, 16384, "--lateral-points", "Number of lateral offsets")
-@click.option(
-    "--output",
-    "-o",
-    type=click.Path(dir_okay=False),
-    default=None,
-    help="Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+@output_file_option(
+    "Write to FILE: .csv, .json or .npz by its suffix (default: CSV to stdout).",
+    force_help="Overwrite an existing --output or --plot file.",
 )
-@click.option("--force", is_flag=True, help="Overwrite an existing --output or --plot file.")
 @click.option("--json", "as_json", is_flag=True, help="JSON to stdout instead of CSV.")
 @plot_option(
     "Draw the map to FILE (.png, .svg, .pdf); without --output, only the picture.", force=False
 )
-@click.option(
-    "--units",
-    type=click.Choice(["mm", "in"]),
-    default="mm",
-    show_default=True,
-    help="Lengths on the picture.",
-)
+@units_option("Lengths on the picture.")
 @setup_file_options
 def map_(
     plane,
@@ -84,8 +60,6 @@ def map_(
     as_json,
     plot_path,
     units,
-    setup_path,
-    save_path,
     **common,
 ):
     """A 2-D map of the computed amplitude in a plane through the axis.
@@ -111,26 +85,16 @@ def map_(
                 f"{output!r}: the folder {str(target.parent)!r} does not exist",
                 param_hint="--output",
             )
-        if target.exists() and not force:
-            raise click.BadParameter(
-                f"{output!r} exists; add --force to overwrite it", param_hint="--output"
-            )
+        refuse_existing(output, force, "--output")
     if depth_points * lateral_points > MAX_MAP_POINTS:
         raise click.UsageError(
             f"map: {depth_points} x {lateral_points} = {depth_points * lateral_points} points "
             f"would exceed the {MAX_MAP_POINTS} a map may hold in memory"
         )
-    check_plot(plot_path, force)
-    computed, settings, warnings = _setup(common)
-    probe, medium, mode = computed.technique.element, computed.beam.wave, computed.mode
-    source = computed.source
+    run = FieldRun(common, plot_path, force)
+    source, mode, settings = run.source, run.mode, run.settings
     plane = _check_plane(source, plane or source.planes[0])
-    simple = _reference_length(computed)
-    start = 0.1 * simple if start is None else start
-    stop = 3.0 * simple if stop is None else stop
-    _check_range(start, stop, depth_points, "map")
-    if computed.coupling == "contact" and not computed.focused:
-        _check_validity(warnings, start, simple)
+    start, stop = run.depth_range(start, stop, depth_points, "map", first=0.1)
     aperture = dict(source.element.planes)[source.element_plane(plane)]
     wavelength = source.speed / source.element.frequency
     far = float(source.ranges(stop))
@@ -148,30 +112,27 @@ def map_(
         # The near field in the part (the continuous-wave last on-axis maximum) is marked
         # where there is one; a pulse's own last on-axis maximum, where the map's beam is
         # strongest, too.
-        near = computed.beam.near_field
-        pulse_maximum = _last_maximum(computed, settings, mode) if settings.bandwidth > 0 else None
+        pulse = settings.bandwidth > 0
         plot_map(
             result,
             plot_path,
-            near_field=near,
-            axial_maximum=pulse_maximum,
-            near_label="near field (continuous wave)" if settings.bandwidth > 0 else "near field",
-            axis_label=_axis_label(computed),
-            caption=_caption(probe, medium, settings, mode),
+            near_field=run.result.beam.near_field,
+            axial_maximum=run.last_maximum() if pulse else None,
+            near_label="near field (continuous wave)" if pulse else "near field",
+            axis_label=run.axis_label(),
+            caption=run.caption,
             units=units,
         )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
+        drew(plot_path)
         if target is None:  # the picture was what was asked for
-            emit_warnings(warnings)
+            emit_warnings(run.warnings)
             return
-    emit_warnings(warnings)
+    emit_warnings(run.warnings)
     from ..render.serialize import field as serialize
-    from ..render.serialize.common import dumps
 
     def text(kind):
         if kind == ".json":
-            data = serialize.map_to_dict(probe, medium, settings, mode, result, warnings)
-            return dumps(_note(data, computed))
+            return run.json(serialize.map_to_dict(*run.inputs, result, run.warnings))
         return serialize.map_to_csv(result)
 
     if target is None:
@@ -182,13 +143,13 @@ def map_(
 
         def write(path):
             with open(path, "wb") as handle:
-                serialize.map_to_npz(handle, probe, medium, settings, mode, result)
+                serialize.map_to_npz(handle, *run.inputs, result)
     else:
 
         def write(path):
             Path(path).write_text(text(suffix), encoding="utf-8")
 
-    _write_atomically(target, write)
+    write_atomically(target, write)
     click.echo(
         f"wrote {target} ({depth_points} depths x {lateral_points} offsets, plane {plane})",
         err=True,

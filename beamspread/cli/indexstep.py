@@ -4,16 +4,22 @@ from __future__ import annotations
 
 import click
 
-from .options import emit_warnings, load_registry, output_options, pass_output
-from .params import LENGTH, LEVEL
+from .options import (
+    depth_range_options,
+    emit_warnings,
+    load_registry,
+    output_options,
+    pass_output,
+    plane_option,
+)
+from .params import LEVEL
 from .setupargs import setup_file_options
 from .techniqueargs import technique_from, technique_options
 
 
 @click.command("index-step")
 @technique_options
-@click.option("--from", "start", type=LENGTH, required=True, help="Shallowest depth to cover.")
-@click.option("--to", "stop", type=LENGTH, required=True, help="Deepest depth to cover.")
+@depth_range_options("Shallowest depth to cover.", "Deepest depth to cover.", required=True)
 @click.option(
     "--overlap",
     default="10%",
@@ -28,12 +34,7 @@ from .techniqueargs import technique_from, technique_options
     show_default=True,
     help="Level of the beam width, dB below the maximum at each depth.",
 )
-@click.option(
-    "--plane",
-    default=None,
-    metavar="NAME",
-    help="The plane across the index direction (default the first: diameter or length).",
-)
+@plane_option("The plane across the index direction (default the first: diameter or length).")
 @click.option(
     "--method",
     type=click.Choice(["field", "far-field"]),
@@ -59,8 +60,6 @@ def index_step(
     plane,
     method,
     count,
-    setup_path,
-    save_path,
     fmt,
     units,
     **options,

@@ -6,7 +6,7 @@ import functools
 
 import click
 
-from .params import CONDITION, ELEMENT, FREQUENCY, SPEED, TEMPERATURE
+from .params import CONDITION, ELEMENT, FREQUENCY, LENGTH, SPEED, TEMPERATURE
 
 __all__ = [
     "emit_warnings",
@@ -116,14 +116,15 @@ def materials_dir_option(f):
     )(f)
 
 
+def units_option(help_text: str | None = None):
+    """``--units mm|in`` (default mm): the lengths of tables or pictures."""
+    return click.option(
+        "--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True, help=help_text
+    )
+
+
 def output_options(f):
-    f = click.option(
-        "--units",
-        type=click.Choice(["mm", "in"]),
-        default="mm",
-        show_default=True,
-        help="Lengths in tables (JSON and CSV are always SI).",
-    )(f)
+    f = units_option("Lengths in tables (JSON and CSV are always SI).")(f)
     f = click.option("--json", "as_json", is_flag=True, help="Shorthand for --format json.")(f)
     f = click.option(
         "--format",
@@ -134,6 +135,38 @@ def output_options(f):
         help="Output format.",
     )(f)
     return f
+
+
+def output_file_option(help_text: str, *, required: bool = False, force_help: str):
+    """``--output``/``-o FILE`` and its ``--force``."""
+
+    def decorate(f):
+        f = click.option("--force", is_flag=True, help=force_help)(f)
+        return click.option(
+            "--output", "-o", type=click.Path(dir_okay=False), required=required, help=help_text
+        )(f)
+
+    return decorate
+
+
+def plane_option(help_text: str):
+    """``--plane NAME``: one of the element's planes (the command says which by default)."""
+    return click.option("--plane", metavar="NAME", help=help_text)
+
+
+def span_option(help_text: str):
+    """``--span``: the half-extent of a field command's offsets either side of the axis."""
+    return click.option("--span", type=LENGTH, help=help_text)
+
+
+def depth_range_options(from_help: str, to_help: str, *, required: bool = False):
+    """``--from`` and ``--to``: the depths a command covers (``start`` and ``stop``)."""
+
+    def decorate(f):
+        f = click.option("--to", "stop", type=LENGTH, required=required, help=to_help)(f)
+        return click.option("--from", "start", type=LENGTH, required=required, help=from_help)(f)
+
+    return decorate
 
 
 def medium_options(f):
@@ -150,24 +183,20 @@ def medium_options(f):
     f = click.option(
         "--temperature",
         type=TEMPERATURE,
-        default=None,
         help="Temperature of the medium: degC, degF or K (bare number: degC).",
     )(f)
     f = click.option(
         "--speed",
         type=SPEED,
-        default=None,
         help="Sound speed given directly: m/s, km/s, mm/us, in/us (bare: m/s).",
     )(f)
     f = click.option(
         "--wave",
         type=click.Choice(["longitudinal", "shear"]),
-        default=None,
         help="Wave mode in the medium (default longitudinal; shear on a wedge).",
     )(f)
     f = click.option(
         "--material",
-        default=None,
         metavar="NAME",
         help="Material or medium by name or alias (beamspread materials list).",
     )(f)
@@ -226,9 +255,9 @@ def plot_option(help_text: str, *, force: bool = True):
             f = click.option(
                 "--force", "force_plot", is_flag=True, help="Overwrite an existing --plot file."
             )(f)
-        return click.option(
-            "--plot", "plot_path", type=click.Path(dir_okay=False), default=None, help=help_text
-        )(f)
+        return click.option("--plot", "plot_path", type=click.Path(dir_okay=False), help=help_text)(
+            f
+        )
 
     return decorate
 
@@ -239,7 +268,13 @@ def check_plot(path, force: bool) -> None:
         return
     from ..render.plots import check_target
 
-    if check_target(path).exists() and not force:
-        raise click.BadParameter(
-            f"{path!r} exists; add --force to overwrite it", param_hint="--plot"
-        )
+    check_target(path)
+    refuse_existing(path, force, "--plot")
+
+
+def refuse_existing(path: str, force: bool, hint: str) -> None:
+    """Refuse to overwrite the file ``path`` (as typed) without ``--force``."""
+    from pathlib import Path
+
+    if Path(path).exists() and not force:
+        raise click.BadParameter(f"{path!r} exists; add --force to overwrite it", param_hint=hint)

@@ -10,7 +10,34 @@ from ..units import KINDS, is_bare, parse_level, parse_quantity
 __all__ = ["CONDITION", "LEVEL", "Condition", "Level", "Quantity"]
 
 
-class Quantity(click.ParamType):
+class _Parsed(click.ParamType):
+    """A parameter type that parses text and passes a value already parsed straight through.
+
+    Defaults and a setup file's values may come already converted (``done``).
+    Subclasses give ``parse``; an :class:`InputError` it raises fails the
+    parameter with its message, less the kind that opens it (``prefix``).
+    """
+
+    metavar = ""
+    done: type | tuple[type, ...] = float
+    prefix = ""
+
+    def get_metavar(self, param, ctx=None) -> str:
+        return self.metavar
+
+    def convert(self, value, param, ctx):
+        if isinstance(value, self.done):
+            return value
+        try:
+            return self.parse(value, param, ctx)
+        except InputError as exc:
+            self.fail(str(exc).removeprefix(self.prefix), param, ctx)
+
+    def parse(self, value, param, ctx):
+        raise NotImplementedError
+
+
+class Quantity(_Parsed):
     """A number with an optional unit suffix; bare numbers take the kind's default unit."""
 
     def __init__(
@@ -28,17 +55,11 @@ class Quantity(click.ParamType):
         self.plausible = plausible
         self.bare_hint = bare_hint  # the unit a bare number was probably meant in
         self.name = kind
+        self.metavar = kind.upper()
+        self.prefix = f"{kind}: "
 
-    def get_metavar(self, param, ctx=None) -> str:
-        return self.kind.upper()
-
-    def convert(self, value, param, ctx):
-        if isinstance(value, float):
-            return value
-        try:
-            result = parse_quantity(value, self.kind, what=None)
-        except InputError as exc:
-            self.fail(str(exc).removeprefix(f"{self.kind}: "), param, ctx)
+    def parse(self, value, param, ctx):
+        result = parse_quantity(value, self.kind, what=None)
         if self.positive and (result < 0 or (result == 0 and not self.zero)):
             allowed = "0 or more" if self.zero else "above 0"
             self.fail(f"{value!r} is not allowed; it must be {allowed}", param, ctx)
@@ -60,34 +81,21 @@ class Quantity(click.ParamType):
         return f"Quantity({self.kind!r})"
 
 
-class Level(click.ParamType):
+class Level(_Parsed):
     """A level in dB below the peak: -6, 6 and 6dB all mean 6 dB down."""
 
-    name = "level"
+    name, metavar, prefix = "level", "DB", "level: "
 
-    def get_metavar(self, param, ctx=None) -> str:
-        return "DB"
-
-    def convert(self, value, param, ctx):
-        if isinstance(value, float):
-            return value
-        try:
-            return parse_level(value)
-        except InputError as exc:
-            self.fail(str(exc).removeprefix("level: "), param, ctx)
+    def parse(self, value, param, ctx):
+        return parse_level(value)
 
 
-class Condition(click.ParamType):
+class Condition(_Parsed):
     """NAME=VALUE; the value is converted once the medium says what unit NAME takes."""
 
-    name = "condition"
+    name, metavar, done = "condition", "NAME=VALUE", tuple
 
-    def get_metavar(self, param, ctx=None) -> str:
-        return "NAME=VALUE"
-
-    def convert(self, value, param, ctx):
-        if isinstance(value, tuple):
-            return value
+    def parse(self, value, param, ctx):
         name, sep, text = str(value).partition("=")
         name = name.strip().lower()
         if not sep or not name or not text.strip():
@@ -95,49 +103,36 @@ class Condition(click.ParamType):
         return name, text.strip()
 
 
-class DepthList(click.ParamType):
+class DepthList(_Parsed):
     """A depth, or a range START:STOP:STEP (each with a unit; bare numbers in ``unit``)."""
 
-    name = "depths"
+    name, metavar, done, prefix = "depths", "DEPTH|START:STOP:STEP", tuple, "length: "
 
     def __init__(self, unit: str = "m") -> None:
         self.unit = unit
 
-    def get_metavar(self, param, ctx=None) -> str:
-        return "DEPTH|START:STOP:STEP"
-
-    def convert(self, value, param, ctx):
-        if isinstance(value, tuple):
-            return value
+    def parse(self, value, param, ctx):
         from ..sonar.footprint import depth_range
 
         parts = str(value).split(":")
-        try:
-            numbers = [parse_quantity(p, "length", default=self.unit) for p in parts]
-            if len(numbers) == 1:
-                if numbers[0] <= 0:
-                    raise InputError(f"{value!r} is not allowed; a depth must be above 0")
-                return (numbers[0],)
-            if len(numbers) == 3:
-                return depth_range(*numbers)
-        except InputError as exc:
-            self.fail(str(exc).removeprefix("length: "), param, ctx)
+        numbers = [parse_quantity(p, "length", default=self.unit) for p in parts]
+        if len(numbers) == 1:
+            if numbers[0] <= 0:
+                raise InputError(f"{value!r} is not allowed; a depth must be above 0")
+            return (numbers[0],)
+        if len(numbers) == 3:
+            return depth_range(*numbers)
         self.fail(f"{value!r} is neither a depth nor START:STOP:STEP (e.g. 5m:50m:5m)", param, ctx)
 
 
-class Angle(click.ParamType):
+class Angle(_Parsed):
     """An angle in degrees, from 0 up to (not at) 90: "45", "45deg" or "45°"."""
 
-    name = "angle"
+    name, metavar = "angle", "DEG"
 
-    def get_metavar(self, param, ctx=None) -> str:
-        return "DEG"
-
-    def convert(self, value, param, ctx):
+    def parse(self, value, param, ctx):
         import math
 
-        if isinstance(value, float):
-            return value
         text = str(value).strip().removesuffix("deg").removesuffix("°").strip()
         try:
             degrees = float(text)

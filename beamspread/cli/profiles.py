@@ -4,20 +4,16 @@ from __future__ import annotations
 
 import click
 
-from .field import (
-    MAX_PROFILE_POINTS,
-    _axis_label,
-    _caption,
-    _check_plane,
-    _check_range,
-    _check_validity,
-    _last_maximum,
-    _note,
-    _points_option,
-    _reference_length,
-    _setup,
+from .field import MAX_PROFILE_POINTS, FieldRun, _check_plane, _points_option, drew
+from .options import (
+    depth_range_options,
+    emit_warnings,
+    output_options,
+    pass_output,
+    plane_option,
+    plot_option,
+    span_option,
 )
-from .options import check_plot, emit_warnings, output_options, pass_output, plot_option
 from .params import LENGTH, LEVEL
 from .setupargs import setup_file_options
 from .techniqueargs import technique_options
@@ -25,20 +21,16 @@ from .techniqueargs import technique_options
 
 @click.command()
 @technique_options
-@click.option(
-    "--from",
-    "start",
-    type=LENGTH,
-    default=None,
-    help="First depth (on a wedge: sound path) (default 0.05 N, N = D²/4λ or L²/4λ in the part).",
+@depth_range_options(
+    "First depth (on a wedge: sound path) (default 0.05 N, N = D²/4λ or L²/4λ in the part).",
+    "Last depth (default 3 N).",
 )
-@click.option("--to", "stop", type=LENGTH, default=None, help="Last depth (default 3 N).")
 @_points_option(400, MAX_PROFILE_POINTS, help_text="Number of depths")
 @plot_option("Also draw to FILE (.png, .svg, .pdf).")
 @setup_file_options
 @output_options
 @pass_output
-def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt, units, **common):
+def axis(start, stop, points, plot_path, force_plot, fmt, units, **common):
     """The computed amplitude along the beam axis, and its last maximum.
 
     For a continuous wave (--bandwidth 0) the last maximum is the near-field
@@ -47,37 +39,30 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     """
     import numpy as np
 
-    check_plot(plot_path, force_plot)
-    result, settings, warnings = _setup(common)
-    probe, medium, mode = result.technique.element, result.beam.wave, result.mode
-    near, simple = result.beam.near_field, _reference_length(result)
-    start = 0.05 * simple if start is None else start
-    stop = 3.0 * simple if stop is None else stop
-    _check_range(start, stop, points, "axis")
-    if result.coupling == "contact" and not result.focused:
-        _check_validity(warnings, start, simple)
-    profile = result.source.axial(np.linspace(start, stop, points), mode, settings)
-    axial = _last_maximum(result, settings, mode)
+    run = FieldRun(common, plot_path, force_plot)
+    start, stop = run.depth_range(start, stop, points, "axis", first=0.05)
+    profile = run.source.axial(np.linspace(start, stop, points), run.mode, run.settings)
+    near, axial = run.result.beam.near_field, run.last_maximum()
     if plot_path is not None:
         from ..render.plots import plot_axis
 
+        contact = run.result.coupling == "contact"
         plot_axis(
             profile,
             plot_path,
             near_field=near,
             axial_maximum=axial,
-            caption=_caption(probe, medium, settings, mode),
+            caption=run.caption,
             units=units,
-            **({} if result.coupling == "contact" else {"axis_label": _axis_label(result)}),
+            **({} if contact else {"axis_label": run.axis_label()}),
         )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
-    emit_warnings(warnings)
+        drew(plot_path)
+    emit_warnings(run.warnings)
+    figures = (profile, near, run.reference, axial)
     if fmt == "json":
-        from ..render.serialize.common import dumps
         from ..render.serialize.field import axial_to_dict
 
-        data = axial_to_dict(probe, medium, settings, mode, profile, near, simple, axial, warnings)
-        click.echo(dumps(_note(data, result)))
+        click.echo(run.json(axial_to_dict(*run.inputs, *figures, run.warnings)))
     elif fmt == "csv":
         from ..render.serialize.field import axial_to_csv
 
@@ -85,20 +70,8 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     else:
         from ..render.text.field import axial_table
 
-        click.echo(
-            axial_table(
-                probe,
-                medium,
-                settings,
-                mode,
-                profile,
-                near,
-                simple,
-                axial,
-                units,
-                coordinate=result.source.coordinate,
-            )
-        )
+        coordinate = run.source.coordinate
+        click.echo(axial_table(*run.inputs, *figures, units, coordinate=coordinate))
 
 
 @click.command()
@@ -109,19 +82,13 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
     required=True,
     help="Depth of the profile below the surface (on a wedge, on the first leg).",
 )
-@click.option(
-    "--plane",
-    default=None,
-    metavar="NAME",
-    help="diameter (disc), length or width (rectangle), incidence or transverse (a disc "
-    "on a wedge); default every plane.",
+@plane_option(
+    "diameter (disc), length or width (rectangle), incidence or transverse (a disc "
+    "on a wedge); default every plane."
 )
-@click.option(
-    "--span",
-    type=LENGTH,
-    default=None,
-    help="Half-extent either side of the axis (default: the larger of the aperture "
-    "and 4 λ z / aperture).",
+@span_option(
+    "Half-extent either side of the axis (default: the larger of the aperture "
+    "and 4 λ z / aperture)."
 )
 @_points_option(201, MAX_PROFILE_POINTS, help_text="Number of offsets across the beam")
 @click.option(
@@ -135,34 +102,14 @@ def axis(start, stop, points, plot_path, force_plot, setup_path, save_path, fmt,
 @setup_file_options
 @output_options
 @pass_output
-def across(
-    depth,
-    plane,
-    span,
-    points,
-    levels,
-    plot_path,
-    force_plot,
-    setup_path,
-    save_path,
-    fmt,
-    units,
-    **common,
-):
+def across(depth, plane, span, points, levels, plot_path, force_plot, fmt, units, **common):
     """The computed amplitude across the beam at one depth, per plane, with its widths."""
     import numpy as np
 
-    check_plot(plot_path, force_plot)
-    result, settings, warnings = _setup(common)
-    probe, medium, mode, source = (
-        result.technique.element,
-        result.beam.wave,
-        result.mode,
-        result.source,
-    )
+    run = FieldRun(common, plot_path, force_plot)
+    source, mode, settings = run.source, run.mode, run.settings
     chosen = [_check_plane(source, plane)] if plane else list(source.planes)
-    if result.coupling == "contact" and not result.focused:
-        _check_validity(warnings, depth, _reference_length(result))
+    run.check_validity(depth)
     wavelength = source.speed / source.element.frequency
     at = source.coordinate_of_depth(depth)
     distance = float(source.ranges(at))
@@ -172,25 +119,20 @@ def across(
         half = span if span is not None else max(aperture, 4 * wavelength * distance / aperture)
         offsets = np.linspace(-half, half, points)
         profiles.append(source.across(at, offsets, name, mode, settings))
-        widths[name] = source.widths(at, levels or result.technique.levels, name, mode, settings)
+        widths[name] = source.widths(
+            at, levels or run.result.technique.levels, name, mode, settings
+        )
     if plot_path is not None:
         from ..render.plots import plot_across
 
-        plot_across(
-            profiles,
-            widths,
-            plot_path,
-            caption=_caption(probe, medium, settings, mode),
-            units=units,
-        )
-        click.echo(f"beamspread: drew {plot_path}", err=True)
-    emit_warnings(warnings)
+        plot_across(profiles, widths, plot_path, caption=run.caption, units=units)
+        drew(plot_path)
+    emit_warnings(run.warnings)
     if fmt == "json":
-        from ..render.serialize.common import dumps
         from ..render.serialize.field import across_to_dict
 
-        data = across_to_dict(probe, medium, settings, mode, depth, profiles, widths, warnings)
-        click.echo(dumps(_note(data, result)))
+        data = across_to_dict(*run.inputs, depth, profiles, widths, run.warnings)
+        click.echo(run.json(data))
     elif fmt == "csv":
         from ..render.serialize.field import across_to_csv
 
@@ -198,4 +140,4 @@ def across(
     else:
         from ..render.text.field import across_table
 
-        click.echo(across_table(probe, medium, settings, mode, depth, profiles, widths, units))
+        click.echo(across_table(*run.inputs, depth, profiles, widths, units))

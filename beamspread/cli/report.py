@@ -6,18 +6,17 @@ from pathlib import Path
 
 import click
 
+from .options import output_file_option, units_option
+
 
 @click.command()
 @click.argument("setup_file", type=click.Path(dir_okay=False))
-@click.option(
-    "--output",
-    "-o",
-    type=click.Path(dir_okay=False),
+@output_file_option(
+    "The report: .pdf (a page) or .png (the page as a picture).",
     required=True,
-    help="The report: .pdf (a page) or .png (the page as a picture).",
+    force_help="Overwrite an existing --output file.",
 )
-@click.option("--force", is_flag=True, help="Overwrite an existing --output file.")
-@click.option("--units", type=click.Choice(["mm", "in"]), default="mm", show_default=True)
+@units_option()
 @click.option(
     "--json",
     "as_json",
@@ -37,16 +36,13 @@ def report(setup_file, output, force, units, as_json):
     from ..render.page import report_page
     from ..render.text.result import result_table
     from ..technique import Technique
-    from .options import emit_warnings, load_registry
+    from .options import emit_warnings, load_registry, refuse_existing
 
     target = Path(output)
     if target.suffix.lower() not in (".pdf", ".png"):
         raise click.BadParameter(f"{output!r}: a report is .pdf or .png", param_hint="--output")
     plots.check_target(target)
-    if target.exists() and not force:
-        raise click.BadParameter(
-            f"{output!r} exists; add --force to overwrite it", param_hint="--output"
-        )
+    refuse_existing(output, force, "--output")
     technique = Technique.from_toml(setup_file)
     registry = load_registry(()) if technique.names_a_medium else None
     result = compute(technique, registry=registry)

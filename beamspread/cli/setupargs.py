@@ -73,7 +73,6 @@ def setup_file_options(f):
         "save_path",
         cls=_SetupFileOption,
         type=click.Path(dir_okay=False),
-        default=None,
         help="Write the setup this command line uses to FILE (TOML; never overwrites).",
     )(command)
     return click.option(
@@ -81,7 +80,6 @@ def setup_file_options(f):
         "setup_path",
         cls=_SetupFileOption,
         type=click.Path(dir_okay=False),
-        default=None,
         is_eager=True,
         callback=_read_setup,
         help="Read probe, medium, setup, depths, levels and conventions from a "

@@ -26,7 +26,6 @@ def _angle(text: str, name: str) -> float:
 @click.option(
     "--frequency",
     type=FREQUENCY,
-    default=None,
     help="Centre frequency (solve the diameter, or a rectangle's side).",
 )
 @click.option(
@@ -35,25 +34,22 @@ def _angle(text: str, name: str) -> float:
 @click.option(
     "--other-side",
     type=ELEMENT,
-    default=None,
     help="For a rectangle: the side across the target plane; solves the side in it.",
 )
 @medium_options
-@click.option("--full-angle", default=None, metavar="DEG", help="Target full angle, degrees.")
-@click.option("--half-angle", default=None, metavar="DEG", help="Target half-angle, degrees.")
-@click.option("--spot", type=LENGTH, default=None, help="Target full width at --at.")
+@click.option("--full-angle", metavar="DEG", help="Target full angle, degrees.")
+@click.option("--half-angle", metavar="DEG", help="Target half-angle, degrees.")
+@click.option("--spot", type=LENGTH, help="Target full width at --at.")
 @click.option(
     "--at",
     "depth",
     type=LENGTH,
-    default=None,
     help="Depth of --spot (or of the footprint reported with an angle target); bare "
     "numbers in mm, so write 30m for a water depth.",
 )
 @click.option(
     "--level",
     type=LEVEL,
-    default=None,
     help="Level of the target, dB below the peak (default 3 for an angle, 6 for a spot).",
 )
 @click.option(

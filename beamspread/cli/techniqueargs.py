@@ -35,14 +35,12 @@ def immersion_options(f):
 _WEDGE = (
     click.option(
         "--wedge",
-        default=None,
         metavar="NAME",
         help="Angle-beam wedge material by name (its longitudinal speed).",
     ),
     click.option(
         "--wedge-speed",
         type=SPEED,
-        default=None,
         help="Angle-beam wedge: a measured longitudinal speed instead of --wedge.",
     ),
     click.option(
@@ -51,20 +49,15 @@ _WEDGE = (
     click.option(
         "--refracted",
         type=ANGLE,
-        default=None,
         help="Nominal refracted angle in the part for --wave, degrees (the "
         "incident angle is solved).",
     ),
     click.option(
-        "--wedge-path",
-        type=PATH_LENGTH,
-        default=None,
-        help="Mean sound path in the wedge along the beam axis.",
+        "--wedge-path", type=PATH_LENGTH, help="Mean sound path in the wedge along the beam axis."
     ),
     click.option(
         "--thickness",
         type=LENGTH,
-        default=None,
         help="Part thickness: the back wall (on a wedge each depth also gets the second leg).",
     ),
 )
@@ -72,7 +65,6 @@ _IMMERSION = (
     click.option(
         "--water-path",
         type=PATH_LENGTH,
-        default=None,
         help="Immersion: couplant path from the probe to the part surface.",
     ),
     click.option(
@@ -85,7 +77,6 @@ _IMMERSION = (
     click.option(
         "--focus",
         type=LENGTH,
-        default=None,
         help="Focal length of a spherically focused disc (cylindrically, in the "
         "length plane, for a rectangle), in the couplant.",
     ),
@@ -117,20 +108,11 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
         Options that do not go together (a wedge and a water path, an angle
         without a wedge...), named as typed.
     """
+    from .. import technique as t
     from ..conventions import Mode
-    from ..technique import (
-        Contact,
-        PartMedium,
-        Pulse,
-        Request,
-        Sonar,
-        Technique,
-        WaterCoupling,
-        WedgeCoupling,
-    )
 
     get = p.get
-    sonar = sonar or Sonar()
+    sonar = sonar or t.Sonar()
     on_wedge = get("wedge") is not None or get("wedge_speed") is not None
     immersed = get("water_path") is not None or get("focus") is not None
     if on_wedge and immersed:
@@ -175,16 +157,16 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
                 "--temperature and --condition describe a --material; "
                 "with --speed they mean nothing"
             )
-    medium = PartMedium(
+    medium = t.PartMedium(
         material=get("material"),
         speed=get("speed"),
         wave=get("wave"),
         temperature=temperature if get("speed") is None else None,
         conditions=tuple(get("conditions") or ()),
     )
-    coupling = Contact()
+    coupling = t.Contact()
     if on_wedge:
-        coupling = WedgeCoupling(
+        coupling = t.WedgeCoupling(
             get("wedge"),
             get("wedge_speed"),
             get("incident"),
@@ -193,17 +175,19 @@ def technique_from(p: dict, *, depths=(), levels=(), far_field_only=False, sonar
             get("temperature"),
         )
     elif get("water_path") is not None:
-        coupling = WaterCoupling(get("water_path"), get("couplant") or "water", get("temperature"))
+        coupling = t.WaterCoupling(
+            get("water_path"), get("couplant") or "water", get("temperature")
+        )
     pulse_echo = get("pulse_echo")
     mode = None if pulse_echo is None else (Mode.PULSE_ECHO if pulse_echo else Mode.ONE_WAY)
     pulse = None
     if not far_field_only:
         bandwidth = get("bandwidth") if given("bandwidth") or not sonar.conventions else None
-        pulse = Pulse(bandwidth, get("spectrum") or "gaussian", get("frequency_count") or 32)
+        pulse = t.Pulse(bandwidth, get("spectrum") or "gaussian", get("frequency_count") or 32)
     if get("focus") is not None and pulse is None and depths:
         raise click.UsageError(
             "--far-field-only: a focused probe has no far-field width (the flat "
             "element's cone does not converge); drop it to get the computed widths at --depth"
         )
-    request = Request(tuple(depths), tuple(levels), mode, pulse)
-    return Technique(element, medium, coupling, get("thickness"), request, sonar)
+    request = t.Request(tuple(depths), tuple(levels), mode, pulse)
+    return t.Technique(element, medium, coupling, get("thickness"), request, sonar)

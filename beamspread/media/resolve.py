@@ -8,7 +8,7 @@ from typing import Any
 from ..errors import BeamspreadError, InputError
 from ..units import from_si, parse_quantity
 
-__all__ = ["Resolved", "named_wave", "resolve_part"]
+__all__ = ["Resolved", "check_part_medium", "named_wave", "resolve_part"]
 
 
 @dataclass(frozen=True)
@@ -49,6 +49,23 @@ class Resolved:
             except BeamspreadError:  # a liquid, or a table without that wave
                 out.append(None)
         return tuple(out)
+
+
+def check_part_medium(material, speed, temperature, conditions) -> None:
+    """A part's medium is a material by name or a speed; a speed takes no temperature or conditions.
+
+    Raises
+    ------
+    InputError
+        Neither or both of a material and a speed, or a speed with a
+        temperature or conditions.
+    """
+    if (material is None) == (speed is None):
+        raise InputError("medium: give either a material or a speed")
+    if speed is not None and (temperature is not None or conditions):
+        raise InputError(
+            "medium: temperature and conditions describe a material; with a speed they mean nothing"
+        )
 
 
 def resolve_part(

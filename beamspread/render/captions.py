@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-__all__ = ["caption_of", "frequency_text"]
+__all__ = ["caption_of", "frequency_text", "inputs_caption"]
 
 
 def frequency_text(hertz: float) -> str:
@@ -10,12 +10,19 @@ def frequency_text(hertz: float) -> str:
     return f"{hertz / 1e6:g} MHz" if hertz >= 1e6 else f"{hertz / 1e3:g} kHz"
 
 
+def inputs_caption(probe, wave, convention: str) -> str:
+    """A one-line caption naming the element, its frequency, the wave and ``convention``.
+
+    ``convention`` is the mode, or the pulse and the mode.
+    """
+    size = probe.caption()
+    where = "given speed" if wave.medium == "given" else wave.medium
+    return (
+        f"{size}, {frequency_text(probe.frequency)}; {where}, {wave.wave} {wave.speed:.1f} m/s; "
+        f"{convention}; beamspread model estimate"
+    )
+
+
 def caption_of(result) -> str:
     """A one-line caption naming the inputs of a :class:`beamspread.BeamResult`."""
-    p, w = result.probe, result.wave
-    size = p.caption()
-    where = "given speed" if w.medium == "given" else w.medium
-    return (
-        f"{size}, {frequency_text(p.frequency)}; {where}, {w.wave} {w.speed:.1f} m/s; "
-        f"{result.convention.mode}; beamspread model estimate"
-    )
+    return inputs_caption(result.probe, result.wave, result.convention.mode)

@@ -6,9 +6,9 @@ import json
 import os
 import re
 import sys
-import tempfile
 from pathlib import Path
 
+from ..atomic import write_atomically
 from ..errors import InputError
 from .keys import _KEYS, _SECTIONS, _check, _where
 from .model import Setup
@@ -186,15 +186,6 @@ def save_setup(setup: Setup, path: str | os.PathLike, *, force: bool = False) ->
     if target.exists() and not force:
         raise InputError(f"{str(path)!r} exists; use --force to overwrite it")
     text = dumps_setup(setup)
-    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as handle:
-            handle.write(text)
-        mask = os.umask(0)
-        os.umask(mask)
-        os.chmod(temporary, 0o666 & ~mask)
-        os.replace(temporary, target)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-    return target
+    return write_atomically(
+        target, lambda name: Path(name).write_text(text, encoding="utf-8", newline="\n")
+    )

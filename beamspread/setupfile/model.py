@@ -7,6 +7,7 @@ import re
 from dataclasses import dataclass, fields
 
 from ..errors import InputError
+from ..media.resolve import check_part_medium
 from ..probes import check_sizes
 from .keys import _BY_FIELD, _BY_OPTION, _KEYS, _MODE_FLAGS, _NUMBER, _check, _in_unit, _Key, _where
 
@@ -68,13 +69,7 @@ class Setup:
             object.__setattr__(self, "sonar", None)
         sizes = ("diameter", "length", "width")
         check_sizes(self.shape, [name for name in sizes if getattr(self, name) is not None])
-        if (self.material is None) == (self.speed is None):
-            raise InputError("medium: give either a material or a speed")
-        if self.speed is not None and (self.temperature is not None or self.conditions):
-            raise InputError(
-                "medium: temperature and conditions describe a material; with a "
-                "speed they mean nothing"
-            )
+        check_part_medium(self.material, self.speed, self.temperature, self.conditions)
         if self.wedge is not None and self.wedge_speed is not None:
             raise InputError("wedge: give either its material or its speed, not both")
         if self.incident is not None and self.refracted is not None:

@@ -15,7 +15,6 @@ from .figure import (
     COLORMAP,
     DPI,
     FIGSIZE,
-    FLOOR_DB,
     FORMATS,
     check_target,
     new_figure,
@@ -23,6 +22,7 @@ from .figure import (
 )
 from .footprint import draw_footprint, footprint_figure, plot_footprint
 from .map import MapArtists, draw_map, map_figure, plot_map
+from .scales import FLOOR_DB
 from .section import draw_section, plot_section, section_figure
 from .section_geometry import (
     BeamEdge,

@@ -10,19 +10,8 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _mode_text,
-    _scale,
-    check_target,
-    new_figure,
-    save_figure,
-)
+from .figure import _PALETTE, FIGSIZE, new_figure, write_figure
+from .scales import FLOOR_DB, _db, _length, _level_text, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -118,5 +107,4 @@ def plot_across(
         Plane name -> list of :class:`~beamspread.field.BeamWidth` at that
         depth; each is marked at its level from -width/2 to +width/2.
     """
-    check_target(path)
-    return save_figure(across_figure(profiles, widths, caption=caption, units=units), path)
+    return write_figure(path, across_figure, profiles, widths, caption=caption, units=units)

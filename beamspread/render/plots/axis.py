@@ -9,21 +9,8 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    _STYLES,
-    FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
-    _mode_text,
-    _scale,
-    check_target,
-    new_figure,
-    save_figure,
-)
+from .figure import _PALETTE, _STYLES, FIGSIZE, new_figure, write_figure
+from .scales import FLOOR_DB, _db, _length, _level_text, _levels, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -74,22 +61,14 @@ def draw_axis(
     depth, amp, peak = _checked(profile)
     db = _db(amp, peak)
     ax.plot(depth * s, db, color=_PALETTE[0], lw=1.5, label="on-axis amplitude")
-    if near_field is not None and math.isfinite(near_field):
-        ax.axvline(
-            near_field * s,
-            color=_PALETTE[1],
-            lw=1.1,
-            ls="--",
-            label=f"near field N = {_length(near_field, units)}",
-        )
-    if axial_maximum is not None and math.isfinite(axial_maximum):
-        ax.axvline(
-            axial_maximum * s,
-            color=_PALETTE[2],
-            lw=1.1,
-            ls=":",
-            label=f"last on-axis maximum {_length(axial_maximum, units)}",
-        )
+    marks = (
+        (near_field, _PALETTE[1], "--", "near field N = "),
+        (axial_maximum, _PALETTE[2], ":", "last on-axis maximum "),
+    )
+    for where, colour, ls, name in marks:
+        if where is not None and math.isfinite(where):
+            label = f"{name}{_length(where, units)}"
+            ax.axvline(where * s, color=colour, lw=1.1, ls=ls, label=label)
     for i, level in enumerate(_levels(levels_db)):
         where = _crossings(depth, db, level)
         ax.axhline(-level, color="0.6", lw=0.8, ls=_STYLES[(i + 1) % len(_STYLES)])
@@ -117,62 +96,23 @@ def draw_axis(
 
 
 def axis_figure(
-    profile,
-    *,
-    near_field: float | None = None,
-    axial_maximum: float | None = None,
-    levels_db=(6.0,),
-    caption: str = "",
-    units: str = "mm",
-    size: tuple[float, float] = FIGSIZE,
-    axis_label: str = "depth on the beam axis",
+    profile, *, caption: str = "", size: tuple[float, float] = FIGSIZE, **options
 ) -> Figure:
-    """:func:`plot_axis`'s picture as a Figure."""
-    _scale(units)
-    _checked(profile)
+    """:func:`plot_axis`'s picture as a Figure; ``options`` as for :func:`draw_axis`."""
     fig = new_figure(size, caption=caption)
     ax = fig.add_subplot()
-    draw_axis(
-        ax,
-        profile,
-        near_field=near_field,
-        axial_maximum=axial_maximum,
-        levels_db=levels_db,
-        units=units,
-        axis_label=axis_label,
-    )
+    draw_axis(ax, profile, **options)
     ax.legend(loc="lower right", fontsize=8, framealpha=0.9)
     return fig
 
 
-def plot_axis(
-    profile,
-    path,
-    *,
-    near_field: float | None = None,
-    axial_maximum: float | None = None,
-    levels_db=(6.0,),
-    caption: str = "",
-    units: str = "mm",
-    axis_label: str = "depth on the beam axis",
-) -> Path:
+def plot_axis(profile, path, **options) -> Path:
     """Draw an :class:`~beamspread.field.AxialProfile` in dB to ``path``; return the path.
 
     The amplitude is in dB relative to the largest on the profile; the
     near-field length and the last on-axis maximum (m) are vertical lines,
     and every crossing of each level is marked (interpolated linearly in dB
-    between samples).
+    between samples). ``options``: ``caption`` and ``size`` (:func:`axis_figure`),
+    and those of :func:`draw_axis`.
     """
-    check_target(path)
-    return save_figure(
-        axis_figure(
-            profile,
-            near_field=near_field,
-            axial_maximum=axial_maximum,
-            levels_db=levels_db,
-            caption=caption,
-            units=units,
-            axis_label=axis_label,
-        ),
-        path,
-    )
+    return write_figure(path, axis_figure, profile, **options)

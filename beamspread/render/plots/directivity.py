@@ -11,22 +11,16 @@ import numpy as np
 
 from ...errors import InputError
 from .figure import (
-    _MINUS,
     _PALETTE,
     FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
     _line,
     _polar_figure,
     _strip_legend,
     _with_strip,
-    check_target,
     new_figure,
-    save_figure,
+    write_figure,
 )
+from .scales import _MINUS, FLOOR_DB, _db, _length, _level_text, _levels
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -161,14 +155,16 @@ def directivity_figure(
     shape: str = "disc",
     *,
     polar: bool = True,
-    levels_db=(6.0,),
-    max_angle: float | None = None,
+    angles: str = "half",
     caption: str = "",
     size: tuple[float, float] = FIGSIZE,
-    angles: str = "half",
+    **options,
 ) -> Figure:
-    """:func:`plot_directivity`'s picture as a Figure."""
-    options = {"levels_db": levels_db, "max_angle": max_angle, "angles": angles}
+    """:func:`plot_directivity`'s picture as a Figure.
+
+    ``options`` as for :func:`draw_directivity`.
+    """
+    options["angles"] = angles
     if not polar:
         fig = new_figure(size, caption=caption)
         grid, strip = _with_strip(fig)
@@ -201,16 +197,7 @@ def directivity_figure(
 
 
 def plot_directivity(
-    aperture_by_plane: Mapping[str, float],
-    wavelength: float,
-    shape: str,
-    path,
-    *,
-    polar: bool = True,
-    levels_db=(6.0,),
-    max_angle: float | None = None,
-    caption: str = "",
-    angles: str = "half",
+    aperture_by_plane: Mapping[str, float], wavelength: float, shape: str, path, **options
 ) -> Path:
     """Draw the far-field pattern, one-way and pulse-echo, in dB to ``path``; return the path.
 
@@ -234,20 +221,7 @@ def plot_directivity(
         The convention the picture leads with (title and the first value in the
         legend): ``"full"`` where the tables beside it give full angles (sonar).
     """
-    check_target(path)
-    return save_figure(
-        directivity_figure(
-            aperture_by_plane,
-            wavelength,
-            shape,
-            polar=polar,
-            levels_db=levels_db,
-            max_angle=max_angle,
-            caption=caption,
-            angles=angles,
-        ),
-        path,
-    )
+    return write_figure(path, directivity_figure, aperture_by_plane, wavelength, shape, **options)
 
 
 def _angle_text(level: float, half: float, angles: str) -> str:

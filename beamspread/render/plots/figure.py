@@ -8,11 +8,10 @@ returns the :class:`matplotlib.figure.Figure` instead, and a ``draw_*``
 function that draws on a given Axes and returns its legend handles (for a
 page that gathers several).
 
-Conventions drawn on every picture: lengths in ``units`` (``"mm"`` or
-``"in"``; a sonar cone also takes ``"m"`` or ``"ft"``), levels in dB as
-:math:`20\\log_{10}` of the amplitude relative to a stated reference, and the
-mode (pulse-echo or one-way) in the title or the labels. A ``caption`` is
-drawn as a line (wrapped if long) along the foot of the picture.
+Conventions drawn on every picture: lengths in ``units`` and levels in dB
+(:mod:`.scales`), and the mode (pulse-echo or one-way) in the title or the
+labels. A ``caption`` is drawn as a line (wrapped if long) along the foot of
+the picture.
 
 matplotlib is imported inside the functions that draw, with the Agg canvas
 attached to each figure directly: nothing here touches pyplot's global state
@@ -21,18 +20,13 @@ or needs a display, and importing this module costs nothing.
 
 from __future__ import annotations
 
-import math
 import os
-import tempfile
 import textwrap
-from collections.abc import Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
-import numpy as np
-
+from ...atomic import write_atomically
 from ...errors import InputError
-from ...units import format_length
 
 if TYPE_CHECKING:
     from matplotlib.figure import Figure
@@ -40,7 +34,6 @@ if TYPE_CHECKING:
 FORMATS = (".png", ".svg", ".pdf")
 FIGSIZE = (7.0, 4.5)  # inches: half a printed page
 DPI = 150
-FLOOR_DB = -40.0  # the foot of every dB scale
 COLORMAP = "cividis"  # perceptually uniform, readable in grey and by most colour-blind readers
 CAPTION_SIZE = 7.0  # points
 
@@ -48,9 +41,6 @@ CAPTION_SIZE = 7.0  # points
 _PALETTE = ("#1d3557", "#b5473a", "#2a7f62", "#c28a1e", "#6c6c6c")
 _STYLES = ("-", "--", ":", "-.")
 _MARKS = "#e9724c"  # depth lines and footprints on the map and the section
-
-_LENGTHS = {"mm": 1e3, "in": 1.0 / 0.0254, "m": 1.0, "ft": 1.0 / 0.3048}
-_MINUS = "\u2212"
 
 
 def check_target(path: str | os.PathLike) -> Path:
@@ -70,59 +60,6 @@ def check_target(path: str | os.PathLike) -> Path:
     if target.is_dir():
         raise InputError(f"plot: {str(path)!r} is a folder, not a file")
     return target
-
-
-def _scale(units: str, allowed: Sequence[str] = ("mm", "in")) -> tuple[float, str]:
-    """Metres-to-units factor and the unit's label."""
-    if units not in allowed:
-        raise InputError(f"units: {units!r} is unknown; use one of {', '.join(allowed)}")
-    return _LENGTHS[units], units
-
-
-def _db(amplitude, reference) -> np.ndarray:
-    """``20 log10(amplitude / reference)``, floored at :data:`FLOOR_DB` (zeros included)."""
-    a = np.abs(np.asarray(amplitude, dtype=float))
-    ref = np.asarray(reference, dtype=float)
-    tiny = 10.0 ** (FLOOR_DB / 20.0) * 1e-3
-    with np.errstate(divide="ignore", invalid="ignore"):
-        ratio = np.where(ref > 0, a / np.where(ref > 0, ref, 1.0), 0.0)
-    return np.maximum(20.0 * np.log10(np.maximum(ratio, tiny)), FLOOR_DB)
-
-
-def _levels(levels_db) -> list[float]:
-    """Levels as positive dB below the reference, in the order given, without repeats."""
-    out: list[float] = []
-    for level in levels_db:
-        try:
-            value = abs(float(level))
-        except (TypeError, ValueError):
-            raise InputError(f"level: {level!r} is not a number of dB") from None
-        if not math.isfinite(value) or value == 0.0 or value >= -FLOOR_DB:
-            raise InputError(
-                f"level: {level!r} dB is not allowed; give a level from above 0 "
-                f"to below {-FLOOR_DB:g} dB down"
-            )
-        if value not in out:
-            out.append(value)
-    return out
-
-
-def _level_text(level: float) -> str:
-    return f"{_MINUS}{abs(level):g} dB"
-
-
-def _length(metres: float, units: str) -> str:
-    if units in ("mm", "in"):
-        return format_length(metres, units)
-    value = metres * _LENGTHS[units]
-    return f"{value:.3g} {units}"
-
-
-def _mode_text(mode: str, bandwidth: float | None = None) -> str:
-    text = mode
-    if bandwidth is not None:
-        text += ", continuous wave" if bandwidth == 0 else f", {bandwidth:g} fractional bandwidth"
-    return text
 
 
 def new_figure(
@@ -172,18 +109,19 @@ def save_figure(fig: Figure, path: str | os.PathLike) -> Path:
     ``path`` only once complete; on any failure it is removed.
     """
     target = check_target(path)
-    fd, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".part")
-    os.close(fd)
-    try:
-        fig.savefig(temporary, format=target.suffix.lower()[1:], dpi=fig.dpi)
-        mask = os.umask(0)
-        os.umask(mask)
-        os.chmod(temporary, 0o666 & ~mask)  # as an ordinary new file, not mkstemp's 0600
-        os.replace(temporary, target)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise
-    return target
+    return write_atomically(
+        target, lambda name: fig.savefig(name, format=target.suffix.lower()[1:], dpi=fig.dpi)
+    )
+
+
+def write_figure(path: str | os.PathLike, make, *args, **kwargs) -> Path:
+    """Check ``path`` (:func:`check_target`), then write ``make(*args, **kwargs)`` there.
+
+    The ``plot_*`` functions are this over their ``*_figure`` twins: a bad
+    path is refused before anything is drawn.
+    """
+    check_target(path)
+    return save_figure(make(*args, **kwargs), path)
 
 
 def _outline(width: float = 2.6):

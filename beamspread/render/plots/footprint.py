@@ -10,17 +10,8 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from ...errors import InputError
-from .figure import (
-    _PALETTE,
-    _STYLES,
-    FIGSIZE,
-    _length,
-    _level_text,
-    _scale,
-    check_target,
-    new_figure,
-    save_figure,
-)
+from .figure import _PALETTE, _STYLES, FIGSIZE, new_figure, write_figure
+from .scales import _length, _level_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -129,25 +120,13 @@ def footprint_figure(
     depths: Sequence[float],
     widths_by_level: Mapping[Any, Sequence],
     *,
-    near_field: float | None = None,
-    mode: str = "one-way",
     caption: str = "",
-    units: str = "m",
     size: tuple[float, float] = FIGSIZE,
-    in_air: bool = False,
+    **options,
 ) -> Figure:
-    """:func:`plot_footprint`'s picture as a Figure."""
-    _scale(units, ("m", "ft", "mm", "in"))
+    """:func:`plot_footprint`'s picture as a Figure; ``options`` as for :func:`draw_footprint`."""
     fig = new_figure(size, caption=caption)
-    draw_footprint(
-        fig.add_subplot(),
-        depths,
-        widths_by_level,
-        near_field=near_field,
-        mode=mode,
-        units=units,
-        in_air=in_air,
-    )
+    draw_footprint(fig.add_subplot(), depths, widths_by_level, **options)
     return fig
 
 
@@ -207,15 +186,7 @@ def _width_labels(ax, notes, depth) -> None:
 
 
 def plot_footprint(
-    depths: Sequence[float],
-    widths_by_level: Mapping[Any, Sequence],
-    path,
-    *,
-    near_field: float | None = None,
-    mode: str = "one-way",
-    caption: str = "",
-    units: str = "m",
-    in_air: bool = False,
+    depths: Sequence[float], widths_by_level: Mapping[Any, Sequence], path, **options
 ) -> Path:
     """Draw the sonar cone and its footprint width against water depth to ``path``.
 
@@ -236,16 +207,4 @@ def plot_footprint(
     in_air : bool
         Label the distances as ranges to a flat surface (a rangefinder in air), not depths.
     """
-    check_target(path)
-    return save_figure(
-        footprint_figure(
-            depths,
-            widths_by_level,
-            near_field=near_field,
-            mode=mode,
-            caption=caption,
-            units=units,
-            in_air=in_air,
-        ),
-        path,
-    )
+    return write_figure(path, footprint_figure, depths, widths_by_level, **options)

@@ -16,21 +16,14 @@ from .figure import (
     _STYLES,
     COLORMAP,
     FIGSIZE,
-    FLOOR_DB,
-    _db,
-    _length,
-    _level_text,
-    _levels,
     _line,
-    _mode_text,
     _outline,
-    _scale,
     _strip_legend,
     _with_strip,
-    check_target,
     new_figure,
-    save_figure,
+    write_figure,
 )
+from .scales import FLOOR_DB, _db, _length, _level_text, _levels, _mode_text, _scale
 
 if TYPE_CHECKING:
     from matplotlib.axes import Axes
@@ -222,51 +215,24 @@ def draw_map(
 
 
 def map_figure(
-    field_map,
-    *,
-    levels_db=(6.0, 20.0),
-    near_field: float | None = None,
-    depths: Sequence[float] = (),
-    caption: str = "",
-    units: str = "mm",
-    size: tuple[float, float] = FIGSIZE,
-    axial_maximum: float | None = None,
-    near_label: str = "near field",
-    axis_label: str = "depth from the probe face",
+    field_map, *, caption: str = "", size: tuple[float, float] = FIGSIZE, **options
 ) -> Figure:
-    """:func:`plot_map`'s picture as a Figure."""
+    """:func:`plot_map`'s picture as a Figure (the legend in a strip below the map).
+
+    ``options`` as for :func:`draw_map`.
+    """
     fig = new_figure(size, caption=caption)
     grid, strip = _with_strip(fig)
-    drawn = draw_map(
-        fig.add_subplot(grid[0]),
-        field_map,
-        levels_db=levels_db,
-        near_field=near_field,
-        depths=depths,
-        units=units,
-        legend=False,
-        axial_maximum=axial_maximum,
-        near_label=near_label,
-        axis_label=axis_label,
-    )
+    drawn = draw_map(fig.add_subplot(grid[0]), field_map, legend=False, **options)
     _strip_legend(strip, drawn.handles)
     return fig
 
 
-def plot_map(
-    field_map,
-    path,
-    *,
-    levels_db=(6.0, 20.0),
-    near_field: float | None = None,
-    depths: Sequence[float] = (),
-    caption: str = "",
-    units: str = "mm",
-    axial_maximum: float | None = None,
-    near_label: str = "near field",
-    axis_label: str = "depth from the probe face",
-) -> Path:
+def plot_map(field_map, path, **options) -> Path:
     """Draw the beam map (see :func:`draw_map`) to ``path``; return the path.
+
+    ``options``: ``caption`` and ``size`` (:func:`map_figure`), and those of
+    :func:`draw_map`.
 
     Raises
     ------
@@ -274,18 +240,4 @@ def plot_map(
         An unknown suffix, a missing folder, unknown units, a level outside
         (0, 40) dB, or a map with fewer than 2 points a side.
     """
-    check_target(path)
-    return save_figure(
-        map_figure(
-            field_map,
-            levels_db=levels_db,
-            near_field=near_field,
-            depths=depths,
-            caption=caption,
-            units=units,
-            axial_maximum=axial_maximum,
-            near_label=near_label,
-            axis_label=axis_label,
-        ),
-        path,
-    )
+    return write_figure(path, map_figure, field_map, **options)

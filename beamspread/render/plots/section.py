@@ -13,16 +13,14 @@ from .figure import (
     _PALETTE,
     _STYLES,
     FIGSIZE,
-    _length,
-    _level_text,
     _line,
-    _scale,
     _strip_legend,
     _with_strip,
     check_target,
     new_figure,
     save_figure,
 )
+from .scales import _length, _level_text, _scale
 from .section_geometry import SectionGeometry, _trace_section
 
 if TYPE_CHECKING:

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import textwrap
+from collections.abc import Sequence
 
 from ...beam import BeamResult, level_key
 from ...conventions import Coupling
@@ -72,13 +73,16 @@ def beam_table(
     figures=None,
     budgets=None,
     sonar: bool = False,
+    setup: Sequence[str] = (),
 ) -> str:
     """The human-readable report of ``beamspread beam`` (with its sonar figures if given).
 
-    A focused probe's result has no far-field width: its widths come from its
-    computed field alone, and the notes under the width table say so.
+    ``setup`` holds the lines that describe a wedge or a water path, shown
+    under the probe and medium lines. A focused probe's result has no
+    far-field width: its widths come from its computed field alone, and the
+    notes under the width table say so.
     """
-    out: list[str] = medium_and_probe_lines(result.probe, result.wave, units, "Beam of a")
+    out = [*medium_and_probe_lines(result.probe, result.wave, units, "Beam of a"), *setup]
     out.append("")
     near = result.near_field
     contact = result.coupling is Coupling.CONTACT and result.focus is None

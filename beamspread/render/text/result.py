@@ -14,10 +14,8 @@ def result_table(result, units: str = "mm") -> str:
     if result.setup is None:
         options = result.sonar.table_options(result.technique.sonar.conventions)
         return beam_table(result.beam, units, **options)
-    table = beam_table(result.beam, units).split("\n")
-    head = 3 if table[2].startswith(" ") else 2  # after the probe and medium lines
     shown = setup_lines(result.setup, setup_shown(result), units)
-    return "\n".join(table[:head] + shown + table[head:])
+    return beam_table(result.beam, units, setup=shown)
 
 
 def setup_shown(result) -> dict:
