@@ -121,13 +121,12 @@ def _read_setup(ctx: click.Context, param, path):
 _READ_AS = {"report": "beam"}  # report reads a setup file as beam's options
 
 
-def _setup_readers() -> list[str]:
-    """The commands that read setup files."""
-    from . import _COMMANDS, cli
-
+def _setup_readers(root: click.Context) -> list[str]:
+    """The commands of the root context's group that read setup files."""
+    group = root.command
     names = []
-    for other in sorted(_COMMANDS):
-        command = cli.get_command(None, _READ_AS.get(other, other))
+    for other in group.list_commands(root):
+        command = group.get_command(root, _READ_AS.get(other, other))
         if any(p.name == "setup_path" for p in command.params):
             names.append(other)
     return names
@@ -145,7 +144,7 @@ def refusal(error: click.NoSuchOption) -> str | None:
     while ctx.parent.parent is not None:  # the command under beamspread (materials, not list)
         ctx = ctx.parent
     name = ctx.info_name
-    readers = _setup_readers()
+    readers = _setup_readers(ctx.find_root())
     writers = [n for n in readers if n not in _READ_AS]
     verb, names = ("read", readers) if option == _SETUP else ("written", writers)
     others = f"setup files are {verb} by {_listed(names, 'and')}"
