@@ -111,10 +111,14 @@ def _edge_nodes(half_long: float, half_short: float, k: float):
     phi1 = 0.5 * corner * (x + 1.0)
     phi2 = corner + 0.5 * (0.5 * np.pi - corner) * (x + 1.0)
     rho = np.concatenate([half_long / np.cos(phi1), half_short / np.sin(phi2)])
-    weights = np.concatenate([0.5 * corner * w, 0.5 * (0.5 * np.pi - corner) * w])
-    rho.flags.writeable = False
-    weights.flags.writeable = False
-    return rho, weights
+    return _read_only(rho, np.concatenate([0.5 * corner * w, 0.5 * (0.5 * np.pi - corner) * w]))
+
+
+def _read_only(*arrays: np.ndarray) -> tuple[np.ndarray, ...]:
+    """``arrays``, made read-only (they are kept in a cache and shared)."""
+    for array in arrays:
+        array.flags.writeable = False
+    return arrays
 
 
 def rectangle_axial_pressure(
@@ -137,13 +141,25 @@ def rectangle_axial_pressure(
     :math:`1 - e^{-i\\theta} = 2i\\sin(\\theta/2)e^{-i\\theta/2}` is used so
     that nothing cancels far from the face.
     """
+    return _edge_integral(z, length, width, wavelength, _rectangle_nodes)
+
+
+def _rectangle_nodes(half_x: float, half_y: float, k: float):
+    return _edge_nodes(max(half_x, half_y), min(half_x, half_y), k)
+
+
+def _edge_integral(z, length, width, wavelength, nodes) -> np.ndarray:
+    """The polar integral to the edge (module notes) over the quarter ``nodes`` gives.
+
+    ``nodes(half_length, half_width, k)`` returns the edge distances and the
+    weights of one quarter of the face; symmetry gives the other three.
+    """
     length = check_positive(length, "length", "m")
     width = check_positive(width, "width", "m")
     wavelength = check_positive(wavelength, "wavelength", "m")
     z = np.asarray(z, dtype=float)
     k = 2.0 * np.pi / wavelength
-    half_long, half_short = 0.5 * max(length, width), 0.5 * min(length, width)
-    rho, weights = _edge_nodes(half_long, half_short, k)
+    rho, weights = nodes(0.5 * length, 0.5 * width, k)
     zz = z[..., None]
     theta = k * rho * rho / (np.sqrt(zz * zz + rho * rho) + zz)  # k (R - z)
     half = 0.5 * theta
@@ -224,10 +240,7 @@ def _ellipse_nodes(half_x: float, half_y: float, k: float):
     x, w = np.polynomial.legendre.leggauss(n)
     phi = 0.25 * np.pi * (x + 1.0)
     rho = half_x * half_y / np.hypot(half_y * np.cos(phi), half_x * np.sin(phi))
-    weights = 0.25 * np.pi * w
-    rho.flags.writeable = False
-    weights.flags.writeable = False
-    return rho, weights
+    return _read_only(rho, 0.25 * np.pi * w)
 
 
 def ellipse_axial_pressure(
@@ -238,19 +251,7 @@ def ellipse_axial_pressure(
     The same polar integral to the edge as :func:`rectangle_axial_pressure`
     (module notes), with the ellipse's edge distance.
     """
-    length = check_positive(length, "length", "m")
-    width = check_positive(width, "width", "m")
-    wavelength = check_positive(wavelength, "wavelength", "m")
-    z = np.asarray(z, dtype=float)
-    k = 2.0 * np.pi / wavelength
-    rho, weights = _ellipse_nodes(0.5 * length, 0.5 * width, k)
-    zz = z[..., None]
-    theta = k * rho * rho / (np.sqrt(zz * zz + rho * rho) + zz)  # k (R - z)
-    half = 0.5 * theta
-    s = np.sin(half)
-    re = (2.0 * s * np.sin(half)) @ weights
-    im = (2.0 * s * np.cos(half)) @ weights
-    return (4.0 / (2.0 * np.pi)) * np.hypot(re, im)
+    return _edge_integral(z, length, width, wavelength, _ellipse_nodes)
 
 
 @lru_cache(maxsize=1024)
