@@ -328,17 +328,13 @@ def air_density_humid(temperature, humidity=0.0, pressure=101.325, co2=0.0314):
 # other equations)", J. Acoust. Soc. Am. 56, 1084 (1974): the NRL II coefficients, IPTS-68
 # temperature, pressure in kg/cm2 gauge. Checked against two independent copies (several
 # circulating copies carry typos, and the ITS-90 refit of Wong & Zhu 1995 is a different set).
-# Keys: the powers of (T, S, P) of each term.
-_DEL_GROSSO = {
-    (0, 0, 0): 1402.392,
-    (1, 0, 0): 0.5012285e1,
-    (2, 0, 0): -0.551184e-1,
-    (3, 0, 0): 0.221649e-3,
-    (0, 1, 0): 0.1329530e1,
-    (0, 2, 0): 0.1288598e-3,
-    (0, 0, 1): 0.1560592,
-    (0, 0, 2): 0.2449993e-4,
-    (0, 0, 3): -0.8833959e-8,
+# As the paper groups them: C000, then the terms in T, S and P alone (coefficients of the first,
+# second and third powers), then the cross terms keyed by their powers of (T, S, P).
+_C000 = 1402.392
+_C_T = (0.5012285e1, -0.551184e-1, 0.221649e-3)
+_C_S = (0.1329530e1, 0.1288598e-3)
+_C_P = (0.1560592, 0.2449993e-4, -0.8833959e-8)
+_C_STP = {
     (1, 1, 0): -0.1275936e-1,
     (1, 0, 1): 0.6353509e-2,
     (2, 0, 2): 0.2656174e-7,
@@ -349,6 +345,14 @@ _DEL_GROSSO = {
     (2, 1, 0): 0.9688441e-4,
     (1, 2, 1): 0.4857614e-5,
     (1, 1, 1): -0.3406824e-3,
+}
+# Every term keyed by its powers of (T, S, P), in the paper's order (the order of the sum).
+_DEL_GROSSO = {
+    (0, 0, 0): _C000,
+    **{(n, 0, 0): c for n, c in enumerate(_C_T, 1)},
+    **{(0, n, 0): c for n, c in enumerate(_C_S, 1)},
+    **{(0, 0, n): c for n, c in enumerate(_C_P, 1)},
+    **_C_STP,
 }
 _DBAR_PER_KGF_CM2 = 9.80665  # 1 kgf/cm2 = 98066.5 Pa
 
