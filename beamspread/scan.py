@@ -40,6 +40,7 @@ __all__ = [
     "RULE",
     "ScanPlan",
     "check_overlap",
+    "depth_widths",
     "far_field_widths",
     "field_widths",
     "index_step",
@@ -206,48 +207,70 @@ def scan_depths(start: float, stop: float, count: int) -> np.ndarray:
     return np.linspace(start, stop, int(count))
 
 
-def field_widths(
+def depth_widths(
     probe,
     speed: float,
     start: float,
     stop: float,
     *,
+    method: str = "field",
     count: int = 16,
     level_db: float = 6.0,
     plane: str | None = None,
-    refine: bool = True,
-    bandwidth: float = 0.0,
     mode: str = "pulse-echo",
-    frequencies: int = 32,
-    spectrum: str = "gaussian",
+    **field,
 ) -> dict[float, float]:
-    """Beam widths of the computed field over a depth range, m, by depth (m).
+    """Beam widths over a depth range, m, by depth (m): computed or far-field.
 
-    ``count`` depths from ``start`` to ``stop`` (:func:`scan_depths`), each
-    width from :func:`beamspread.field.beam_widths` (NaN where the level is
-    not reached). With ``refine``, the narrowest sample is refined by a
-    golden-section search between its neighbours, and that depth added, so
-    that the governing width does not depend on the sampling.
+    ``count`` depths from ``start`` to ``stop`` (:func:`scan_depths`).
+    ``method`` ``"field"``: each width from
+    :func:`beamspread.field.beam_widths` (NaN where the level is not reached);
+    the keywords ``refine`` (default True), ``bandwidth``, ``frequencies`` and
+    ``spectrum`` go to the field. With ``refine``, the narrowest sample is
+    refined by a golden-section search between its neighbours, and that depth
+    added, so that the governing width does not depend on the sampling.
+
+    ``method`` ``"far-field"``: the cone ``2 z tan(theta)``. It widens with
+    depth, so the first depth governs; it does not hold in the near field
+    (the computed field does). NaN where the pattern has no half-angle at the
+    level.
     """
+    plane = plane_name(check_element(probe), plane)
+    if method == "field":
+        return _field_widths(probe, speed, start, stop, count, level_db, plane, mode, **field)
+    if method == "far-field":
+        speed = check_positive(speed, "speed", "m/s")
+        theta = float(probe.half_angle(level_db, speed / probe.frequency, mode, plane))
+        depths = scan_depths(start, stop, count)
+        return {float(d): 2.0 * float(d) * math.tan(theta) for d in dict.fromkeys(depths.tolist())}
+    raise InputError(f"method: {method!r} is unknown; use field or far-field")
+
+
+def field_widths(probe, speed: float, start: float, stop: float, **options) -> dict[float, float]:
+    """:func:`depth_widths` of the computed field."""
+    return depth_widths(probe, speed, start, stop, method="field", **options)
+
+
+def far_field_widths(probe, speed: float, start: float, stop: float, **options):
+    """:func:`depth_widths` of the far-field cone."""
+    return depth_widths(probe, speed, start, stop, method="far-field", **options)
+
+
+def _field_widths(
+    probe, speed, start, stop, count, level_db, plane, mode, *, refine=True, **spectrum
+) -> dict[float, float]:
+    """The computed widths of :func:`depth_widths`; ``spectrum``: the pulse's keywords."""
     from .field import beam_widths
 
-    plane = plane_name(check_element(probe), plane)
-    kwargs = {
-        "plane": plane,
-        "bandwidth": bandwidth,
-        "mode": mode,
-        "frequencies": frequencies,
-        "spectrum": spectrum,
-    }
-
     def width(depth: float) -> float:
-        return float(beam_widths(probe, speed, depth, [level_db], **kwargs)[0].width)
+        widths = beam_widths(probe, speed, depth, [level_db], plane=plane, mode=mode, **spectrum)
+        return float(widths[0].width)
 
     return _sampled(width, start, stop, count, refine)
 
 
 def _sampled(width, start: float, stop: float, count: int, refine: bool) -> dict[float, float]:
-    """``width(depth)`` at ``count`` depths, m, the narrowest refined (:func:`field_widths`)."""
+    """``width(depth)`` at ``count`` depths, m, the narrowest refined (:func:`depth_widths`)."""
     from ._search import golden_max
 
     depths = scan_depths(start, stop, count)
@@ -265,30 +288,6 @@ def _sampled(width, start: float, stop: float, count: int, refine: bool) -> dict
     return out
 
 
-def far_field_widths(
-    probe,
-    speed: float,
-    start: float,
-    stop: float,
-    *,
-    count: int = 16,
-    level_db: float = 6.0,
-    plane: str | None = None,
-    mode: str = "pulse-echo",
-) -> dict[float, float]:
-    """Far-field widths ``2 z tan(theta)`` over a depth range, m, by depth (m).
-
-    The far-field cone widens with depth, so the first depth governs; it
-    does not hold in the near field (use :func:`field_widths` there). NaN
-    where the pattern has no half-angle at the level.
-    """
-    plane = plane_name(check_element(probe), plane)
-    speed = check_positive(speed, "speed", "m/s")
-    theta = float(probe.half_angle(level_db, speed / probe.frequency, mode, plane))
-    depths = scan_depths(start, stop, count)
-    return {float(d): 2.0 * float(d) * math.tan(theta) for d in dict.fromkeys(depths.tolist())}
-
-
 def plan_scan_for(
     probe,
     speed: float,
@@ -303,10 +302,10 @@ def plan_scan_for(
     mode: str = "pulse-echo",
     **field,
 ) -> ScanPlan:
-    """:func:`plan_scan` over widths from :func:`field_widths` or :func:`far_field_widths`.
+    """:func:`plan_scan` over the widths of :func:`depth_widths`.
 
     ``method`` is ``"field"`` (the computed field, near field included; extra
-    keywords go to :func:`field_widths`) or ``"far-field"``.
+    keywords go to the field) or ``"far-field"``.
 
     The plan carries the probe's near field in the medium. Far-field widths
     inside it are marked invalid and warned about (the cone does not hold
@@ -325,24 +324,18 @@ def plan_scan_for(
     check_overlap(overlap)
     plane = plane_name(check_element(probe), plane)
     speed = check_positive(speed, "speed", "m/s")
-    if method == "field":
-        widths = field_widths(
-            probe,
-            speed,
-            start,
-            stop,
-            count=count,
-            level_db=level_db,
-            plane=plane,
-            mode=mode,
-            **field,
-        )
-    elif method == "far-field":
-        widths = far_field_widths(
-            probe, speed, start, stop, count=count, level_db=level_db, plane=plane, mode=mode
-        )
-    else:
-        raise InputError(f"method: {method!r} is unknown; use field or far-field")
+    widths = depth_widths(
+        probe,
+        speed,
+        start,
+        stop,
+        method=method,
+        count=count,
+        level_db=level_db,
+        plane=plane,
+        mode=mode,
+        **field,
+    )
     plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
     near, near_simple = _near_field(probe, speed / probe.frequency)
     return _with_near_field(plan, near, near_simple)
