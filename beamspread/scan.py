@@ -12,8 +12,8 @@ plane across the passes) over the depths and :math:`f` the overlap fraction
 (common practice; codes and procedures commonly ask for 10 % to 25 %). The
 depth where the beam is narrowest governs.
 
-Widths come from the computed field (near field included) or from the
-far-field cone :math:`2 z \tan\theta`. The cone does not hold inside the
+Widths (:mod:`beamspread.depthwidths`) come from the computed field (near
+field included) or from the far-field cone :math:`2 z \tan\theta`. The cone does not hold inside the
 near field, and it only widens with depth, so when the range starts inside
 the near field the step is set there by a width that does not hold. Such a
 plan is still made (as ``beam`` still gives a far-field spot there), but each
@@ -30,10 +30,16 @@ import re
 from collections.abc import Mapping
 from dataclasses import dataclass, replace
 
-import numpy as np
-
+from .depthwidths import (
+    DepthWidths,
+    depth_widths,
+    far_field_widths,
+    field_widths,
+    sample_widths,
+    scan_depths,
+)
 from .errors import InputError
-from .probes import check_element, check_positive, plane_name
+from .probes import check_positive
 from .units import length_text as _mm
 
 __all__ = [
@@ -51,8 +57,6 @@ __all__ = [
 ]
 
 RULE = "index step = narrowest beam width over the depths x (1 - overlap) (common practice)"
-
-MAX_DEPTHS = 2000
 
 
 @dataclass(frozen=True)
@@ -128,20 +132,15 @@ def parse_overlap(value) -> float:
     return check_overlap(value)
 
 
-def plan_scan(
-    widths_by_depth: Mapping[float, float | None],
-    overlap,
-    *,
-    level_db: float | None = None,
-    plane: str | None = None,
-    method: str = "given",
-) -> ScanPlan:
+def plan_scan(widths_by_depth: Mapping[float, float | None], overlap) -> ScanPlan:
     """The largest index step keeping ``overlap`` between passes over the depths given.
 
     Parameters
     ----------
     widths_by_depth : mapping
-        Depth (m, above 0) -> full beam width there (m, above 0), across the passes.
+        Depth (m, above 0) -> full beam width there (m, above 0), across the
+        passes. A :class:`~beamspread.depthwidths.DepthWidths` also gives the
+        plan its level, plane and method; any other mapping is ``"given"``.
     overlap : float
         Fraction of the beam width neighbouring passes share, 0 <= overlap < 1.
 
@@ -179,133 +178,23 @@ def plan_scan(
         overlap=f,
         depths=tuple(p[0] for p in pairs),
         widths=tuple(p[1] for p in pairs),
-        level_db=None if level_db is None else abs(float(level_db)),
-        plane=plane,
-        method=method,
+        **_described(widths_by_depth),
     )
 
 
-def scan_depths(start: float, stop: float, count: int) -> np.ndarray:
-    """``count`` evenly spaced depths from ``start`` to ``stop`` inclusive, m."""
-    start = check_positive(start, "first depth", "m")
-    stop = check_positive(stop, "last depth", "m")
-    if stop < start:
-        raise InputError(
-            f"depth range: the last depth {stop * 1e3:g} mm lies before the first "
-            f"{start * 1e3:g} mm"
-        )
-    if (
-        isinstance(count, bool)
-        or not isinstance(count, (int, np.integer))
-        or not (1 <= count <= MAX_DEPTHS)
-    ):
-        raise InputError(
-            f"depths: {count!r} is not allowed; give a whole number from 1 to {MAX_DEPTHS}"
-        )
-    if count == 1 or stop == start:
-        return np.array([start] * (1 if stop == start else count))
-    return np.linspace(start, stop, int(count))
+def _described(widths) -> dict:
+    """The plan's level, plane and method from ``widths`` where it says them."""
+    if not isinstance(widths, DepthWidths):
+        return {}
+    return {"level_db": abs(float(widths.level_db)), "plane": widths.plane, "method": widths.method}
 
 
-def depth_widths(
-    probe,
-    speed: float,
-    start: float,
-    stop: float,
-    *,
-    method: str = "field",
-    count: int = 16,
-    level_db: float = 6.0,
-    plane: str | None = None,
-    mode: str = "pulse-echo",
-    **field,
-) -> dict[float, float]:
-    """Beam widths over a depth range, m, by depth (m): computed or far-field.
+def plan_scan_for(probe, speed: float, start: float, stop: float, overlap, **options) -> ScanPlan:
+    """:func:`plan_scan` over the widths of :func:`depth_widths`, with the near field.
 
-    ``count`` depths from ``start`` to ``stop`` (:func:`scan_depths`).
-    ``method`` ``"field"``: each width from
-    :func:`beamspread.field.beam_widths` (NaN where the level is not reached);
-    the keywords ``refine`` (default True), ``bandwidth``, ``frequencies`` and
-    ``spectrum`` go to the field. With ``refine``, the narrowest sample is
-    refined by a golden-section search between its neighbours, and that depth
-    added, so that the governing width does not depend on the sampling.
-
-    ``method`` ``"far-field"``: the cone ``2 z tan(theta)``. It widens with
-    depth, so the first depth governs; it does not hold in the near field
-    (the computed field does). NaN where the pattern has no half-angle at the
-    level.
-    """
-    plane = plane_name(check_element(probe), plane)
-    if method == "field":
-        return _field_widths(probe, speed, start, stop, count, level_db, plane, mode, **field)
-    if method == "far-field":
-        speed = check_positive(speed, "speed", "m/s")
-        theta = float(probe.half_angle(level_db, speed / probe.frequency, mode, plane))
-        depths = scan_depths(start, stop, count)
-        return {float(d): 2.0 * float(d) * math.tan(theta) for d in dict.fromkeys(depths.tolist())}
-    raise InputError(f"method: {method!r} is unknown; use field or far-field")
-
-
-def field_widths(probe, speed: float, start: float, stop: float, **options) -> dict[float, float]:
-    """:func:`depth_widths` of the computed field."""
-    return depth_widths(probe, speed, start, stop, method="field", **options)
-
-
-def far_field_widths(probe, speed: float, start: float, stop: float, **options):
-    """:func:`depth_widths` of the far-field cone."""
-    return depth_widths(probe, speed, start, stop, method="far-field", **options)
-
-
-def _field_widths(
-    probe, speed, start, stop, count, level_db, plane, mode, *, refine=True, **spectrum
-) -> dict[float, float]:
-    """The computed widths of :func:`depth_widths`; ``spectrum``: the pulse's keywords."""
-    from .field import beam_widths
-
-    def width(depth: float) -> float:
-        widths = beam_widths(probe, speed, depth, [level_db], plane=plane, mode=mode, **spectrum)
-        return float(widths[0].width)
-
-    return _sampled(width, start, stop, count, refine)
-
-
-def _sampled(width, start: float, stop: float, count: int, refine: bool) -> dict[float, float]:
-    """``width(depth)`` at ``count`` depths, m, the narrowest refined (:func:`depth_widths`)."""
-    from ._search import golden_max
-
-    depths = scan_depths(start, stop, count)
-    out = {float(d): width(float(d)) for d in dict.fromkeys(depths.tolist())}
-    found = {d: w for d, w in out.items() if math.isfinite(w)}
-    if refine and len(found) == len(out) and len(out) >= 3:
-        keys = list(out)
-        i = min(range(len(keys)), key=lambda k: out[keys[k]])
-        lo, hi = keys[max(0, i - 1)], keys[min(len(keys) - 1, i + 1)]
-        best = golden_max(lambda z: -width(z), lo, hi, 1e-6 * hi)
-        w = width(best)
-        if math.isfinite(w) and w < out[keys[i]]:
-            out[best] = w
-        out = dict(sorted(out.items()))
-    return out
-
-
-def plan_scan_for(
-    probe,
-    speed: float,
-    start: float,
-    stop: float,
-    overlap,
-    *,
-    count: int = 16,
-    level_db: float = 6.0,
-    plane: str | None = None,
-    method: str = "field",
-    mode: str = "pulse-echo",
-    **field,
-) -> ScanPlan:
-    """:func:`plan_scan` over the widths of :func:`depth_widths`.
-
-    ``method`` is ``"field"`` (the computed field, near field included; extra
-    keywords go to the field) or ``"far-field"``.
+    ``options`` are those of :func:`depth_widths`: ``method`` ``"field"`` (the
+    computed field, near field included, the default) or ``"far-field"``, the
+    depth count, level, plane and mode, and the field's keywords.
 
     The plan carries the probe's near field in the medium. Far-field widths
     inside it are marked invalid and warned about (the cone does not hold
@@ -322,21 +211,8 @@ def plan_scan_for(
     'depths 10 mm to 20.67 mm lie inside the near field (20.82 mm)'
     """
     check_overlap(overlap)
-    plane = plane_name(check_element(probe), plane)
     speed = check_positive(speed, "speed", "m/s")
-    widths = depth_widths(
-        probe,
-        speed,
-        start,
-        stop,
-        method=method,
-        count=count,
-        level_db=level_db,
-        plane=plane,
-        mode=mode,
-        **field,
-    )
-    plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
+    plan = plan_scan(depth_widths(probe, speed, start, stop, **options), overlap)
     near, near_simple = _near_field(probe, speed / probe.frequency)
     return _with_near_field(plan, near, near_simple)
 
@@ -404,7 +280,7 @@ def index_step(
             found = source.widths(at, [level_db], plane, result.mode, result.settings)
             return float(found[0].width)
 
-        widths = _sampled(width, start, stop, count, refine)
+        widths = sample_widths(width, start, stop, count, refine)
     elif method == "far-field":
         depths = tuple(dict.fromkeys(scan_depths(start, stop, count).tolist()))
         technique = result.technique.with_request(depths=depths, levels=(level_db,), pulse=None)
@@ -413,7 +289,7 @@ def index_step(
         widths = {s.depth: s.width for s in spots if s.leg == 1}
     else:
         raise InputError(f"method: {method!r} is unknown; use field or far-field")
-    plan = plan_scan(widths, overlap, level_db=level_db, plane=plane, method=method)
+    plan = plan_scan(DepthWidths(widths, level_db, plane, method), overlap)
     return _with_near_field(plan, result.beam.near_field, result.beam.near_field_simple)
 
 
