@@ -21,6 +21,7 @@ from .axis import (
     simple_near_field,
 )
 from .beam import (
+    Asked,
     BeamResult,
     Convention,
     FieldSettings,
@@ -93,6 +94,7 @@ if TYPE_CHECKING:
 __version__ = "0.1.0"
 
 __all__ = [
+    "Asked",
     "AxialProfile",
     "BeamResult",
     "BeamWidth",

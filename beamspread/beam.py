@@ -24,6 +24,7 @@ from .units import parse_level, positive_numbers
 __all__ = [
     "DEFAULT_BANDWIDTH",
     "DEFAULT_LEVELS",
+    "Asked",
     "BeamResult",
     "Convention",
     "FieldSettings",
@@ -89,6 +90,22 @@ class FieldSettings:
         "spectral RMS of the echo of a small reflector at the point (pulse-echo), "
         "or of the transmitted pulse there (one-way)"
     )
+
+
+@dataclass(frozen=True)
+class Asked:
+    """What a beam is asked for, as the keywords of :func:`analyse` say it.
+
+    ``depths`` (m), ``levels`` (dB below the peak), ``mode`` (``"pulse-echo"``
+    or ``"one-way"``) and ``field``, the computed field's settings (None: the
+    far field only). The couplings (:func:`beamspread.analyse_wedge`,
+    :func:`beamspread.analyse_immersion`) take it whole.
+    """
+
+    depths: Sequence[float] = ()
+    levels: Sequence[float | str] = DEFAULT_LEVELS
+    mode: str = "pulse-echo"
+    field: FieldSettings | None = None
 
 
 @dataclass(frozen=True)

@@ -12,7 +12,7 @@ from __future__ import annotations
 from dataclasses import dataclass, replace
 from typing import Any
 
-from .beam import FieldSettings, analyse
+from .beam import Asked, FieldSettings, analyse
 from .conventions import Coupling, Mode
 from .errors import InputError
 from .media.resolve import Resolved, named_wave, resolve_part
@@ -210,11 +210,8 @@ def _wedge(registry, *, technique, part, mode, settings) -> Result:
         c_long,
         c_shear,
         Wedge(speed, w.path or 0.0, w.incident, w.refracted, name),
+        Asked(t.request.depths, t.levels, mode, settings),
         thickness=t.thickness,
-        depths=t.request.depths,
-        levels=t.levels,
-        mode=mode,
-        field=settings,
     )
     warnings = list(dict.fromkeys([*warnings, *setup.warnings]))
     names = tuple(
@@ -266,11 +263,8 @@ def _immersion(registry, *, technique, part, mode, settings) -> Result:
         _flat(element),
         part.wave,
         water,
+        Asked(t.request.depths, t.levels, mode, settings),
         focus=None if element.focus is None else Focus(element.focus),
-        depths=t.request.depths,
-        levels=t.levels,
-        mode=mode,
-        field=settings,
     )
     warnings = list(dict.fromkeys([*warnings, *setup.warnings]))
     names = tuple((name, name) for name, _ in element.planes)

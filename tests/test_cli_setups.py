@@ -170,9 +170,8 @@ def test_computed_footprint_is_where_the_computed_edges_cross_the_depth(run):
         CL,
         CS,
         beamspread.Wedge(ACRYLIC, 0.010, refracted=beta),
+        beamspread.Asked(depths=[0.010], field=settings),
         thickness=0.020,
-        depths=[0.010],
-        field=settings,
     )
     offset = 0.010 * ACRYLIC / CS
     for p in (p for p in result.footprints if p.method == "field"):

@@ -32,8 +32,8 @@ import numpy as np
 
 from .. import setups
 from ..beam import (
+    Asked,
     BeamResult,
-    FieldSettings,
     FieldSummary,
     PlaneResult,
     analyse,
@@ -75,17 +75,16 @@ def analyse_immersion(
     probe: Disc | Rectangle,
     part: Wave,
     water: WaterPath,
+    asked: Asked | None = None,
     *,
     focus: Focus | None = None,
-    depths=(),
-    levels=(6.0, 20.0),
-    mode: str = "pulse-echo",
-    field: FieldSettings | None = None,
 ) -> SetupResult:
     """The beam in the part of an immersion probe at normal incidence, optionally focused.
 
     The water path may be 0 (a focus directly in the couplant with ``part``
-    the couplant itself). See the module notes for the model.
+    the couplant itself). ``asked``: the depths (below the part's surface),
+    levels, mode and computed field, as for :func:`beamspread.analyse_wedge`.
+    See the module notes for the model.
 
     Raises
     ------
@@ -93,6 +92,8 @@ def analyse_immersion(
         A water path below 0 or over 2 m, a focus at or behind the element
         (not beyond its radius), a focus on a rectangle.
     """
+    asked = asked or Asked()
+    depths, levels, mode, field = asked.depths, asked.levels, asked.mode, asked.field
     check_element(probe, probe=True)
     wp = float(water.path)
     if not math.isfinite(wp) or wp < 0 or wp > MAX_WATER_PATH:

@@ -30,7 +30,7 @@ from dataclasses import dataclass, replace
 import numpy as np
 
 from .. import setups
-from ..beam import FieldSettings, FieldSummary, PlaneResult, Spot, beam_result, level_key
+from ..beam import Asked, FieldSummary, PlaneResult, Spot, beam_result, level_key
 from ..errors import InputError
 from ..media.quantities import Wave
 from ..probes import Disc, Rectangle, check_element, check_positive
@@ -66,12 +66,9 @@ def analyse_wedge(
     c_longitudinal: float,
     c_shear: float | None,
     wedge: Wedge,
+    asked: Asked | None = None,
     *,
     thickness: float | None = None,
-    depths=(),
-    levels=(6.0, 20.0),
-    mode: str = "pulse-echo",
-    field: FieldSettings | None = None,
 ) -> SetupResult:
     """The beam in the part of a contact probe on an angle-beam wedge.
 
@@ -86,8 +83,9 @@ def analyse_wedge(
     wedge : Wedge
     thickness : float, optional
         Part thickness, m: each depth then gets the first and the second leg.
-    depths, levels, mode, field
-        As :func:`beamspread.analyse`; depths are below the scanning surface.
+    asked : Asked, optional
+        Depths (below the scanning surface), levels, mode and the computed
+        field; the default asks for the 6 and 20 dB far-field beam, pulse-echo.
 
     Raises
     ------
@@ -95,6 +93,8 @@ def analyse_wedge(
         Angles outside [0, 90) degrees or past critical for the mode, a
         refracted angle no incident angle reaches, a depth below the part.
     """
+    asked = asked or Asked()
+    depths, levels, mode, field = asked.depths, asked.levels, asked.mode, asked.field
     check_element(probe, probe=True)
     check_positive(wedge.speed, "wedge speed", "m/s")
     if not (math.isfinite(wedge.path) and wedge.path >= 0):

@@ -16,7 +16,7 @@ import sys
 import time
 from pathlib import Path
 
-from beamspread.beam import FieldSettings
+from beamspread.beam import Asked, FieldSettings
 from beamspread.coupling.immersion import Focus, WaterPath, analyse_immersion
 from beamspread.media.quantities import Wave
 from beamspread.probes import Disc
@@ -64,9 +64,8 @@ def main() -> None:
         for focus in (Focus(0.075), None):
 
             def job(focus=focus, count=count):
-                analyse_immersion(
-                    probe, part, water, focus=focus, depths=DEPTHS[:count], field=FieldSettings()
-                )
+                asked = Asked(depths=DEPTHS[:count], field=FieldSettings())
+                analyse_immersion(probe, part, water, asked, focus=focus)
 
             out.append(
                 {
