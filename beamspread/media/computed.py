@@ -8,13 +8,22 @@ from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 
 from ..errors import InputError, MaterialError
-from .quantities import NAME_PATTERN, STATES, Absorption, Parameter, Wave, check_wave, of_wave
+from .quantities import (
+    NAME_PATTERN,
+    STATES,
+    Absorption,
+    Listing,
+    Parameter,
+    Wave,
+    check_wave,
+    of_wave,
+)
 
 SpeedFunction = Callable[..., float]
 
 
 @dataclass(frozen=True)
-class ComputedMedium:
+class ComputedMedium(Listing):
     """A medium whose speed comes from an equation in its conditions.
 
     Parameters
@@ -33,7 +42,8 @@ class ComputedMedium:
     density : callable, optional
         ``f(**conditions) -> kg/m3``.
     density_source : str, optional
-    aliases, description : optional
+    aliases, category, description, note : optional, keywords only
+        As :class:`~beamspread.media.quantities.Listing`.
     absorption : callable, optional
         ``f(frequency, **conditions) -> dB/km``: the absorption coefficient at
         ``frequency`` (Hz), called with every parameter and absorption
@@ -70,10 +80,6 @@ class ComputedMedium:
     shear: SpeedFunction | None = None
     density: SpeedFunction | None = None
     density_source: str | None = None
-    aliases: tuple[str, ...] = ()
-    description: str | None = None
-    category: str | None = None
-    note: str | None = None
     absorption: Callable[..., float] | None = None
     absorption_source: str | None = None
     absorption_parameters: tuple[Parameter, ...] = ()

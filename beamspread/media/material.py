@@ -6,14 +6,15 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 
 from ..errors import MaterialError
-from .quantities import Parameter, Value, Wave, check_wave, of_wave
+from .quantities import Listing, Parameter, Value, Wave, check_wave, of_wave
 
 
 @dataclass(frozen=True)
-class Material:
+class Material(Listing):
     """An entry of a material table: constants or temperature curves, each with a source.
 
-    Speeds in m/s, density in kg/m3.
+    Speeds in m/s, density in kg/m3; the listing (aliases, category,
+    description, note) by keyword, as :class:`~beamspread.media.quantities.Listing`.
     """
 
     name: str
@@ -21,10 +22,6 @@ class Material:
     longitudinal: Value
     shear: Value | None = None
     density: Value | None = None
-    aliases: tuple[str, ...] = ()
-    category: str | None = None
-    description: str | None = None
-    note: str | None = None
 
     kind = "table"
 

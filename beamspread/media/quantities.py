@@ -35,6 +35,20 @@ def normalise_name(name: str) -> str:
     return re.sub(r"[\s_/]+", "-", name.strip().lower())
 
 
+@dataclass(frozen=True, kw_only=True)
+class Listing:
+    """How a medium is listed (the base of every kind of medium; keywords only).
+
+    ``aliases``: other names it is found by; ``category`` (metal, plastic,
+    liquid...), a one-line ``description`` and a ``note`` for the listing.
+    """
+
+    aliases: tuple[str, ...] = ()
+    category: str | None = None
+    description: str | None = None
+    note: str | None = None
+
+
 @dataclass(frozen=True)
 class Curve:
     """A quantity tabulated against temperature (degC), interpolated linearly.

@@ -247,7 +247,7 @@ def _material(raw: Any, index: int, ctx: _Context) -> Material:
     for key, value in text.items():
         if value is not None and not isinstance(value, str):
             raise ctx.error("must be a string", name, key)
-    return Material(name, state, longitudinal, shear, density, tuple(aliases), **text)
+    return Material(name, state, longitudinal, shear, density, aliases=tuple(aliases), **text)
 
 
 def parse_table(text: str, path: str = "<table>") -> TableFile:
