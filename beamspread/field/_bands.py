@@ -1,0 +1,67 @@
+"""Depth-banded node tables: fewer boundary nodes for the deeper points of a grid.
+
+The node count of a boundary table (:mod:`._boundary`) is set by the phase
+change along each piece of the boundary at the shallowest depth it serves;
+deeper, the phase changes less and fewer nodes reach the same accuracy. A grid
+of depths is therefore cut into bands growing by ``_RATIO``; each band gets a
+table built for its own shallowest depth (all bands' tables in one call), and
+a band whose table would save less than ``_MERGE`` node evaluations over its
+shallower neighbour's joins that neighbour.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+__all__ = ["banded"]
+
+_RATIO = 1.5  # each band starts this many times deeper than the one before
+_MAX_BANDS = 12
+_MERGE = 16384  # node x depth evaluations a separate band must save
+
+
+def banded(table, lateral, depths, evaluate) -> np.ndarray:
+    """Evaluate lateral rows x ``depths`` band by band; returns shape (rows, depths).
+
+    Parameters
+    ----------
+    table : callable
+        ``table(lateral, z_min)`` returns ``(q, weight, used)`` for lateral
+        positions (a tuple of arrays) and one shallowest depth per row.
+    lateral : tuple of ndarray
+        The distinct lateral positions (each component shape (rows,)).
+    depths : ndarray, shape (D,)
+        Depths, m, above 0, in any order.
+    evaluate : callable
+        ``evaluate(q, weight, used, z)`` with ``z`` of shape (1, d) returns
+        the result on rows x d.
+    """
+    depths = np.asarray(depths, dtype=float).ravel()
+    rows = lateral[0].size
+    order = np.argsort(depths, kind="stable")
+    z = depths[order]
+    edges = z[0] * _RATIO ** np.arange(1, _MAX_BANDS)
+    band = np.searchsorted(edges[edges <= z[-1]], z, side="right")
+    firsts = np.flatnonzero(np.r_[True, band[1:] != band[:-1]])
+    count = firsts.size
+    lows = z[firsts]
+    tiled = tuple(np.tile(component, count) for component in lateral)
+    q, weight, used = table(tiled, np.repeat(lows, rows))
+    used = used.reshape(count, rows)
+    cost = used.sum(axis=1)
+    bounds = np.r_[firsts, z.size]
+    groups = [[0, bounds[0], bounds[1]]]
+    for j in range(1, count):
+        current = groups[-1][0]
+        if (cost[current] - cost[j]) * (bounds[j + 1] - bounds[j]) <= _MERGE:
+            groups[-1][2] = bounds[j + 1]
+        else:
+            groups.append([j, bounds[j], bounds[j + 1]])
+    out = np.empty((rows, depths.size))
+    for j, first, stop in groups:
+        part = slice(j * rows, (j + 1) * rows)
+        width = int(used[j].max(initial=0))
+        out[:, order[first:stop]] = evaluate(
+            q[part, :width], weight[part, :width], used[j], z[None, first:stop]
+        )
+    return out
