@@ -16,23 +16,21 @@ __all__ = ["node_sums"]
 
 _BUDGET = 1 << 18  # elements of one (lateral x depth x node) block: about 1 MB in float32
 _REACH = 8  # stepped phasors go at most this many steps up or down from a seed
+# node x depth evaluations from which stepping pays for its Python loop over wavenumbers
+_STEPPED_FROM = {np.float32: 4096, np.float64: 256}
 _DEPTH_LAST = 1  # depths go last in a block when there are at least this many times the nodes
 
 
 def _row_chunks(used: np.ndarray, depths: int):
     """Rows in order of node count, cut so a block holds at most about _BUDGET elements."""
     order = np.argsort(used, kind="stable")
+    width = np.maximum(used[order], 1)
     start = 0
     while start < order.size:
-        stop = start + 1
-        nodes = max(int(used[order[start]]), 1)
-        while stop < order.size:
-            wider = max(int(used[order[stop]]), 1)
-            if (stop + 1 - start) * depths * wider > _BUDGET:
-                break
-            nodes = wider
-            stop += 1
-        yield order[start:stop], nodes
+        # rows start..i in one block cost (i - start + 1) x depths x width[i], growing with i
+        cost = np.arange(1, order.size - start + 1) * depths * width[start:]
+        stop = start + max(1, int(np.searchsorted(cost, _BUDGET, side="right")))
+        yield order[start:stop], int(width[stop - 1])
         start = stop
 
 
@@ -56,14 +54,15 @@ def node_sums(q, weight, used, z, wavenumbers, dtype, reduce):
     (wavenumbers in ``k_slice``, rows, depths in ``depth_slice``).
     """
     ks = np.asarray(wavenumbers, dtype=float)
+    evaluations = int(used.sum()) * (z.shape[1] if z.shape[0] == 1 else 1)
     stepped = (
-        dtype is np.float32
-        and ks.size > 2
+        ks.size > 2
+        and evaluations >= _STEPPED_FROM[dtype]
         and np.allclose(np.diff(ks), ks[1] - ks[0], rtol=1e-9, atol=0.0)
     )
     with one_blas_thread():
         if stepped:
-            _stepped_sums(q, weight, used, z, ks, reduce)
+            _stepped_sums(q, weight, used, z, ks, dtype, reduce)
         else:
             _direct_sums(q, weight, used, z, ks, dtype, reduce)
 
@@ -141,8 +140,8 @@ def _direct_sums(q, weight, used, z, ks, dtype, reduce):
                 reduce(rows, sl, fs, re.transpose(1, 0, 2), im.transpose(1, 0, 2))
 
 
-def _stepped_sums(q, weight, used, z, ks, reduce):
-    """Evenly spaced wavenumbers in float32: the phasors stepped between them.
+def _stepped_sums(q, weight, used, z, ks, dtype, reduce):
+    """Evenly spaced wavenumbers: the phasors stepped between them.
 
     :math:`e^{-ik\\Delta}` is computed from sin and cos at a seed wavenumber
     in the middle of each run of ``2 _REACH + 1`` and carried to its
@@ -152,11 +151,11 @@ def _stepped_sums(q, weight, used, z, ks, reduce):
     per_row = z.shape[0] != 1
     depths = z.shape[1]
     count = ks.size
-    dtype = np.float32
+    complex_type = np.complex64 if dtype is np.float32 else np.complex128
     runs = _seeds(count)
     real = np.empty((2, _BUDGET), dtype=dtype)
-    phasors = np.empty((4, _BUDGET), dtype=np.complex64)
-    k32 = [dtype(2.0 * dtype(0.5 * k)) for k in ks]
+    phasors = np.empty((4, _BUDGET), dtype=complex_type)
+    k_seed = [dtype(2.0 * dtype(0.5 * k)) for k in ks]
     dk = dtype(ks[1] - ks[0])
     for rows, nodes in _row_chunks(used, 1 if per_row else depths):
         total_weight = weight[rows, :nodes].sum(axis=1)[:, None]
@@ -164,7 +163,7 @@ def _stepped_sums(q, weight, used, z, ks, reduce):
         for d0 in range(0, depths, step):
             sl = slice(d0, min(depths, d0 + step))
             qc, wc, zc, depth_last = _layout(q, weight, z, rows, nodes, sl, per_row, dtype)
-            wz = wc.astype(np.complex64)
+            wz = wc.astype(complex_type)
             dd = zc.shape[-1] if depth_last else zc.shape[1]
             shape = (rows.size, nodes, dd) if depth_last else (rows.size, dd, nodes)
             size = shape[0] * shape[1] * shape[2]
@@ -176,9 +175,9 @@ def _stepped_sums(q, weight, used, z, ks, reduce):
             np.sin(h, out=up.imag)
             np.negative(up.imag, out=up.imag)
             np.conjugate(up, out=down)
-            totals = np.empty((count, rows.size, dd), dtype=np.complex64)
+            totals = np.empty((count, rows.size, dd), dtype=complex_type)
             for first, centre, stop in runs:
-                np.multiply(delta, k32[centre], out=h)
+                np.multiply(delta, k_seed[centre], out=h)
                 np.cos(h, out=seed.real)
                 np.sin(h, out=seed.imag)
                 np.negative(seed.imag, out=seed.imag)
