@@ -4,9 +4,10 @@ The node count of a boundary table (:mod:`._boundary`) is set by the phase
 change along each piece of the boundary at the shallowest depth it serves;
 deeper, the phase changes less and fewer nodes reach the same accuracy. A grid
 of depths is therefore cut into bands growing by ``_RATIO``; each band gets a
-table built for its own shallowest depth (all bands' tables in one call), and
-a band whose table would save less than ``_MERGE`` node evaluations over its
-shallower neighbour's joins that neighbour.
+table built for its own shallowest depth, except that a band whose table would
+save less than ``_MERGE`` node evaluations over its shallower neighbour's
+(judged on ``_SAMPLE`` of the rows) joins that neighbour. The kept bands' tables
+are built in one call.
 """
 
 from __future__ import annotations
@@ -18,6 +19,7 @@ __all__ = ["banded"]
 _RATIO = 1.5  # each band starts this many times deeper than the one before
 _MAX_BANDS = 12
 _MERGE = 16384  # node x depth evaluations a separate band must save
+_SAMPLE = 8  # lateral rows on which the bands' node counts are judged
 
 
 def banded(table, lateral, depths, evaluate) -> np.ndarray:
@@ -43,22 +45,25 @@ def banded(table, lateral, depths, evaluate) -> np.ndarray:
     edges = z[0] * _RATIO ** np.arange(1, _MAX_BANDS)
     band = np.searchsorted(edges[edges <= z[-1]], z, side="right")
     firsts = np.flatnonzero(np.r_[True, band[1:] != band[:-1]])
-    count = firsts.size
-    lows = z[firsts]
-    tiled = tuple(np.tile(component, count) for component in lateral)
-    q, weight, used = table(tiled, np.repeat(lows, rows))
-    used = used.reshape(count, rows)
-    cost = used.sum(axis=1)
     bounds = np.r_[firsts, z.size]
+    lows = z[firsts]
     groups = [[0, bounds[0], bounds[1]]]
-    for j in range(1, count):
-        current = groups[-1][0]
-        if (cost[current] - cost[j]) * (bounds[j + 1] - bounds[j]) <= _MERGE:
+    if lows.size > 1:  # which bands pay for their own table, judged on a few rows
+        sample = np.unique(np.linspace(0, rows - 1, min(rows, _SAMPLE)).round().astype(int))
+        picked = tuple(np.tile(component[sample], lows.size) for component in lateral)
+        cost = table(picked, np.repeat(lows, sample.size))[2].reshape(lows.size, -1)
+        cost = cost.sum(axis=1) * (rows / sample.size)
+    for j in range(1, lows.size):
+        if (cost[groups[-1][0]] - cost[j]) * (bounds[j + 1] - bounds[j]) <= _MERGE:
             groups[-1][2] = bounds[j + 1]
         else:
             groups.append([j, bounds[j], bounds[j + 1]])
+    chosen = lows[[j for j, _, _ in groups]]
+    tiled = tuple(np.tile(component, chosen.size) for component in lateral)
+    q, weight, used = table(tiled, np.repeat(chosen, rows))
+    used = used.reshape(chosen.size, rows)
     out = np.empty((rows, depths.size))
-    for j, first, stop in groups:
+    for j, (_, first, stop) in enumerate(groups):
         part = slice(j * rows, (j + 1) * rows)
         width = int(used[j].max(initial=0))
         out[:, order[first:stop]] = evaluate(

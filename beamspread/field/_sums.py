@@ -158,7 +158,7 @@ def _stepped_sums(q, weight, used, z, ks, dtype, reduce):
     k_seed = [dtype(2.0 * dtype(0.5 * k)) for k in ks]
     dk = dtype(ks[1] - ks[0])
     for rows, nodes in _row_chunks(used, 1 if per_row else depths):
-        total_weight = weight[rows, :nodes].sum(axis=1)[:, None]
+        total_weight = weight[rows, :nodes].sum(axis=1)[:, None].astype(dtype)
         step = max(1, _BUDGET // (rows.size * nodes))
         for d0 in range(0, depths, step):
             sl = slice(d0, min(depths, d0 + step))

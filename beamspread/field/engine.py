@@ -317,9 +317,11 @@ def _spectral_amplitude(q, weight, used, zz, ks, energy, mode, single) -> np.nda
     energy = np.asarray(energy, dtype=float)
 
     def accumulate(rows, sl, k, re, im):
-        # |p|^2 = 4 (re^2 + im^2), shape (wavenumbers, rows, depths)
-        p2 = 4.0 * (re.astype(float) ** 2 + im.astype(float) ** 2)
-        total[rows, sl] += np.tensordot(energy[k], p2 if power == 1 else p2 * p2, axes=1)
+        # |p|^2 = 4 (re^2 + im^2), shape (wavenumbers, rows, depths), in the sums' precision
+        p2 = 4.0 * (re * re + im * im)
+        if power == 2:
+            p2 *= p2
+        total[rows, sl] += np.tensordot(energy[k].astype(p2.dtype), p2, axes=1)
 
     _sums(q, weight, used, zz, ks, np.float32 if single else np.float64, accumulate)
     return np.sqrt(total)
