@@ -49,7 +49,7 @@ def banded(table, lateral, depths, evaluate) -> np.ndarray:
     lows = z[firsts]
     groups = [[0, bounds[0], bounds[1]]]
     if lows.size > 1:  # which bands pay for their own table, judged on a few rows
-        sample = np.unique(np.linspace(0, rows - 1, min(rows, _SAMPLE)).round().astype(int))
+        sample = np.arange(0, rows, -(-rows // _SAMPLE))
         picked = tuple(np.tile(component[sample], lows.size) for component in lateral)
         cost = table(picked, np.repeat(lows, sample.size))[2].reshape(lows.size, -1)
         cost = cost.sum(axis=1) * (rows / sample.size)

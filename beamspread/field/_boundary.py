@@ -146,7 +146,7 @@ def _assemble(
     piece = np.repeat(order, n)
     first = np.cumsum(n) - n
     j = np.arange(total) - np.repeat(first, n)  # node index inside its piece
-    sizes = np.unique(counts)
+    sizes = np.flatnonzero(np.bincount(counts))  # (np.unique would load numpy.ma)
     rules = [gauss_legendre(int(m)) for m in sizes]
     t_all = np.concatenate([t for t, _ in rules])
     w_all = np.concatenate([w for _, w in rules])
