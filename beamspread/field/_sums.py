@@ -15,7 +15,7 @@ from ._threads import one_blas_thread
 __all__ = ["node_sums"]
 
 _BUDGET = 1 << 18  # elements of one (lateral x depth x node) block: about 1 MB in float32
-_REACH = 8  # stepped phasors go at most this many steps up or down from a seed
+_REACH = 16  # stepped phasors go at most this many steps up or down from a seed
 # node x depth evaluations from which stepping pays for its Python loop over wavenumbers
 _STEPPED_FROM = {np.float32: 4096, np.float64: 256}
 _DEPTH_LAST = 1  # depths go last in a block when there are at least this many times the nodes
