@@ -41,6 +41,7 @@ _STEP = 4
 # large problem needs few distinct Gauss-Legendre rules (each costs O(n^3) to build, and is
 # cached); the extra nodes cost at most a quarter more work in the sums.
 _LADDER_START = 64
+_GROUPED_FROM = 1024  # nodes per distinct count from which a table is laid count by count
 _MAX_NODES = 16384  # about 5000 wavelengths of phase along one piece
 
 
@@ -121,9 +122,11 @@ def _assemble(
     counts : ndarray of int, shape (P,)
         Nodes per piece.
     rule : callable
-        ``rule(index, t, w)`` returns ``(q, weight)`` at nodes ``t`` with
-        weights ``w``, already mapped to the interval of their pieces
-        ``index`` (all of shape (m,), one entry a node).
+        ``rule(index, t, w, spread)`` returns ``(q, weight)`` at nodes ``t``
+        with weights ``w``, already mapped to the interval of their pieces
+        ``index`` (all of shape (m,), one entry a node; or, pieces laid count
+        by count, ``index`` (m, 1) and ``t``, ``w`` (m, n)); ``spread(f)`` gives
+        ``f`` of each node's position in [0, 1], computed once per rule.
 
     Returns
     -------
@@ -144,20 +147,37 @@ def _assemble(
     n = counts[order]
     total = int(n.sum())
     piece = np.repeat(order, n)
-    first = np.cumsum(n) - n
-    j = np.arange(total) - np.repeat(first, n)  # node index inside its piece
+    first = np.cumsum(n) - n  # where each piece's nodes start among all nodes
     sizes = np.flatnonzero(np.bincount(counts))  # (np.unique would load numpy.ma)
     rules = [gauss_legendre(int(m)) for m in sizes]
     t_all = np.concatenate([t for t, _ in rules])
     w_all = np.concatenate([w for _, w in rules])
-    rule_start = np.cumsum([0, *sizes[:-1]])
-    at = rule_start[np.searchsorted(sizes, np.repeat(n, n))] + j
+    row_start = np.cumsum(used) - used
+    owner = pieces[order]
+    if total >= _GROUPED_FROM * sizes.size:  # few large groups: each count's pieces at once
+        offset = np.empty_like(counts)
+        offset[order] = first - row_start[owner]  # each piece's first column in its row
+        for m in sizes:
+            index = np.flatnonzero(counts == m)
+            t, w = gauss_legendre(int(m))
+            span = (stop - start)[index, None]
+            qn, wn = rule(
+                index[:, None], start[index, None] + span * t, span * w, lambda f, t=t: f(t)
+            )
+            cols = offset[index, None] + np.arange(m)
+            q[pieces[index, None], cols] = qn
+            weight[pieces[index, None], cols] = wn
+        return q, weight, used
+    rule_start = np.zeros(int(sizes[-1]) + 1, dtype=np.int64)
+    rule_start[sizes] = np.cumsum([0, *sizes[:-1]])
+    node = np.arange(total)
+    at = node + np.repeat(rule_start[n] - first, n)  # each node's place in its rule
     span = (stop - start)[piece]
-    qn, wn = rule(piece, start[piece] + span * t_all[at], span * w_all[at])
-    row = pieces[piece]
-    column = np.arange(total) - (np.cumsum(used) - used)[row]
-    q[row, column] = qn
-    weight[row, column] = wn
+    qn, wn = rule(piece, start[piece] + span * t_all[at], span * w_all[at], lambda f: f(t_all)[at])
+    # flat place in the table: row * width + the node's column in its row
+    flat = node + np.repeat(owner * width - row_start[owner], n)
+    q.ravel()[flat] = qn
+    weight.ravel()[flat] = wn
     return q, weight, used
 
 
@@ -182,10 +202,14 @@ def disc_table(r: np.ndarray, radius: float, k_max: float, z_min: float):
     start = np.zeros(rows)
     stop = np.full(rows, np.pi)
 
-    def rule(index, psi, w):
-        rr = r[index]
-        q = a * a + rr * rr - 2.0 * a * rr * np.cos(psi)
-        return q, w * (1.0 + (a * a - rr * rr) / q) / (2.0 * np.pi)
+    # Per row first, then spread over the nodes (the same operations in the same order):
+    # q = a^2 + r^2 - 2 a r cos(psi), weight = w (1 + (a^2 - r^2) / q) / (2 pi), and
+    # psi = pi t on every row, so cos(psi) is computed once per rule.
+    square, double, difference = a * a + r * r, 2.0 * a * r, a * a - r * r
+
+    def rule(index, _psi, w, spread):
+        q = square[index] - double[index] * spread(lambda t: np.cos(np.pi * t))
+        return q, w * (1.0 + difference[index] / q) / (2.0 * np.pi)
 
     return _assemble(rows, pieces, start, stop, counts, rule)
 
@@ -253,7 +277,7 @@ def rectangle_table(
     pieces, d, counts = pieces[first], d[first], counts[first]
     start, stop = start[first], stop[first]
 
-    def rule(index, sigma, w):
+    def rule(index, sigma, w, _spread):
         dd = d[index]
         q = dd * dd + sigma * sigma
         return q, w * (multiplicity[index] * dd) / (2.0 * np.pi * q)
@@ -294,7 +318,7 @@ def ellipse_table(
     pieces = np.concatenate(pieces)
     start, stop, counts = np.concatenate(start), np.concatenate(stop), np.concatenate(counts)
 
-    def rule(index, t, w):
+    def rule(index, t, w, _spread):
         px, py = x[pieces[index]], y[pieces[index]]
         dx, dy = a * np.cos(t) - px, b * np.sin(t) - py
         q = dx * dx + dy * dy
