@@ -34,6 +34,13 @@ def _row_chunks(used: np.ndarray, depths: int):
         start = stop
 
 
+def _block_size(q, z, count: int) -> int:
+    """The most elements a block can hold: the budget, or the whole problem if smaller."""
+    return min(
+        _BUDGET, q.shape[0] * max(q.shape[1], 1) * (z.shape[1] if z.shape[0] == 1 else 1) * count
+    )
+
+
 def _seeds(count: int) -> list[tuple[int, int, int]]:
     """(first, seed, stop) of each run of wavenumbers stepped from one seed in its middle."""
     span = 2 * _REACH + 1
@@ -58,7 +65,7 @@ def node_sums(q, weight, used, z, wavenumbers, dtype, reduce):
     stepped = (
         ks.size > 2
         and evaluations >= _STEPPED_FROM[dtype]
-        and np.allclose(np.diff(ks), ks[1] - ks[0], rtol=1e-9, atol=0.0)
+        and bool(np.all(np.abs(np.diff(ks) - (ks[1] - ks[0])) <= 1e-9 * abs(ks[1] - ks[0])))
     )
     with one_blas_thread():
         if stepped:
@@ -108,7 +115,7 @@ def _direct_sums(q, weight, used, z, ks, dtype, reduce):
     depths = z.shape[1]
     count = ks.size
     half_k = np.array([dtype(0.5 * k) for k in ks], dtype=dtype)
-    work = np.empty((4, _BUDGET), dtype=dtype)
+    work = np.empty((4, _block_size(q, z, count)), dtype=dtype)
     for rows, nodes in _row_chunks(used, (1 if per_row else depths) * count):
         per_depth = rows.size * nodes
         group = count if per_depth * count <= _BUDGET else max(1, _BUDGET // per_depth)
@@ -153,8 +160,9 @@ def _stepped_sums(q, weight, used, z, ks, dtype, reduce):
     count = ks.size
     complex_type = np.complex64 if dtype is np.float32 else np.complex128
     runs = _seeds(count)
-    real = np.empty((2, _BUDGET), dtype=dtype)
-    phasors = np.empty((4, _BUDGET), dtype=complex_type)
+    size = _block_size(q, z, 1)
+    real = np.empty((2, size), dtype=dtype)
+    phasors = np.empty((4, size), dtype=complex_type)
     k_seed = [dtype(2.0 * dtype(0.5 * k)) for k in ks]
     dk = dtype(ks[1] - ks[0])
     for rows, nodes in _row_chunks(used, 1 if per_row else depths):
