@@ -2,12 +2,12 @@
 
 The node count of a boundary table (:mod:`._boundary`) is set by the phase
 change along each piece of the boundary at the shallowest depth it serves;
-deeper, the phase changes less and fewer nodes reach the same accuracy. A grid
-of depths is therefore cut into bands growing by ``_RATIO``; each band gets a
-table built for its own shallowest depth, except that a band whose table would
-save less than ``_MERGE`` node evaluations over its shallower neighbour's
-(judged on ``_SAMPLE`` of the rows) joins that neighbour. The kept bands' tables
-are built in one call.
+deeper, the phase changes less and fewer nodes reach the same accuracy. A large
+enough grid of depths is therefore cut into bands growing by ``_RATIO``; each
+band gets a table built for its own shallowest depth, except that a band whose
+table would save less than ``_MERGE`` node evaluations over its shallower
+neighbour's (judged on ``_SAMPLE`` of the rows) joins that neighbour. The kept
+bands' tables are built in one call.
 """
 
 from __future__ import annotations
@@ -19,10 +19,11 @@ __all__ = ["banded"]
 _RATIO = 1.5  # each band starts this many times deeper than the one before
 _MAX_BANDS = 12
 _MERGE = 16384  # node x depth evaluations a separate band must save
+_BANDED_FROM = 100_000  # lateral x depth x frequency points from which bands pay
 _SAMPLE = 8  # lateral rows on which the bands' node counts are judged
 
 
-def banded(table, lateral, depths, evaluate) -> np.ndarray:
+def banded(table, lateral, depths, evaluate, wavenumbers: int = 1) -> np.ndarray:
     """Evaluate lateral rows x ``depths`` band by band; returns shape (rows, depths).
 
     Parameters
@@ -37,9 +38,15 @@ def banded(table, lateral, depths, evaluate) -> np.ndarray:
     evaluate : callable
         ``evaluate(q, weight, used, z)`` with ``z`` of shape (1, d) returns
         the result on rows x d.
+    wavenumbers : int
+        Frequencies each evaluation sums over. Below ``_BANDED_FROM`` points x
+        frequencies the tables would cost more than they save: one table serves
+        every depth.
     """
     depths = np.asarray(depths, dtype=float).ravel()
     rows = lateral[0].size
+    if rows * depths.size * wavenumbers < _BANDED_FROM:
+        return evaluate(*table(lateral, float(depths.min())), depths[None, :])
     order = np.argsort(depths, kind="stable")
     z = depths[order]
     edges = z[0] * _RATIO ** np.arange(1, _MAX_BANDS)

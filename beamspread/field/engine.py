@@ -366,7 +366,9 @@ def _grid_amplitude(
         return _spectral_amplitude(q, weight, used, z, ks, energy, mode, single)
 
     if single:  # maps and scans: a table per band of depths (_bands)
-        amplitude = banded(lambda at, z0: _table(probe, at, k_max, z0), lateral, depths, evaluate)
+        amplitude = banded(
+            lambda at, z0: _table(probe, at, k_max, z0), lateral, depths, evaluate, ks.size
+        )
     else:
         amplitude = evaluate(*_table(probe, lateral, k_max, float(depths.min())), depths[None, :])
     return amplitude[inverse].T
