@@ -32,33 +32,6 @@ from .beam import (
     level_key,
 )
 from .errors import BeamspreadError, InputError, MaterialError, PluginError, TableError
-from .field import (
-    AxialProfile,
-    BeamWidth,
-    FieldMap,
-    TransverseProfile,
-    axial_profile,
-    beam_width,
-    beam_widths,
-    field_amplitude,
-    field_map,
-    last_maximum,
-    transverse_profile,
-)
-from .hookspecs import hookimpl
-from .media import (
-    ComputedMedium,
-    Curve,
-    Entry,
-    Material,
-    Parameter,
-    Registry,
-    Value,
-    Wave,
-    build_registry,
-    load_table,
-    parse_table,
-)
 from .pattern import directivity, first_null, half_angle, level_amplitude, pattern_x
 from .probes import Disc, Rectangle
 
@@ -71,6 +44,33 @@ if TYPE_CHECKING:
     from .coupling.wedge import Wedge, analyse_wedge
     from .design.result import Design
     from .design.solvers import size_disc, size_frequency, size_rectangle_side, smallest_spot
+    from .field import (
+        AxialProfile,
+        BeamWidth,
+        FieldMap,
+        TransverseProfile,
+        axial_profile,
+        beam_width,
+        beam_widths,
+        field_amplitude,
+        field_map,
+        last_maximum,
+        transverse_profile,
+    )
+    from .hookspecs import hookimpl
+    from .media import (
+        ComputedMedium,
+        Curve,
+        Entry,
+        Material,
+        Parameter,
+        Registry,
+        Value,
+        Wave,
+        build_registry,
+        load_table,
+        parse_table,
+    )
     from .pipeline import Result, compute
     from .scan import ScanPlan, plan_scan
     from .setups import critical_angles, refract
@@ -188,9 +188,43 @@ __all__ = [
     "transverse_profile",
 ]
 
-# The later tools' headline names load on first use, so that `import beamspread` (and with it
-# the command line's start-up) does not pay for modules a command may never touch.
+# The later tools' headline names, the computed field, the media registry and the plug-in
+# marker (pluggy) load on first use, so that `import beamspread` (and with it the command
+# line's start-up) does not pay for modules a command may never touch.
 _LAZY = {
+    **dict.fromkeys(
+        (
+            "AxialProfile",
+            "BeamWidth",
+            "FieldMap",
+            "TransverseProfile",
+            "axial_profile",
+            "beam_width",
+            "beam_widths",
+            "field_amplitude",
+            "field_map",
+            "last_maximum",
+            "transverse_profile",
+        ),
+        "field",
+    ),
+    "hookimpl": "hookspecs",  # pluggy loads with it
+    **dict.fromkeys(
+        (
+            "ComputedMedium",
+            "Curve",
+            "Entry",
+            "Material",
+            "Parameter",
+            "Registry",
+            "Value",
+            "Wave",
+            "build_registry",
+            "load_table",
+            "parse_table",
+        ),
+        "media",
+    ),
     "Technique": "technique",
     "PartMedium": "technique",
     "Contact": "technique",

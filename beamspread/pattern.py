@@ -162,9 +162,15 @@ def pattern_x(level_db: np.ndarray | float, shape: str = "disc", mode: str = "pu
     level = np.abs(np.asarray(level_db, dtype=float))
     if level.ndim == 0:
         return np.asarray(_level_x(float(level), shape, mode))
+    if level.size <= _FEW:  # a handful of levels (a beam's): look each up
+        found = [_level_x(float(value), shape, mode) for value in level.ravel()]
+        return np.array(found).reshape(level.shape)
     distinct, inverse = np.unique(level, return_inverse=True)
     found = np.array([_level_x(float(value), shape, mode) for value in distinct])
     return found[inverse.reshape(level.shape)]
+
+
+_FEW = 16  # up to this many levels are looked up one by one rather than sorted first
 
 
 @lru_cache(maxsize=1024)
@@ -178,6 +184,8 @@ def _level_x(level_db: float, shape: str, mode: str) -> float:
 
 def _angle_from_x(x, aperture, wavelength) -> np.ndarray:
     s = np.asarray(x) * np.asarray(wavelength) / (np.pi * np.asarray(aperture))
+    if s.ndim == 0 and -1.0 <= s <= 1.0:  # one angle: the same value without the masking
+        return np.asarray(np.arcsin(s))
     with np.errstate(invalid="ignore"):
         return np.where(s <= 1.0, np.arcsin(np.minimum(s, 1.0)), np.nan)
 

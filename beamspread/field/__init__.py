@@ -8,8 +8,10 @@ level and depth, and maps in a plane through the axis
 its widths (:mod:`beamspread.field.focused`). numpy only.
 """
 
+from importlib import import_module
+from typing import TYPE_CHECKING
+
 from .engine import MAX_POINTS, MODES, field_amplitude, pressure
-from .focused import focused_amplitude, focused_beam_widths, focused_pressure
 from .profiles import (
     AxialProfile,
     BeamWidth,
@@ -23,6 +25,9 @@ from .profiles import (
     transverse_profile,
 )
 from .spectrum import MAX_BANDWIDTH, SPECTRA, Spectrum, gaussian_spectrum, make_spectrum
+
+if TYPE_CHECKING:
+    from .focused import focused_amplitude, focused_beam_widths, focused_pressure
 
 __all__ = [
     "MAX_BANDWIDTH",
@@ -48,3 +53,18 @@ __all__ = [
     "pressure",
     "transverse_profile",
 ]
+
+# The focused field loads on first use (flat elements, most of the command line, never need it).
+_LAZY = dict.fromkeys(("focused_amplitude", "focused_beam_widths", "focused_pressure"), "focused")
+
+
+def __getattr__(name: str):
+    if name in _LAZY:
+        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
+        globals()[name] = value
+        return value
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
+
+
+def __dir__() -> list[str]:
+    return sorted({*globals(), *_LAZY})

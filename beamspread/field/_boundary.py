@@ -41,6 +41,7 @@ _STEP = 4
 # large problem needs few distinct Gauss-Legendre rules (each costs O(n^3) to build, and is
 # cached); the extra nodes cost at most a quarter more work in the sums.
 _LADDER_START = 64
+_GROUPED_FROM = 1024  # nodes per distinct count from which a table is laid count by count
 _MAX_NODES = 16384  # about 5000 wavelengths of phase along one piece
 
 
@@ -121,9 +122,11 @@ def _assemble(
     counts : ndarray of int, shape (P,)
         Nodes per piece.
     rule : callable
-        ``rule(index, t, w)`` returns ``(q, weight)`` for pieces ``index``
-        (shape (m,)) at nodes ``t`` with weights ``w`` (shape (m, n)), already
-        mapped to the piece's interval.
+        ``rule(index, t, w, spread)`` returns ``(q, weight)`` at nodes ``t``
+        with weights ``w``, already mapped to the interval of their pieces
+        ``index`` (all of shape (m,), one entry a node; or, pieces laid count
+        by count, ``index`` (m, 1) and ``t``, ``w`` (m, n)); ``spread(f)`` gives
+        ``f`` of each node's position in [0, 1], computed once per rule.
 
     Returns
     -------
@@ -136,27 +139,45 @@ def _assemble(
     width = int(used.max(initial=0))
     q = np.zeros((rows, width))
     weight = np.zeros((rows, width))
-    # Offset of each piece inside its row: pieces are grouped row by row in order.
+    if pieces.size == 0:
+        return q, weight, used
+    # Every node of every piece at once: pieces grouped row by row, in order, so that a row's
+    # nodes are contiguous and its columns follow its pieces.
     order = np.lexsort((np.arange(pieces.size), pieces))
-    csum = np.cumsum(counts[order])
-    first = np.r_[0, csum[:-1]]
-    row_start = np.r_[
-        0,
-        np.cumsum(
-            np.bincount(pieces[order], weights=counts[order], minlength=rows).astype(np.int64)
-        )[:-1],
-    ]
-    offset = np.empty_like(counts)
-    offset[order] = first - row_start[pieces[order]]
-    for n in np.unique(counts):
-        index = np.flatnonzero(counts == n)
-        t, w = gauss_legendre(int(n))
-        span = (stop - start)[index, None]
-        nodes = start[index, None] + span * t
-        qn, wn = rule(index, nodes, span * w)
-        cols = offset[index, None] + np.arange(n)
-        q[pieces[index, None], cols] = qn
-        weight[pieces[index, None], cols] = wn
+    n = counts[order]
+    total = int(n.sum())
+    piece = np.repeat(order, n)
+    first = np.cumsum(n) - n  # where each piece's nodes start among all nodes
+    sizes = np.flatnonzero(np.bincount(counts))  # (np.unique would load numpy.ma)
+    rules = [gauss_legendre(int(m)) for m in sizes]
+    t_all = np.concatenate([t for t, _ in rules])
+    w_all = np.concatenate([w for _, w in rules])
+    row_start = np.cumsum(used) - used
+    owner = pieces[order]
+    if total >= _GROUPED_FROM * sizes.size:  # few large groups: each count's pieces at once
+        offset = np.empty_like(counts)
+        offset[order] = first - row_start[owner]  # each piece's first column in its row
+        for m in sizes:
+            index = np.flatnonzero(counts == m)
+            t, w = gauss_legendre(int(m))
+            span = (stop - start)[index, None]
+            qn, wn = rule(
+                index[:, None], start[index, None] + span * t, span * w, lambda f, t=t: f(t)
+            )
+            cols = offset[index, None] + np.arange(m)
+            q[pieces[index, None], cols] = qn
+            weight[pieces[index, None], cols] = wn
+        return q, weight, used
+    rule_start = np.zeros(int(sizes[-1]) + 1, dtype=np.int64)
+    rule_start[sizes] = np.cumsum([0, *sizes[:-1]])
+    node = np.arange(total)
+    at = node + np.repeat(rule_start[n] - first, n)  # each node's place in its rule
+    span = (stop - start)[piece]
+    qn, wn = rule(piece, start[piece] + span * t_all[at], span * w_all[at], lambda f: f(t_all)[at])
+    # flat place in the table: row * width + the node's column in its row
+    flat = node + np.repeat(owner * width - row_start[owner], n)
+    q.ravel()[flat] = qn
+    weight.ravel()[flat] = wn
     return q, weight, used
 
 
@@ -181,10 +202,14 @@ def disc_table(r: np.ndarray, radius: float, k_max: float, z_min: float):
     start = np.zeros(rows)
     stop = np.full(rows, np.pi)
 
-    def rule(index, psi, w):
-        rr = r[index, None]
-        q = a * a + rr * rr - 2.0 * a * rr * np.cos(psi)
-        return q, w * (1.0 + (a * a - rr * rr) / q) / (2.0 * np.pi)
+    # Per row first, then spread over the nodes (the same operations in the same order):
+    # q = a^2 + r^2 - 2 a r cos(psi), weight = w (1 + (a^2 - r^2) / q) / (2 pi), and
+    # psi = pi t on every row, so cos(psi) is computed once per rule.
+    square, double, difference = a * a + r * r, 2.0 * a * r, a * a - r * r
+
+    def rule(index, _psi, w, spread):
+        q = square[index] - double[index] * spread(lambda t: np.cos(np.pi * t))
+        return q, w * (1.0 + difference[index] / q) / (2.0 * np.pi)
 
     return _assemble(rows, pieces, start, stop, counts, rule)
 
@@ -230,7 +255,8 @@ def rectangle_table(
     start = np.concatenate(s_list)
     stop = np.concatenate(e_list)
     pieces = np.concatenate(row_list)
-    base = z_min * z_min + d * d
+    z_piece = np.broadcast_to(np.asarray(z_min, dtype=float), (rows,))[pieces]
+    base = z_piece * z_piece + d * d
     phase = k_max * (np.sqrt(base + stop * stop) - np.sqrt(base + start * start))
     with np.errstate(divide="ignore"):
         ratio = np.where(start == 0.0, stop / np.sqrt(base), 0.0)
@@ -239,15 +265,22 @@ def rectangle_table(
     pieces, d, start, stop, counts = pieces[keep], d[keep], start[keep], stop[keep], counts[keep]
     # Pieces that coincide (both halves of an edge centred on the point, the two edges of a
     # point on a centre line) are computed once, with their weight multiplied.
-    key = np.stack([pieces, d, start, stop], axis=1)
-    _, first, multiplicity = np.unique(key, axis=0, return_index=True, return_counts=True)
+    order = np.lexsort((stop, start, d, pieces))
+    same = (
+        (pieces[order][1:] == pieces[order][:-1])
+        & (d[order][1:] == d[order][:-1])
+        & (start[order][1:] == start[order][:-1])
+        & (stop[order][1:] == stop[order][:-1])
+    )
+    first = order[np.r_[True, ~same]]
+    multiplicity = np.diff(np.r_[np.flatnonzero(np.r_[True, ~same]), order.size])
     pieces, d, counts = pieces[first], d[first], counts[first]
     start, stop = start[first], stop[first]
 
-    def rule(index, sigma, w):
-        dd = d[index, None]
+    def rule(index, sigma, w, _spread):
+        dd = d[index]
         q = dd * dd + sigma * sigma
-        return q, w * (multiplicity[index, None] * dd) / (2.0 * np.pi * q)
+        return q, w * (multiplicity[index] * dd) / (2.0 * np.pi * q)
 
     return _assemble(rows, pieces, start, stop, counts, rule)
 
@@ -285,8 +318,8 @@ def ellipse_table(
     pieces = np.concatenate(pieces)
     start, stop, counts = np.concatenate(start), np.concatenate(stop), np.concatenate(counts)
 
-    def rule(index, t, w):
-        px, py = x[pieces[index], None], y[pieces[index], None]
+    def rule(index, t, w, _spread):
+        px, py = x[pieces[index]], y[pieces[index]]
         dx, dy = a * np.cos(t) - px, b * np.sin(t) - py
         q = dx * dx + dy * dy
         cross = a * b - b * px * np.cos(t) - a * py * np.sin(t)

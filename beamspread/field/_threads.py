@@ -22,7 +22,9 @@ from functools import cache
 __all__ = ["KERNEL", "one_blas_thread"]
 
 KERNEL = (
-    "numpy float32 (phasors stepped between frequencies), BLAS held to 1 thread (threadpoolctl)"
+    "numpy (no compiled kernel): maps in float32, a node table per band of depths on large "
+    "broadband grids, phasors stepped between frequencies from a seed mid-band; widths in "
+    "float64; BLAS held to 1 thread (threadpoolctl)"
 )
 """The path the engine's maps run (reported by the benchmark): pure numpy, no compiled kernel."""
 

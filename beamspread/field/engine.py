@@ -87,6 +87,7 @@ import numpy as np
 
 from ..errors import InputError
 from ..probes import check_element, check_positive
+from ._bands import banded
 from ._sums import node_sums as _sums
 from .spectrum import Spectrum, make_spectrum
 
@@ -223,8 +224,8 @@ def pressure(probe, speed: float, x, y, z, *, frequency: float | None = None) ->
     q, weight, used, zz, (rows_of, depth_of) = _prepare(probe, x, y, z, k)
     result = np.zeros((q.shape[0], zz.shape[1]), dtype=complex)
 
-    def keep(rows, sl, _i, re, im):
-        result[rows, sl] = 2.0 * (re + 1j * im)
+    def keep(rows, sl, _k, re, im):
+        result[rows, sl] = 2.0 * (re[0] + 1j * im[0])
 
     _sums(q, weight, used, zz, (k,), np.float64, keep)
     per_point = result[rows_of, depth_of]
@@ -315,10 +316,12 @@ def _spectral_amplitude(q, weight, used, zz, ks, energy, mode, single) -> np.nda
     total = np.zeros((q.shape[0], zz.shape[1]))
     energy = np.asarray(energy, dtype=float)
 
-    def accumulate(rows, sl, i, re, im):
-        # |p|^2 = 4 (re^2 + im^2)
-        p2 = 4.0 * (re.astype(float) ** 2 + im.astype(float) ** 2)
-        total[rows, sl] += energy[i] * (p2 if power == 1 else p2 * p2)
+    def accumulate(rows, sl, k, re, im):
+        # |p|^2 = 4 (re^2 + im^2), shape (wavenumbers, rows, depths), in the sums' precision
+        p2 = 4.0 * (re * re + im * im)
+        if power == 2:
+            p2 *= p2
+        total[rows, sl] += np.tensordot(energy[k].astype(p2.dtype), p2, axes=1)
 
     _sums(q, weight, used, zz, ks, np.float32 if single else np.float64, accumulate)
     return np.sqrt(total)
@@ -355,9 +358,17 @@ def _grid_amplitude(
     if not (np.isfinite(lateral_x).all() and np.isfinite(lateral_y).all()):
         raise InputError("field points: every coordinate must be a finite number")
     ks = 2.0 * math.pi * spec.frequencies / speed
+    k_max = float(ks.max())
+    energy = spec.source_weights(mode)
     lateral, inverse = _lateral(probe, lateral_x, lateral_y)
-    q, weight, used = _table(probe, lateral, float(ks.max()), float(depths.min()))
-    amplitude = _spectral_amplitude(
-        q, weight, used, depths[None, :], ks, spec.source_weights(mode), mode, single
-    )
+
+    def evaluate(q, weight, used, z):
+        return _spectral_amplitude(q, weight, used, z, ks, energy, mode, single)
+
+    if single:  # maps and scans: a table per band of depths (_bands)
+        amplitude = banded(
+            lambda at, z0: _table(probe, at, k_max, z0), lateral, depths, evaluate, ks.size
+        )
+    else:
+        amplitude = evaluate(*_table(probe, lateral, k_max, float(depths.min())), depths[None, :])
     return amplitude[inverse].T

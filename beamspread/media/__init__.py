@@ -1,10 +1,15 @@
 """Materials and media: types, the TOML table loader, equations and the registry."""
 
-from .computed import ComputedMedium
-from .material import Material
+from importlib import import_module
+from typing import TYPE_CHECKING
+
 from .quantities import Curve, Parameter, Value, Wave, normalise_name
-from .registry import Entry, Registry, build_registry, config_dir, user_table_dirs
-from .tables import load_table, parse_table
+
+if TYPE_CHECKING:
+    from .computed import ComputedMedium
+    from .material import Material
+    from .registry import Entry, Registry, build_registry, config_dir, user_table_dirs
+    from .tables import load_table, parse_table
 
 __all__ = [
     "ComputedMedium",
@@ -22,3 +27,29 @@ __all__ = [
     "parse_table",
     "user_table_dirs",
 ]
+
+# The registry, the table loader and the media types load on first use: a quantity type (what
+# most of the core needs from here) does not pay for them.
+_LAZY = {
+    "ComputedMedium": "computed",
+    "Material": "material",
+    "Entry": "registry",
+    "Registry": "registry",
+    "build_registry": "registry",
+    "config_dir": "registry",
+    "user_table_dirs": "registry",
+    "load_table": "tables",
+    "parse_table": "tables",
+}
+
+
+def __getattr__(name: str):
+    if name in _LAZY:
+        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
+        globals()[name] = value
+        return value
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
+
+
+def __dir__() -> list[str]:
+    return sorted({*globals(), *_LAZY})
