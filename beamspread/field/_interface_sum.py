@@ -29,6 +29,8 @@ through a wedge, ``tests/benchmarks/bench_interface.py``):
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 
 from ._interface_rays import TransmissionTable, ray_terms
@@ -38,6 +40,12 @@ __all__ = ["face_sum"]
 _BLOCK = 64  # targets per block (nodes are chosen per block)
 _PAIRS = 262_144  # target x node pairs per chunk (a few MB: the stepping stays in cache)
 _RESEED = 64
+
+
+@lru_cache(maxsize=8)
+def _table(transmission, s_max: float) -> TransmissionTable:
+    """The sampled coefficient, kept for the next calls with the same one (a width's search)."""
+    return TransmissionTable(transmission, s_max)
 
 
 def _samples(crossing) -> tuple[np.ndarray, np.ndarray, np.ndarray, float]:
@@ -87,7 +95,7 @@ def face_sum(crossing, targets: np.ndarray, ks: np.ndarray) -> np.ndarray:
     n = crossing.lower_speed / c1
     table = None
     if crossing.transmission is not None:
-        table = TransmissionTable(crossing.transmission, 1.0 if n <= 1.0 else 1.0 / n)
+        table = _table(crossing.transmission, 1.0 if n <= 1.0 else 1.0 / n)
     samples = _samples(crossing)
     for start in range(0, targets.shape[0], _BLOCK):
         block = targets[start : start + _BLOCK]
