@@ -44,7 +44,7 @@ from ._interface_rays import TransmissionTable, ray_terms
 
 __all__ = ["face_sum"]
 
-_BLOCK = 64  # targets per block (nodes are chosen per block)
+_BLOCK = 32  # targets per block (nodes are chosen per block)
 _PAIRS = 262_144  # target x node pairs per chunk (a few MB: the stepping stays in cache)
 _RESEED = 64
 
