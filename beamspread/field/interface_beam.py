@@ -19,13 +19,16 @@ exit point (the origin), whose direction in the incidence plane is
   even in :math:`y` (the incidence plane is a plane of symmetry), so one
   half-width.
 
-Each line is first sampled (``_SAMPLES`` offsets out to where the field lies
-below the level), the largest sample refined by a bounded scalar search, and
-each edge bracketed between the outermost sample at or above the level and the
-next one out, then found by Brent's method (``scipy.optimize.brentq``) on the
-level in dB to ``_XTOL`` m. The on-axis maximum is the last local maximum of
-the amplitude along the refracted axis (the near field in the part), refined
-the same way. Levels are dB down, positive; amplitudes continuous wave or
+Every line is first sampled (``_SAMPLES`` offsets a side, the reach doubled
+until the field at the ends lies below the level), all lines in one call; a
+second call samples ``_FINE`` offsets round each line's largest sample, whose
+peak is refined by the parabola through the best three. Each edge is bracketed
+between the outermost sample at or above the level and the next one out (moved
+a sample at a time if a point's own evaluation disagrees with the scan's), then
+found by Brent's method (``scipy.optimize.brentq``) on the level in dB to
+``_XTOL`` m. The on-axis maximum is the last local maximum of the amplitude
+along the refracted axis (the near field in the part), refined by a bounded
+scalar search. Levels are dB down, positive; amplitudes continuous wave or
 broadband, one-way or pulse-echo, as :func:`crossing_amplitude`.
 """
 
