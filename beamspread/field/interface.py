@@ -48,11 +48,11 @@ import numpy as np
 
 from ..errors import InputError
 from ..probes import Disc, Rectangle, check_element, check_positive
+from ._interface_rays import ray_terms
+from ._interface_sum import face_sum
 from .spectrum import make_spectrum
 
 __all__ = ["Crossing", "crossing_amplitude", "crossing_pressure"]
-
-_PAIRS = 1_500_000  # field point x node pairs per chunk (memory ~ 100 MB at most)
 
 
 @dataclass(frozen=True)
@@ -113,108 +113,64 @@ class Crossing:
         a = self.incidence
         return np.array([-self.path * math.sin(a), 0.0, -self.path * math.cos(a)])
 
-    def nodes(self, wavenumber: float, spread: float):
-        """Quadrature nodes on the face and their weights (area, m2).
+    def face(self, u: np.ndarray, v: np.ndarray, curved: np.ndarray):
+        """Points on the face at element coordinates (u in the incidence plane, v across), m.
 
-        ``spread`` bounds the sine of the ray angles from the element axis
-        (plus the curvature of the wavefronts across the face) that the asked
-        points see; the node count follows ``wavenumber * half-size * spread``.
-        Returns ``(points (N, 3), weights (N,))``.
+        ``curved`` is the squared distance the focus curves the face over (the
+        element's ``face_nodes`` gives it). Returns ``(points (N, 3), area factor
+        (N,))``: a focused face is curved, and its area per unit of (u, v) is the
+        factor.
         """
-        e = self.element
         a = self.incidence
         u_axis = np.array([math.cos(a), 0.0, -math.sin(a)])
         v_axis = np.array([0.0, 1.0, 0.0])
         w_axis = np.array([math.sin(a), 0.0, math.cos(a)])  # the element's axis, towards the part
-        focus = e.focus
-        u, v, weight, lateral2 = e.face_nodes(wavenumber, spread, _count)
+        focus = self.element.focus
         sag = np.zeros_like(u)
+        factor = np.ones_like(u)
         if focus is not None:
-            if lateral2.max() >= focus * focus:
+            if curved.max() >= focus * focus:
                 raise InputError(
                     f"focus: {focus * 1e3:g} mm is not allowed; it must exceed the element's "
                     "half-aperture"
                 )
-            sag = focus - np.sqrt(focus * focus - lateral2)
-            weight = weight * focus / np.sqrt(focus * focus - lateral2)  # the curved face's area
+            sag = focus - np.sqrt(focus * focus - curved)
+            factor = focus / np.sqrt(focus * focus - curved)  # the curved face's area
         points = self.centre + u[:, None] * u_axis + v[:, None] * v_axis + sag[:, None] * w_axis
-        return points, weight
+        return points, factor
+
+    def nodes(self, wavenumber: float, spread: float, curvature: float | None = None):
+        """Quadrature nodes on the face and their weights (area, m2).
+
+        ``spread`` times ``wavenumber`` times the element's half-size is the
+        phase (rad) the asked points see across that half-size: the linear part
+        (the ray angle from the element axis) plus the curvature of the
+        wavefronts across the face; the element's rule (``face_nodes``) takes
+        ``0.6 phase + 12`` Gauss nodes for it. Given ``curvature`` apart (the
+        same units), ``spread`` is the linear part alone and the rule is asked
+        for the linear phase plus twice the curvature's (the quadratic's slope
+        at the ends of a half-size).
+        Returns ``(points (N, 3), weights (N,))``.
+        """
+        total = spread if curvature is None else spread + 2.0 * curvature
+        u, v, weight, curved = self.element.face_nodes(wavenumber, total, _count)
+        points, factor = self.face(u, v, curved)
+        return points, weight * factor
 
     def rays(self, sources: np.ndarray, targets: np.ndarray):
         """The Fermat rays from each source (N, 3) to each target (M, 3).
 
         Returns ``(delay, amplitude, incident)``, each (M, N): the travel time
-        r1/c1 + r2/c2 (s), the spreading and transmission factor (1/m), and
-        the ray's incident angle at the surface (rad).
+        r1/c1 + r2/c2 (s), the spreading factor (1/m, without the transmission
+        coefficient), and the ray's incident angle at the surface (rad).
         """
-        c1, c2 = self.upper_speed, self.lower_speed
-        n = c2 / c1
-        h1 = -sources[None, :, 2]
-        h2 = targets[:, None, 2]
-        dx = targets[:, None, 0] - sources[None, :, 0]
-        dy = targets[:, None, 1] - sources[None, :, 1]
-        d = np.sqrt(dx * dx + dy * dy)
-        s = _snell_sine(h1, h2, d, n)
-        cos1 = np.sqrt(1.0 - s * s)
-        s2 = n * s
-        cos2 = np.sqrt(1.0 - s2 * s2)
-        r1 = h1 / cos1
-        r2 = h2 / cos2
-        delay = r1 / c1 + r2 / c2
-        sagittal = r1 + r2 * n
-        tangential = r1 + r2 * n * (cos1 * cos1) / (cos2 * cos2)
-        amplitude = 1.0 / np.sqrt(sagittal * tangential)
-        incident = np.arcsin(s)
-        return delay, amplitude, incident
+        delay, amplitude, s = ray_terms(self, sources, targets)
+        return delay, amplitude, np.arcsin(s)
 
 
 def _count(phase: float) -> int:
     """Gauss nodes for a phase of ``phase`` rad across a half-size (converged to ~1e-7)."""
     return math.ceil(0.6 * phase + 12)
-
-
-def _snell_sine(h1, h2, d, n, iterations: int = 60):
-    """sin(theta_1) of the ray that crosses at Snell's law, by Newton's method.
-
-    Solves g(s) = h1 tan(theta_1) + h2 tan(theta_2) - d = 0 with
-    sin(theta_2) = n s. g is increasing and convex on [0, s_max), and the
-    paraxial root (tangents as sines) lies at or above the root, so Newton's
-    iterates fall monotonically onto it.
-    """
-    s_max = 1.0 if n <= 1.0 else 1.0 / n
-    s = np.minimum(d / (h1 + n * h2), s_max * (1.0 - 1e-12))
-    for _ in range(iterations):
-        c1 = np.sqrt(1.0 - s * s)
-        c2 = np.sqrt(1.0 - (n * s) ** 2)
-        g = h1 * s / c1 + h2 * n * s / c2 - d
-        dg = h1 / (c1 * c1 * c1) + h2 * n / (c2 * c2 * c2)
-        step = g / dg
-        s = s - step
-        if np.max(np.abs(step)) < 1e-14:
-            break
-    return np.maximum(s, 0.0)
-
-
-def _spread_bound(crossing: Crossing, targets: np.ndarray) -> float:
-    """The largest ray angle sine (from the axis) plus face curvature that the targets see."""
-    centre = crossing.centre[None, :]
-    _, _, incident = crossing.rays(centre, targets)
-    # The ray's direction in the upper medium, and its angle from the element axis.
-    dx = targets[:, 0] - centre[0, 0]
-    dy = targets[:, 1] - centre[0, 1]
-    d = np.hypot(dx, dy)
-    s = np.sin(incident[:, 0])
-    c = np.cos(incident[:, 0])
-    with np.errstate(invalid="ignore", divide="ignore"):
-        ux = np.where(d > 0, dx / d, 1.0) * s
-    a = crossing.incidence
-    along = ux * math.sin(a) + c * math.cos(a)
-    off = np.sqrt(np.maximum(1.0 - along * along, 0.0))
-    half = 0.5 * crossing.element.longest_side
-    curvature = half / crossing.path
-    if crossing.element.focus is not None:
-        curvature += half / crossing.element.focus
-    return float(min(1.0, off.max() + curvature)) if off.size else 1.0
 
 
 def crossing_pressure(crossing: Crossing, points, wavenumbers) -> np.ndarray:
@@ -238,26 +194,9 @@ def crossing_pressure(crossing: Crossing, points, wavenumbers) -> np.ndarray:
     if targets.size and not (targets[:, 2] > 0).all():
         raise InputError("points: every point must lie in the part (z above 0)")
     ks = np.atleast_1d(np.asarray(wavenumbers, dtype=float))
-    out = np.zeros((targets.shape[0], ks.size), dtype=complex)
     if targets.shape[0] == 0:
-        return out
-    spread = _spread_bound(crossing, targets)
-    sources, weight = crossing.nodes(float(ks.max()), spread)
-    omega_over_c1 = ks  # k1 = omega / c1, and the delay is in seconds: phase = k1 c1 tau
-    c1 = crossing.upper_speed
-    chunk = max(1, _PAIRS // sources.shape[0])
-    for start in range(0, targets.shape[0], chunk):
-        block = targets[start : start + chunk]
-        delay, amplitude, incident = crossing.rays(sources, block)
-        a = amplitude * weight[None, :]
-        if crossing.transmission is not None:
-            a = a * crossing.transmission(incident)
-        phase = delay * c1  # m of upper-medium path: the phase is k1 times it
-        for j, k in enumerate(omega_over_c1):
-            out[start : start + chunk, j] = (-1j * k / (2.0 * math.pi)) * (
-                a * np.exp(1j * k * phase)
-            ).sum(axis=1)
-    return out
+        return np.zeros((0, ks.size), dtype=complex)
+    return (-1j / (2.0 * math.pi)) * ks[None, :] * face_sum(crossing, targets, ks)
 
 
 def crossing_amplitude(
