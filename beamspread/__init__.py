@@ -10,9 +10,9 @@ medium, and call :func:`analyse`::
     20.8
 """
 
-from importlib import import_module
 from typing import TYPE_CHECKING
 
+from ._lazy import lazy_names
 from .axis import (
     disc_axial_pressure,
     disc_near_field,
@@ -270,13 +270,4 @@ _LAZY = {
 }
 
 
-def __getattr__(name: str):
-    if name in _LAZY:
-        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
-        globals()[name] = value
-        return value
-    raise AttributeError(f"module 'beamspread' has no attribute {name!r}")
-
-
-def __dir__() -> list[str]:
-    return sorted({*globals(), *_LAZY})
+__getattr__, __dir__ = lazy_names(__name__, _LAZY, globals())

@@ -8,9 +8,9 @@ level and depth, and maps in a plane through the axis
 its widths (:mod:`beamspread.field.focused`). numpy only.
 """
 
-from importlib import import_module
 from typing import TYPE_CHECKING
 
+from .._lazy import lazy_names
 from .engine import MAX_POINTS, MODES, field_amplitude, pressure
 from .profiles import (
     AxialProfile,
@@ -58,13 +58,4 @@ __all__ = [
 _LAZY = dict.fromkeys(("focused_amplitude", "focused_beam_widths", "focused_pressure"), "focused")
 
 
-def __getattr__(name: str):
-    if name in _LAZY:
-        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
-        globals()[name] = value
-        return value
-    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
-
-
-def __dir__() -> list[str]:
-    return sorted({*globals(), *_LAZY})
+__getattr__, __dir__ = lazy_names(__name__, _LAZY, globals())

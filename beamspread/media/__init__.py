@@ -1,8 +1,8 @@
 """Materials and media: types, the TOML table loader, equations and the registry."""
 
-from importlib import import_module
 from typing import TYPE_CHECKING
 
+from .._lazy import lazy_names
 from .quantities import Curve, Parameter, Value, Wave, normalise_name
 
 if TYPE_CHECKING:
@@ -43,13 +43,4 @@ _LAZY = {
 }
 
 
-def __getattr__(name: str):
-    if name in _LAZY:
-        value = getattr(import_module(f".{_LAZY[name]}", __name__), name)
-        globals()[name] = value
-        return value
-    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
-
-
-def __dir__() -> list[str]:
-    return sorted({*globals(), *_LAZY})
+__getattr__, __dir__ = lazy_names(__name__, _LAZY, globals())
