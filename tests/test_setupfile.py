@@ -184,8 +184,9 @@ def test_format_syntax_and_combinations():
 def test_save_refuses_to_overwrite_without_force(tmp_path):
     path = tmp_path / "s.toml"
     path.write_text("keep me", encoding="utf-8")
-    with pytest.raises(InputError, match="exists; use --force"):
+    with pytest.raises(InputError, match="exists; it is kept") as refused:
         save_setup(SMALL, path)
+    assert refused.value.remedy == ("force", None)  # the CLI names its flag, the core does not
     assert path.read_text() == "keep me"
     save_setup(SMALL, path, force=True)
     assert load_setup(path) == SMALL

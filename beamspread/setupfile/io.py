@@ -184,7 +184,9 @@ def save_setup(setup: Setup, path: str | os.PathLike, *, force: bool = False) ->
     if target.is_dir():
         raise InputError(f"{str(path)!r} is a folder, not a file")
     if target.exists() and not force:
-        raise InputError(f"{str(path)!r} exists; use --force to overwrite it")
+        raise InputError(
+            f"{str(path)!r} exists; it is kept unless overwriting is forced", remedy=("force", None)
+        )
     text = dumps_setup(setup)
     return write_atomically(
         target, lambda name: Path(name).write_text(text, encoding="utf-8", newline="\n")
