@@ -30,6 +30,7 @@ import numpy as np
 
 from .conventions import level_key
 from .errors import InputError
+from .source import source_widths
 
 __all__ = [
     "beam_edges",
@@ -104,7 +105,7 @@ def computed_widths(result, coordinates, plane: str | None = None) -> dict[float
     levels = result.beam.levels
     table = {level: [] for level in levels}
     for c in np.atleast_1d(np.asarray(coordinates, dtype=float)):
-        found = result.source.widths(float(c), levels, name, result.mode, result.settings)
+        found = source_widths(result.source, float(c), levels, name, result.mode, result.settings)
         for level, w in zip(levels, found, strict=True):
             table[level].append(w.width)
     return {level: np.asarray(v, dtype=float) for level, v in table.items()}

@@ -40,6 +40,7 @@ from .depthwidths import (
 )
 from .errors import InputError
 from .probes import check_positive
+from .source import source_widths
 from .units import length_text as _mm
 
 __all__ = [
@@ -277,7 +278,7 @@ def index_step(
 
         def width(depth: float) -> float:
             at = source.coordinate_of_depth(depth)
-            found = source.widths(at, [level_db], plane, result.mode, result.settings)
+            found = source_widths(source, at, [level_db], plane, result.mode, result.settings)
             return float(found[0].width)
 
         widths = sample_widths(width, start, stop, count, refine)

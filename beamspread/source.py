@@ -14,9 +14,10 @@ element:
   water path ``WP + d c_part / c_couplant`` (paraxial; the lateral scale is
   unchanged).
 
-:class:`FieldSource` holds that, and gives the widths, profiles and maps of
-the computed field on the part's terms, so ``beam``, ``across``, ``axis``,
-``map`` and the index step all read the same field.
+:class:`FieldSource` holds that, as plain data (it runs nothing); the
+functions below give the widths, profiles and maps of the computed field on
+the part's terms from it, so ``beam``, ``across``, ``axis``, ``map`` and the
+index step all read the same field.
 """
 
 from __future__ import annotations
@@ -28,7 +29,7 @@ import numpy as np
 
 from .probes import Element, check_element
 
-__all__ = ["FieldSource"]
+__all__ = ["FieldSource", "source_across", "source_axial", "source_map", "source_widths"]
 
 
 @dataclass(frozen=True)
@@ -88,80 +89,84 @@ class FieldSource:
             return depth
         return depth / math.cos(self.refracted)
 
-    def widths(self, coordinate: float, levels, plane: str, mode: str, settings) -> list:
-        """The computed field's widths (:class:`beamspread.BeamWidth`) at a coordinate, m.
 
-        A focused element within one element size of the face gives none
-        (NaN widths): its paraxial field does not hold there.
-        """
-        from .field import BeamWidth, beam_widths, focused_beam_widths
+def source_widths(
+    source: FieldSource, coordinate: float, levels, plane: str, mode: str, settings
+) -> list:
+    """The computed field's widths (:class:`beamspread.BeamWidth`) at a coordinate, m.
 
-        at = float(self.ranges(coordinate))
-        kwargs = _kwargs(settings, mode, self.element_plane(plane))
-        if self.focus is None:
-            return beam_widths(self.element, self.speed, at, levels, **kwargs)
-        if at < self.element.longest_side:
-            name = self.element_plane(plane)
-            return [
-                BeamWidth(name, at, abs(float(lv)), math.nan, str(mode), settings.bandwidth)
-                for lv in levels
-            ]
-        return focused_beam_widths(self.element, self.speed, self.focus, at, levels, **kwargs)
+    A focused element within one element size of the face gives none
+    (NaN widths): its paraxial field does not hold there.
+    """
+    from .field import BeamWidth, beam_widths, focused_beam_widths
 
-    def map(self, lateral, coordinates, plane: str, mode: str, settings):
-        """The computed amplitude on ``lateral`` x ``coordinates`` (1-D, m), as a
-        :class:`beamspread.FieldMap` whose ``depth`` is the coordinates."""
-        from .field import FieldMap, field_map, focused_amplitude
+    at = float(source.ranges(coordinate))
+    kwargs = _kwargs(settings, mode, source.element_plane(plane))
+    if source.focus is None:
+        return beam_widths(source.element, source.speed, at, levels, **kwargs)
+    if at < source.element.longest_side:
+        name = source.element_plane(plane)
+        return [
+            BeamWidth(name, at, abs(float(lv)), math.nan, str(mode), settings.bandwidth)
+            for lv in levels
+        ]
+    return focused_beam_widths(source.element, source.speed, source.focus, at, levels, **kwargs)
 
-        kwargs = _kwargs(settings, mode, self.element_plane(plane))
-        ranges = self.ranges(coordinates)
-        if self.focus is None:
-            found = field_map(self.element, self.speed, lateral, ranges, **kwargs)
-        else:
-            amplitude = focused_amplitude(
-                self.element, self.speed, self.focus, lateral, ranges, **kwargs
-            )
-            lateral = np.asarray(lateral, dtype=float)
-            found = FieldMap(
-                kwargs["plane"], lateral, ranges, amplitude, str(mode), settings.bandwidth
-            )
-        return replace(found, plane=plane, depth=np.asarray(coordinates, dtype=float))
 
-    def across(self, coordinate: float, offsets, plane: str, mode: str, settings):
-        """The computed amplitude across the beam at one coordinate, as a
-        :class:`beamspread.TransverseProfile` whose ``depth`` is the coordinate."""
-        from .field import TransverseProfile, focused_amplitude, transverse_profile
+def source_map(source: FieldSource, lateral, coordinates, plane: str, mode: str, settings):
+    """The computed amplitude on ``lateral`` x ``coordinates`` (1-D, m), as a
+    :class:`beamspread.FieldMap` whose ``depth`` is the coordinates."""
+    from .field import FieldMap, field_map, focused_amplitude
 
-        kwargs = _kwargs(settings, mode, self.element_plane(plane))
-        at = float(self.ranges(coordinate))
-        if self.focus is None:
-            found = transverse_profile(self.element, self.speed, at, offsets, **kwargs)
-        else:
-            offsets = np.atleast_1d(np.asarray(offsets, dtype=float))
-            amplitude = focused_amplitude(
-                self.element, self.speed, self.focus, offsets, [at], **kwargs
-            )[0]
-            found = TransverseProfile(
-                kwargs["plane"], at, offsets, amplitude, str(mode), settings.bandwidth
-            )
-        return replace(found, plane=plane, depth=float(coordinate))
+    kwargs = _kwargs(settings, mode, source.element_plane(plane))
+    ranges = source.ranges(coordinates)
+    if source.focus is None:
+        found = field_map(source.element, source.speed, lateral, ranges, **kwargs)
+    else:
+        amplitude = focused_amplitude(
+            source.element, source.speed, source.focus, lateral, ranges, **kwargs
+        )
+        lateral = np.asarray(lateral, dtype=float)
+        found = FieldMap(kwargs["plane"], lateral, ranges, amplitude, str(mode), settings.bandwidth)
+    return replace(found, plane=plane, depth=np.asarray(coordinates, dtype=float))
 
-    def axial(self, coordinates, mode: str, settings):
-        """The computed on-axis amplitude at the coordinates, as a
-        :class:`beamspread.AxialProfile` whose ``depth`` is the coordinates."""
-        from .field import AxialProfile, axial_profile, focused_amplitude
 
-        kwargs = _kwargs(settings, mode, self.element_plane(self.planes[0]))
-        ranges = self.ranges(coordinates)
-        if self.focus is None:
-            kwargs.pop("plane")
-            found = axial_profile(self.element, self.speed, ranges, **kwargs)
-        else:
-            amplitude = focused_amplitude(
-                self.element, self.speed, self.focus, [0.0], ranges, **kwargs
-            )
-            found = AxialProfile(ranges, amplitude[:, 0], str(mode), settings.bandwidth)
-        return replace(found, depth=np.asarray(coordinates, dtype=float))
+def source_across(source: FieldSource, coordinate: float, offsets, plane: str, mode: str, settings):
+    """The computed amplitude across the beam at one coordinate, as a
+    :class:`beamspread.TransverseProfile` whose ``depth`` is the coordinate."""
+    from .field import TransverseProfile, focused_amplitude, transverse_profile
+
+    kwargs = _kwargs(settings, mode, source.element_plane(plane))
+    at = float(source.ranges(coordinate))
+    if source.focus is None:
+        found = transverse_profile(source.element, source.speed, at, offsets, **kwargs)
+    else:
+        offsets = np.atleast_1d(np.asarray(offsets, dtype=float))
+        amplitude = focused_amplitude(
+            source.element, source.speed, source.focus, offsets, [at], **kwargs
+        )[0]
+        found = TransverseProfile(
+            kwargs["plane"], at, offsets, amplitude, str(mode), settings.bandwidth
+        )
+    return replace(found, plane=plane, depth=float(coordinate))
+
+
+def source_axial(source: FieldSource, coordinates, mode: str, settings):
+    """The computed on-axis amplitude at the coordinates, as a
+    :class:`beamspread.AxialProfile` whose ``depth`` is the coordinates."""
+    from .field import AxialProfile, axial_profile, focused_amplitude
+
+    kwargs = _kwargs(settings, mode, source.element_plane(source.planes[0]))
+    ranges = source.ranges(coordinates)
+    if source.focus is None:
+        kwargs.pop("plane")
+        found = axial_profile(source.element, source.speed, ranges, **kwargs)
+    else:
+        amplitude = focused_amplitude(
+            source.element, source.speed, source.focus, [0.0], ranges, **kwargs
+        )
+        found = AxialProfile(ranges, amplitude[:, 0], str(mode), settings.bandwidth)
+    return replace(found, depth=np.asarray(coordinates, dtype=float))
 
 
 def _kwargs(settings, mode, plane) -> dict:

@@ -7,6 +7,7 @@ from pathlib import Path
 import click
 
 from ..atomic import write_atomically
+from ..source import source_map
 from .field import MAX_MAP_POINTS, FieldRun, _check_plane, _points_option, drew
 from .options import (
     depth_range_options,
@@ -99,7 +100,8 @@ def map_(
     wavelength = source.speed / source.element.frequency
     far = float(source.ranges(stop))
     half = span if span is not None else max(aperture, 4 * wavelength * far / aperture)
-    result = source.map(
+    result = source_map(
+        source,
         np.linspace(-half, half, lateral_points),
         np.linspace(start, stop, depth_points),
         plane,

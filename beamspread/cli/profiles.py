@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import click
 
+from ..source import source_across, source_axial, source_widths
 from .field import MAX_PROFILE_POINTS, FieldRun, _check_plane, _points_option, drew
 from .options import (
     depth_range_options,
@@ -41,7 +42,7 @@ def axis(start, stop, points, plot_path, force_plot, fmt, units, **common):
 
     run = FieldRun(common, plot_path, force_plot)
     start, stop = run.depth_range(start, stop, points, "axis", first=0.05)
-    profile = run.source.axial(np.linspace(start, stop, points), run.mode, run.settings)
+    profile = source_axial(run.source, np.linspace(start, stop, points), run.mode, run.settings)
     near, axial = run.result.beam.near_field, run.last_maximum()
     if plot_path is not None:
         from ..render.plots import plot_axis
@@ -118,9 +119,9 @@ def across(depth, plane, span, points, levels, plot_path, force_plot, fmt, units
         aperture = dict(source.element.planes)[source.element_plane(name)]
         half = span if span is not None else max(aperture, 4 * wavelength * distance / aperture)
         offsets = np.linspace(-half, half, points)
-        profiles.append(source.across(at, offsets, name, mode, settings))
-        widths[name] = source.widths(
-            at, levels or run.result.technique.levels, name, mode, settings
+        profiles.append(source_across(source, at, offsets, name, mode, settings))
+        widths[name] = source_widths(
+            source, at, levels or run.result.technique.levels, name, mode, settings
         )
     if plot_path is not None:
         from ..render.plots import plot_across

@@ -45,7 +45,7 @@ from ..beam import (
 from ..errors import InputError
 from ..media.quantities import Wave
 from ..probes import Disc, Rectangle, check_element, check_positive
-from ..source import FieldSource
+from ..source import FieldSource, source_widths
 from ..units import length_text as _mm
 from .result import FocusResult, SetupResult
 
@@ -147,7 +147,7 @@ def analyse_immersion(
         for depth in depth_list:
             if field is not None:
                 computed = straight_field_spots(
-                    source.widths(depth, level_list, plane.name, mode, field), depth
+                    source_widths(source, depth, level_list, plane.name, mode, field), depth
                 )
             if focus is not None:  # no far-field row: the flat element's cone does not converge
                 spots.extend(computed if field is not None else [])
