@@ -297,6 +297,15 @@ def test_contact_disc_far_field_edges_are_the_bessel_cone(run, monkeypatch):
     assert "the length plane" not in caption  # a disc has one plane: none is named
 
 
+def _field_widths(beam: dict) -> dict:
+    """(depth, level) -> the computed width in ``beam --json``'s first plane."""
+    return {
+        (s["depth_m"], s["level_db"]): s["width_m"]
+        for s in beam["planes"][0]["spots"]
+        if s["method"] == "field"
+    }
+
+
 def test_mirror_leg_is_the_width_at_the_unfolded_sound_path(run, monkeypatch):
     # The computed field: the back wall mirrors the beam, so at depth d on the way back up
     # the width is the beam's width at the sound path 2t - d (geometry), here read from
@@ -306,11 +315,7 @@ def test_mirror_leg_is_the_width_at_the_unfolded_sound_path(run, monkeypatch):
     args = (*PROBE, *STEEL, "--bandwidth", "0.5")
     data, geometry, _ = _drawn(monkeypatch, run, *args, "--thickness", "25mm", "--depth", "15mm")
     beam = run("beam", *args, "--depth", "15mm", "--depth", "35mm", "--json").json()
-    widths = {
-        (s["depth_m"], s["level_db"]): s["width_m"]
-        for s in beam["planes"][0]["spots"]
-        if s["method"] == "field"
-    }
+    widths = _field_widths(beam)
     rows = _rows(data)
     assert data["edges"] == "field" and len(rows) == 4
     for level in (-6.0, -20.0):
@@ -335,11 +340,7 @@ def test_immersion_widths_in_the_part_are_the_beam_commands(run, monkeypatch):
         monkeypatch, run, *probe, "--thickness", "25mm", "--depth", "15mm"
     )
     beam = run("beam", *probe, "--depth", "15mm", "--depth", "35mm", "--json").json()
-    widths = {
-        (s["depth_m"], s["level_db"]): s["width_m"]
-        for s in beam["planes"][0]["spots"]
-        if s["method"] == "field"
-    }
+    widths = _field_widths(beam)
     rows = _rows(data)
     for level in (-6.0, -20.0):
         assert rows[(1, level)]["footprint_m"] == widths[(0.015, level)]
